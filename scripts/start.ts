@@ -1,0 +1,110 @@
+/**
+ * One command for a working Tidewright: local PostgreSQL (migrated, seeded when
+ * empty), the local stand-ins, a build when the sources changed, and the app on
+ * http://127.0.0.1:3000. Ctrl-C stops everything it started.
+ *
+ *   tsx scripts/start.ts          production build (adapter-node)
+ *   tsx scripts/start.ts --dev    Vite's dev server
+ *   tsx scripts/start.ts --fresh  throw away the cluster in PG_DATA_DIR first (browser tests)
+ */
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { existsSync, mkdirSync, readdirSync, statSync } from 'node:fs';
+import { join } from 'node:path';
+import { clusterSettingsFromEnv, projectRoot, removeCluster } from '../docker-local/postgres';
+import { extraServices, startPostgres, type RunningService } from './local-services';
+
+const dev = process.argv.includes('--dev');
+const fresh = process.argv.includes('--fresh');
+const host = process.env.HOST ?? '127.0.0.1';
+const port = process.env.PORT ?? (dev ? '5173' : '3000');
+const origin = process.env.ORIGIN ?? `http://${host}:${port}`;
+
+const services: RunningService[] = [];
+let app: ChildProcess | undefined;
+let stopping = false;
+
+function newestMtime(path: string): number {
+	if (!existsSync(path)) return 0;
+	const stat = statSync(path);
+	if (!stat.isDirectory()) return stat.mtimeMs;
+	let newest = stat.mtimeMs;
+	for (const entry of readdirSync(path)) newest = Math.max(newest, newestMtime(join(path, entry)));
+	return newest;
+}
+
+function buildIsStale(): boolean {
+	const built = join(projectRoot, 'build', 'index.js');
+	if (!existsSync(built)) return true;
+	const builtAt = statSync(built).mtimeMs;
+	const inputs = ['src', 'static', 'svelte.config.js', 'vite.config.ts', 'tailwind.config.ts', 'package-lock.json'];
+	return inputs.some((input) => newestMtime(join(projectRoot, input)) > builtAt);
+}
+
+async function shutdown(code: number) {
+	if (stopping) return;
+	stopping = true;
+	if (app && app.exitCode === null) {
+		app.kill('SIGTERM');
+		await new Promise((resolve) => {
+			const timer = setTimeout(() => {
+				app?.kill('SIGKILL');
+				resolve(undefined);
+			}, 5_000);
+			app?.once('exit', () => {
+				clearTimeout(timer);
+				resolve(undefined);
+			});
+		});
+	}
+	for (const service of services.reverse()) {
+		try {
+			await service.stop();
+		} catch (error) {
+			console.error(`[start] stopping ${service.name} failed:`, error);
+		}
+	}
+	process.exit(code);
+}
+
+async function main() {
+	mkdirSync(join(projectRoot, '.data'), { recursive: true });
+	process.on('SIGINT', () => void shutdown(0));
+	process.on('SIGTERM', () => void shutdown(0));
+
+	if (fresh) removeCluster(clusterSettingsFromEnv());
+	services.push(await startPostgres());
+	for (const startService of extraServices) services.push(await startService());
+	const serviceEnv = Object.assign({}, ...services.map((s) => s.env)) as Record<string, string>;
+	const env = { ...process.env, ...serviceEnv, HOST: host, PORT: port, ORIGIN: origin };
+
+	if (dev) {
+		app = spawn('npx', ['vite', 'dev', '--host', host, '--port', port, '--strictPort'], {
+			cwd: projectRoot,
+			env,
+			stdio: 'inherit'
+		});
+	} else {
+		if (buildIsStale()) {
+			console.log('[start] building the app…');
+			const build = spawnSync('npx', ['vite', 'build'], { cwd: projectRoot, env, stdio: 'inherit' });
+			if (build.status !== 0) throw new Error('the build failed');
+		}
+		app = spawn(process.execPath, ['build'], { cwd: projectRoot, env, stdio: 'inherit' });
+	}
+	app.once('exit', (code) => {
+		if (!stopping) {
+			console.error(`[start] the app exited (${code}); stopping the local services`);
+			void shutdown(code ?? 1);
+		}
+	});
+	for (const service of services) {
+		const note = service.env.NOTE;
+		if (note) console.log(note);
+	}
+	console.log(`\nTidewright is starting on ${origin}\n`);
+}
+
+main().catch(async (error) => {
+	console.error('[start]', error instanceof Error ? error.message : error);
+	await shutdown(1);
+});

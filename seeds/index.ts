@@ -1,0 +1,12 @@
+/**
+ * The demo seeds, in order. Each one checks for itself that the database is
+ * empty of what it adds, so seeding never writes over a user's data.
+ */
+import type { Knex } from 'knex';
+import { seed as seedDemoWorkspace } from './01_demo_workspace';
+
+const seeds: Array<(knex: Knex) => Promise<void>> = [seedDemoWorkspace];
+
+export async function runSeeds(knex: Knex): Promise<void> {
+	for (const seed of seeds) await seed(knex);
+}

@@ -1,0 +1,23 @@
+import type { Config } from 'tailwindcss';
+
+// Tidewright's palette: deep water ink, chart-paper sand, a copper signal colour
+// for actions and a kelp green for healthy figures.
+export default {
+	content: ['./src/**/*.{html,js,svelte,ts}'],
+	theme: {
+		extend: {
+			colors: {
+				abyss: { 50: '#eef4f7', 100: '#d5e3ea', 300: '#8fb0c0', 500: '#3e6e85', 700: '#1d4357', 800: '#143244', 900: '#0c2130' },
+				sand: { 50: '#fbf9f4', 100: '#f4efe3', 200: '#e8dfc9', 400: '#c9b88f' },
+				copper: { 400: '#e08a5c', 500: '#c8643b', 600: '#a94e2a' },
+				kelp: { 400: '#5aa58f', 500: '#2f7d6d', 600: '#256457' },
+				flare: { 500: '#b3322f' }
+			},
+			fontFamily: {
+				display: ['Fraunces', 'Georgia', 'serif'],
+				sans: ['"IBM Plex Sans"', 'system-ui', 'sans-serif'],
+				mono: ['"IBM Plex Mono"', 'ui-monospace', 'monospace']
+			}
+		}
+	}
+} satisfies Config;
