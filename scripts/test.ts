@@ -1,0 +1,91 @@
+/**
+ * `npm test`: type-check, then the vitest unit and integration tests, then the
+ * Playwright browser tests in Debian's Chromium. Ends with the pass/fail counts.
+ */
+import { spawn, spawnSync } from 'node:child_process';
+import { existsSync } from 'node:fs';
+
+interface Outcome {
+	name: string;
+	passed: number;
+	failed: number;
+	exitCode: number;
+}
+
+const chromiumPath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+
+function ensureChromium() {
+	if (existsSync(chromiumPath)) return;
+	if (process.getuid?.() !== 0) {
+		throw new Error(`Chromium was not found at ${chromiumPath}. Install it with: sudo apt-get install -y chromium`);
+	}
+	console.log('[test] installing Debian package chromium (apt-get)…');
+	for (const args of [['update', '-qq'], ['install', '-y', '-qq', 'chromium']]) {
+		const result = spawnSync('apt-get', args, { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+		if (result.status !== 0) throw new Error(`apt-get ${args.join(' ')} failed`);
+	}
+}
+
+function stripAnsi(text: string) {
+	// eslint-disable-next-line no-control-regex
+	return text.replace(/\x1b\[[0-9;]*m/g, '');
+}
+
+function runStep(name: string, command: string, args: string[], count: (output: string) => { passed: number; failed: number }) {
+	return new Promise<Outcome>((resolve) => {
+		console.log(`\n[test] ── ${name} ──`);
+		const child = spawn(command, args, { stdio: ['ignore', 'pipe', 'pipe'], env: { ...process.env, FORCE_COLOR: '0' } });
+		let output = '';
+		child.stdout.on('data', (chunk) => {
+			output += chunk;
+			process.stdout.write(chunk);
+		});
+		child.stderr.on('data', (chunk) => {
+			output += chunk;
+			process.stderr.write(chunk);
+		});
+		child.on('close', (code) => resolve({ name, exitCode: code ?? 1, ...count(stripAnsi(output)) }));
+	});
+}
+
+function numberAfter(text: string, pattern: RegExp): number {
+	const match = text.match(pattern);
+	return match ? Number(match[1]) : 0;
+}
+
+const countSvelteCheck = (out: string) => {
+	const errors = numberAfter(out, /found (\d+) errors?/);
+	const warnings = numberAfter(out, /(\d+) warnings?/);
+	return { passed: errors + warnings === 0 ? 1 : 0, failed: errors + warnings === 0 ? 0 : 1 };
+};
+const countVitest = (out: string) => {
+	const line = out.split('\n').find((l) => /^\s*Tests\s/.test(l)) ?? '';
+	return { passed: numberAfter(line, /(\d+) passed/), failed: numberAfter(line, /(\d+) failed/) };
+};
+const countPlaywright = (out: string) => ({
+	passed: numberAfter(out, /^\s*(\d+) passed/m),
+	failed: numberAfter(out, /^\s*(\d+) failed/m) + numberAfter(out, /^\s*(\d+) flaky/m)
+});
+
+async function main() {
+	const outcomes: Outcome[] = [];
+	outcomes.push(await runStep('svelte-check', 'npm', ['run', '--silent', 'check'], countSvelteCheck));
+	outcomes.push(await runStep('vitest (unit + integration)', 'npx', ['vitest', 'run'], countVitest));
+	ensureChromium();
+	outcomes.push(await runStep('playwright (Chromium)', 'npx', ['playwright', 'test'], countPlaywright));
+
+	console.log('\n[test] ── summary ──');
+	for (const o of outcomes) {
+		console.log(`${o.name}: ${o.passed} passed, ${o.failed} failed${o.exitCode !== 0 ? ` (exit ${o.exitCode})` : ''}`);
+	}
+	const passed = outcomes.reduce((n, o) => n + o.passed, 0);
+	const failed = outcomes.reduce((n, o) => n + o.failed, 0);
+	const broken = outcomes.some((o) => o.exitCode !== 0);
+	console.log(`${passed} passed, ${failed} failed`);
+	process.exit(broken || failed > 0 ? 1 : 0);
+}
+
+main().catch((error) => {
+	console.error(error);
+	process.exit(1);
+});

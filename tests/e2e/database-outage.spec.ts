@@ -1,0 +1,29 @@
+import { expect, test } from '@playwright/test';
+import { execFileSync } from 'node:child_process';
+
+// Stops and restarts the browser tests' own cluster (see playwright.config.ts).
+function cluster(command: 'start' | 'stop') {
+	execFileSync('npx', ['tsx', 'docker-local/postgres.ts', command], {
+		env: { ...process.env, PGPORT_LOCAL: process.env.E2E_PG_PORT ?? '54331', PG_DATA_DIR: '.data/pg-e2e' },
+		stdio: 'pipe'
+	});
+}
+
+test('a database outage turns health to 503 and the projects page to a clear error, then recovers', async ({ page, request }) => {
+	cluster('stop');
+	try {
+		const down = await request.get('/api/v1/health');
+		expect(down.status()).toBe(503);
+		expect(await down.json()).toMatchObject({ db: 'down' });
+
+		await page.goto('/app');
+		await expect(page.getByRole('alert')).toContainText('Projects could not be loaded');
+		await expect(page.getByRole('alert')).toContainText('database is not answering');
+	} finally {
+		cluster('start');
+	}
+
+	await expect.poll(async () => (await request.get('/api/v1/health')).status(), { timeout: 15_000 }).toBe(200);
+	await page.getByRole('button', { name: 'Try again' }).click();
+	await expect(page.getByRole('heading', { name: 'Kestle Narrows Tidal Array' })).toBeVisible();
+});

@@ -1,0 +1,24 @@
+import { expect, test } from '@playwright/test';
+
+test('the home page says what Tidewright is and leads to the workbench', async ({ page }) => {
+	await page.goto('/');
+	await expect(page.getByRole('heading', { level: 1 })).toContainText('resource to return');
+	await expect(page.getByLabel('Cautions')).toContainText('not investment advice');
+	await page.getByRole('link', { name: 'Open the workbench' }).click();
+	await expect(page).toHaveURL(/\/app/);
+});
+
+test('the workbench lists the demo projects fetched from the API', async ({ page }) => {
+	const apiCall = page.waitForResponse((r) => r.url().includes('/api/v1/projects') && r.status() === 200);
+	await page.goto('/app');
+	await apiCall;
+	const projects = page.getByRole('list', { name: 'Projects' });
+	await expect(projects.getByRole('heading', { name: 'Kestle Narrows Tidal Array' })).toBeVisible();
+	await expect(projects.getByRole('heading', { name: 'Orrin Bank Wave Farm' })).toBeVisible();
+});
+
+test('health answers JSON with the database state', async ({ request }) => {
+	const response = await request.get('/api/v1/health');
+	expect(response.status()).toBe(200);
+	expect(await response.json()).toEqual({ status: 'ok', db: 'ok' });
+});
