@@ -1,0 +1,563 @@
+/**
+ * The scenario document: everything the engine needs to evaluate one case of an
+ * ocean-energy project. Shared by the editor forms, the JSON API and the engine.
+ *
+ * Conventions (see docs/scenario-format.md):
+ * - Numbers are plain JSON numbers; the engine turns them into decimals.
+ * - Fractions are 0..1 (0.05 means 5 %).
+ * - Money inputs are in real terms, in prices of the commercial operation year
+ *   (t = 0), in `currency` units. Power in kW, energy in MWh, speeds in m/s.
+ * - Time: t = 0 is the commercial operation date (COD). Capex of the last
+ *   construction year sits at t = 0, earlier years at t = -1, -2, ...;
+ *   operating year k sits at t = k (end of year).
+ */
+import { z } from 'zod';
+
+/** Lanchester-Betz limit: no open rotor extracts more than 16/27 of the kinetic power flux. */
+export const BETZ_LIMIT = 16 / 27;
+
+export const SCHEMA_VERSION = 1 as const;
+
+const fraction = (what: string) => z.number().min(0).max(1).describe(`${what} (fraction 0..1)`);
+const positive = (what: string) => z.number().positive().describe(what);
+const nonNegative = (what: string) => z.number().min(0).describe(what);
+const wholeYears = (what: string, min: number) => z.number().int().min(min).describe(what);
+const lineName = z.string().min(1).max(120).describe('Label shown in tables and charts');
+
+// ---------------------------------------------------------------- site
+
+const siteSchema = z
+	.object({
+		name: z.string().max(120).optional().describe('Site name (free text)'),
+		waterDensityKgPerM3: positive('Seawater density, kg/m^3').default(1025),
+		gravityMPerS2: positive('Gravitational acceleration used in the wave energy flux, m/s^2').default(
+			9.80665
+		)
+	})
+	.describe('Physical constants of the site');
+
+// ---------------------------------------------------------------- resource
+
+const occurrenceBasis = z
+	.enum(['hours', 'probability'])
+	.describe(
+		'How bin occurrences are given: hours in a year, or probabilities. Either way they are normalised to sum to 1'
+	);
+
+const speedHistogramSchema = z
+	.object({
+		kind: z.literal('speed-histogram'),
+		occurrenceBasis: occurrenceBasis.default('probability'),
+		bins: z
+			.array(
+				z.object({
+					speedMPerS: nonNegative('Bin centre flow speed, m/s'),
+					occurrence: nonNegative('Hours in a year or probability of this speed bin')
+				})
+			)
+			.min(1)
+			.describe('Flow speed histogram (IEC TS 62600-200 uses 0.1 m/s bins)')
+	})
+	.describe('Measured or modelled flow speed histogram at hub height');
+
+const binWidth = positive('Width of the speed bins the distribution is turned into, m/s').default(0.1);
+
+const weibullSchema = z
+	.object({
+		kind: z.literal('weibull'),
+		scaleMPerS: positive('Weibull scale parameter c, m/s'),
+		shape: positive('Weibull shape parameter k (dimensionless)'),
+		binWidthMPerS: binWidth
+	})
+	.describe('Weibull distribution of flow speed, turned into bins');
+
+const rayleighSchema = z
+	.object({
+		kind: z.literal('rayleigh'),
+		meanSpeedMPerS: positive('Mean flow speed, m/s'),
+		binWidthMPerS: binWidth
+	})
+	.describe('Rayleigh distribution (Weibull with k = 2) of flow speed, turned into bins');
+
+const periodType = z
+	.enum(['energy-period', 'peak-period'])
+	.describe('Whether periods are energy periods Te or spectral peak periods Tp (converted with teOverTp)')
+	.default('energy-period');
+
+const teOverTp = z
+	.number()
+	.min(0.5)
+	.max(1.2)
+	.describe(
+		'Te/Tp ratio used to convert peak periods: 0.9 is the usual rule; 0.8588 for a Pierson-Moskowitz spectrum, 0.9037 for JONSWAP with gamma 3.3'
+	)
+	.default(0.9);
+
+const seaStateTableSchema = z
+	.object({
+		kind: z.literal('sea-state-table'),
+		periodType,
+		teOverTp,
+		occurrenceBasis: occurrenceBasis.default('probability'),
+		states: z
+			.array(
+				z.object({
+					hsM: nonNegative('Significant wave height Hs, m'),
+					periodS: positive('Wave period (Te or Tp, see periodType), s'),
+					occurrence: nonNegative('Hours in a year or probability of this sea state')
+				})
+			)
+			.min(1)
+			.describe('Sea-state occurrence table (scatter diagram); IEC TS 62600-100 bins are Hs 0.5 m x Te 1 s')
+	})
+	.describe('Sea-state occurrence table (scatter diagram)');
+
+const seaStateSchema = z
+	.object({
+		kind: z.literal('sea-state'),
+		periodType,
+		teOverTp,
+		hsM: positive('Significant wave height Hs, m'),
+		periodS: positive('Wave period (Te or Tp, see periodType), s')
+	})
+	.describe('A single characteristic sea state occurring all year');
+
+export const resourceSchema = z
+	.discriminatedUnion('kind', [
+		speedHistogramSchema,
+		weibullSchema,
+		rayleighSchema,
+		seaStateTableSchema,
+		seaStateSchema
+	])
+	.describe('The resource: flow speeds for currents, sea states for waves');
+
+// ---------------------------------------------------------------- device
+
+const rotorSchema = z
+	.object({
+		kind: z.literal('rotor'),
+		rotorDiameterM: positive('Rotor diameter, m (give this or sweptAreaM2)').optional(),
+		sweptAreaM2: positive('Swept area per device, m^2 (overrides rotorDiameterM)').optional(),
+		powerCoefficient: z
+			.number()
+			.positive()
+			.max(BETZ_LIMIT, {
+				message: `power coefficient exceeds the Betz limit 16/27 (${BETZ_LIMIT.toFixed(4)}): no open rotor can extract more`
+			})
+			.describe('Rotor power coefficient Cp (at most the Betz limit 16/27 = 0.5926)'),
+		driveTrainEfficiency: z
+			.number()
+			.positive()
+			.max(1)
+			.describe('Drive-train efficiency from rotor shaft to grid connection (fraction 0..1)')
+			.default(1),
+		cutInSpeedMPerS: nonNegative('Cut-in flow speed, m/s').default(0),
+		ratedPowerKW: positive('Rated electrical power per device, kW'),
+		cutOutSpeedMPerS: positive('Cut-out flow speed, m/s (no power at or above it)')
+	})
+	.describe('Parametric rotor: P = 1/2 rho A Cp eta v^3, capped at rated power between cut-in and cut-out');
+
+const powerCurveSchema = z
+	.object({
+		kind: z.literal('power-curve'),
+		ratedPowerKW: positive('Rated power per device, kW (defaults to the curve maximum)').optional(),
+		points: z
+			.array(
+				z.object({
+					speedMPerS: nonNegative('Flow speed, m/s'),
+					powerKW: nonNegative('Electrical power at this speed, kW')
+				})
+			)
+			.min(2)
+			.describe('Measured power curve, speeds ascending; linear between points, zero outside them')
+	})
+	.describe('Measured power curve (IEC TS 62600-200 style: power against binned flow speed)');
+
+const powerMatrixSchema = z
+	.object({
+		kind: z.literal('power-matrix'),
+		ratedPowerKW: positive('Rated power per device, kW (defaults to the matrix maximum)').optional(),
+		periodType,
+		teOverTp,
+		hsM: z.array(nonNegative('Hs row value, m')).min(1).describe('Row axis: significant wave heights, m, ascending'),
+		periodS: z.array(positive('Period column value, s')).min(1).describe('Column axis: periods (Te or Tp), s, ascending'),
+		powerKW: z
+			.array(z.array(nonNegative('Mean electrical power, kW')))
+			.min(1)
+			.describe('Mean electrical power per device, kW: one row per hsM value, one column per periodS value'),
+		lookup: z
+			.enum(['bilinear', 'nearest'])
+			.describe('bilinear: interpolate between the four surrounding cells; nearest: take the nearest cell')
+			.default('bilinear')
+	})
+	.describe('Wave power matrix over Hs and period (IEC TS 62600-100 style); zero outside its range');
+
+const captureWidthSchema = z
+	.object({
+		kind: z.literal('capture-width'),
+		captureWidthRatio: positive('Wave-to-wire capture width ratio (fraction of the flux across the characteristic width)'),
+		characteristicWidthM: positive('Characteristic width of the device, m'),
+		ratedPowerKW: positive('Rated electrical power per device, kW (cap)')
+	})
+	.describe('Parametric wave device: P = CWR x width x J, capped at rated power');
+
+export const deviceSchema = z
+	.discriminatedUnion('kind', [rotorSchema, powerCurveSchema, powerMatrixSchema, captureWidthSchema])
+	.describe('The energy converter: rotor or power curve for currents, power matrix or capture width for waves');
+
+// ---------------------------------------------------------------- array, losses, uncertainty
+
+const arraySchema = z
+	.object({
+		deviceCount: wholeYears('Number of devices in the array', 1),
+		arrayLoss: fraction('Array (wake/blockage) loss').default(0),
+		availability: fraction('Availability').default(1),
+		electricalLoss: fraction('Electrical (cable, transformer) loss').default(0),
+		otherLoss: fraction('Other losses').default(0),
+		degradationPerYear: fraction('Performance degradation per operating year, geometric').default(0)
+	})
+	.describe('The array and its losses; losses multiply');
+
+const uncertaintySchema = z
+	.object({
+		components: z
+			.array(
+				z.object({
+					name: lineName,
+					sigma: nonNegative('One standard deviation as a fraction of P50 energy')
+				})
+			)
+			.default([])
+			.describe('Independent yield uncertainties, combined as root sum of squares'),
+		exceedanceLevels: z
+			.array(z.number().gt(0).lt(100).describe('Exceedance probability, percent (90 for P90)'))
+			.default([90])
+			.describe('Pxx levels reported besides P50 (P90 is always reported)')
+	})
+	.describe('Yield uncertainty for P90 and other exceedance levels (normal model)');
+
+// ---------------------------------------------------------------- timeline and costs
+
+const timelineSchema = z
+	.object({
+		constructionYears: wholeYears('Construction years before COD (the last one ends at t = 0)', 1).default(1),
+		operatingYears: wholeYears('Operating years after COD', 1).max(60)
+	})
+	.describe('Construction and operating periods');
+
+const phasing = z
+	.array(nonNegative('Share of spend in this construction year'))
+	.describe('Share of spend per construction year, first year first; must sum to 1 and have one entry per construction year');
+
+const capexLineSchema = z.object({
+	name: lineName,
+	basis: z
+		.enum(['lump-sum', 'per-kW', 'per-device'])
+		.describe('lump-sum: amount for the project; per-kW: per kW installed; per-device: per device'),
+	amount: nonNegative('Cost in currency units (per kW or per device where the basis says so), real'),
+	phasing: phasing.optional()
+});
+
+const capexSchema = z
+	.object({
+		lines: z.array(capexLineSchema).min(1).describe('Capital cost lines'),
+		phasing: phasing.optional().describe('Default phasing for lines without their own (even spread when omitted)'),
+		contingency: fraction('Contingency added to every capex line').default(0)
+	})
+	.describe('Capital costs, in real money of the COD year');
+
+const escalation = z
+	.number()
+	.min(-0.5)
+	.max(0.5)
+	.describe('Real escalation per year above inflation (fraction)')
+	.default(0);
+
+const opexLineSchema = z.discriminatedUnion('basis', [
+	z.object({
+		name: lineName,
+		basis: z.literal('fixed-per-year'),
+		amount: nonNegative('Cost per year, currency units, real'),
+		escalation
+	}),
+	z.object({
+		name: lineName,
+		basis: z.literal('per-kW-year'),
+		amount: nonNegative('Cost per kW installed per year, currency units, real'),
+		escalation
+	}),
+	z.object({
+		name: lineName,
+		basis: z.literal('per-MWh'),
+		amount: nonNegative('Cost per MWh delivered, currency units, real'),
+		escalation
+	}),
+	z.object({
+		name: lineName,
+		basis: z.literal('percent-of-capex'),
+		fraction: fraction('Share of total capex (with contingency) per year, e.g. insurance'),
+		escalation
+	}),
+	z.object({
+		name: lineName,
+		basis: z.literal('percent-of-revenue'),
+		fraction: fraction('Share of revenue in the same year, e.g. a seabed lease')
+	}),
+	z.object({
+		name: lineName,
+		basis: z.literal('periodic-overhaul'),
+		amount: nonNegative('Cost of one overhaul, currency units, real (per device when perDevice)'),
+		perDevice: z.boolean().describe('Amount is per device rather than for the whole array').default(true),
+		intervalYears: wholeYears('An overhaul every this many operating years (not in the final year)', 1),
+		escalation
+	})
+]);
+
+const opexSchema = z
+	.object({ lines: z.array(opexLineSchema).default([]).describe('Operating cost lines') })
+	.describe('Operating costs, in real money of the COD year, escalated with inflation plus their own escalation');
+
+const decommissioningSchema = z
+	.object({
+		basis: z.enum(['lump-sum', 'per-device', 'per-kW', 'percent-of-capex']).default('lump-sum'),
+		amount: nonNegative(
+			'Decommissioning cost, real (currency units; per device or per kW by basis; a fraction for percent-of-capex)'
+		).default(0)
+	})
+	.describe('Decommissioning cost, paid at the end of the final operating year');
+
+// ---------------------------------------------------------------- revenue
+
+const grantSchema = z.object({
+	name: lineName,
+	basis: z.enum(['lump-sum', 'percent-of-capex']).describe('lump-sum in currency units (real), or share of capex'),
+	amount: nonNegative('Grant amount (currency units) or share of capex (fraction)')
+});
+
+const revenueSchema = z
+	.object({
+		tariffPerMWh: nonNegative('Support tariff or PPA price, currency per MWh, real (COD-year prices)'),
+		supportYears: wholeYears('Operating years the tariff applies, then the merchant price', 0),
+		tariffIndexation: fraction('Share of inflation the tariff is indexed to (1 = fully indexed, 0 = flat nominal)').default(
+			1
+		),
+		merchantPricePerMWh: nonNegative('Merchant price after the support period, currency per MWh, real').default(0),
+		merchantEscalation: escalation,
+		grants: z.array(grantSchema).default([]).describe('Capital grants, received in step with capex spend; not taxed, they reduce the depreciable cost')
+	})
+	.describe('Revenue');
+
+// ---------------------------------------------------------------- finance
+
+const loanTerms = {
+	interestRate: z.number().min(0).max(0.5).describe('Nominal interest rate per year (fraction)'),
+	tenorYears: wholeYears('Loan tenor from COD, years (including grace years)', 1),
+	graceYears: wholeYears('Interest-only years at the start of the tenor', 0).default(0),
+	upfrontFee: fraction('Upfront fee as a share of the debt amount, paid by equity at financial close').default(0),
+	repayment: z
+		.enum(['annuity', 'straight-line', 'sculpted'])
+		.describe('Repayment profile: level payments, level principal, or sculpted to CFADS')
+		.default('annuity'),
+	capitalizeInterestDuringConstruction: z
+		.boolean()
+		.describe('Roll interest during construction into the loan (true) or pay it from equity (false)')
+		.default(true)
+};
+
+const debtSchema = z
+	.discriminatedUnion('sizing', [
+		z.object({ sizing: z.literal('none') }),
+		z.object({
+			sizing: z.literal('gearing'),
+			gearing: fraction('Share of construction spend (capex net of grants) funded by debt'),
+			...loanTerms
+		}),
+		z.object({
+			sizing: z.literal('target-dscr'),
+			targetDscr: z.number().min(1).max(5).describe('Target debt service cover ratio in every repayment year'),
+			maxGearing: fraction('Cap on the share of construction spend funded by debt').default(0.8),
+			...loanTerms
+		})
+	])
+	.describe('Senior debt: none, sized by gearing, or sized by a target DSCR (the lesser of that and the gearing cap)');
+
+const financeSchema = z
+	.object({
+		inflation: z.number().min(-0.05).max(0.5).describe('Inflation per year (fraction)').default(0.02),
+		realDiscountRate: z.number().min(0).max(0.5).describe('Real discount rate per year (fraction); nominal by Fisher'),
+		taxRate: fraction('Corporate tax rate').default(0),
+		depreciation: z
+			.object({
+				method: z.enum(['straight-line', 'declining-balance']).default('straight-line'),
+				lifeYears: wholeYears('Tax depreciation life, years (defaults to the operating life)', 1).optional(),
+				decliningBalanceFactor: positive('Declining-balance factor (2 = double declining)').default(2)
+			})
+			.default({ method: 'straight-line', decliningBalanceFactor: 2 })
+			.describe('Tax depreciation of capex net of grants'),
+		taxLossCarryForward: z.boolean().describe('Carry tax losses forward against later profits').default(true),
+		debt: debtSchema.default({ sizing: 'none' })
+	})
+	.describe('Rates, tax and debt');
+
+// ---------------------------------------------------------------- the document
+
+const technology = z
+	.enum(['tidal-stream', 'ocean-current', 'wave'])
+	.describe('tidal-stream and ocean-current use flow speeds; wave uses sea states');
+
+const speedResources = new Set(['speed-histogram', 'weibull', 'rayleigh']);
+const speedDevices = new Set(['rotor', 'power-curve']);
+
+const scenarioObject = z
+	.object({
+		schemaVersion: z.literal(SCHEMA_VERSION).describe('Version of this document format'),
+		name: z.string().min(1).max(200).describe('Scenario name'),
+		description: z.string().max(4000).optional().describe('Free-text notes'),
+		technology,
+		currency: z
+			.string()
+			.regex(/^[A-Z]{3}$/, 'currency must be a three-letter code such as EUR')
+			.describe('ISO 4217 currency code of every money amount')
+			.default('EUR'),
+		hoursPerYear: z
+			.number()
+			.min(8000)
+			.max(9000)
+			.describe('Hours in a year for annual energy: 8760 (default) or 8766 (IEC TS 62600-100, 365.25 days)')
+			.default(8760),
+		site: siteSchema.default({ waterDensityKgPerM3: 1025, gravityMPerS2: 9.80665 }),
+		resource: resourceSchema,
+		device: deviceSchema,
+		array: arraySchema,
+		uncertainty: uncertaintySchema.default({ components: [], exceedanceLevels: [90] }),
+		timeline: timelineSchema,
+		capex: capexSchema,
+		opex: opexSchema.default({ lines: [] }),
+		decommissioning: decommissioningSchema.default({ basis: 'lump-sum', amount: 0 }),
+		revenue: revenueSchema,
+		finance: financeSchema
+	})
+	.describe('A Tidewright scenario: one case of an ocean-energy project');
+
+export const scenarioSchema = scenarioObject.superRefine(
+	(s, ctx) => {
+		checkTechnologyFit(s, ctx);
+		checkDevice(s.device, ctx);
+		checkPhasing(s, ctx);
+		checkFinance(s, ctx);
+	},
+	// Cross-field checks need a structurally valid document; they run once the field errors are fixed.
+	{ when: (payload) => payload.issues.length === 0 }
+);
+
+type RefineCtx = z.core.$RefinementCtx<unknown>;
+type Device = z.output<typeof deviceSchema>;
+
+function checkTechnologyFit(s: z.output<typeof scenarioObject>, ctx: RefineCtx) {
+	const flow = s.technology !== 'wave';
+	if (flow !== speedResources.has(s.resource.kind)) {
+		ctx.addIssue({
+			code: 'custom',
+			path: ['resource', 'kind'],
+			message: flow
+				? `${s.technology} needs a flow-speed resource (speed-histogram, weibull or rayleigh), not ${s.resource.kind}`
+				: `wave needs a sea-state resource (sea-state-table or sea-state), not ${s.resource.kind}`
+		});
+	}
+	if (flow !== speedDevices.has(s.device.kind)) {
+		ctx.addIssue({
+			code: 'custom',
+			path: ['device', 'kind'],
+			message: flow
+				? `${s.technology} needs a rotor or power-curve device, not ${s.device.kind}`
+				: `wave needs a power-matrix or capture-width device, not ${s.device.kind}`
+		});
+	}
+}
+
+function ascending(values: readonly number[]): boolean {
+	return values.every((v, i) => i === 0 || v > values[i - 1]);
+}
+
+function checkDevice(device: Device, ctx: RefineCtx) {
+	if (device.kind === 'rotor') {
+		if (device.rotorDiameterM === undefined && device.sweptAreaM2 === undefined) {
+			ctx.addIssue({ code: 'custom', path: ['device', 'rotorDiameterM'], message: 'give rotorDiameterM or sweptAreaM2' });
+		}
+		if (device.cutOutSpeedMPerS <= device.cutInSpeedMPerS) {
+			ctx.addIssue({ code: 'custom', path: ['device', 'cutOutSpeedMPerS'], message: 'cut-out speed must be above cut-in speed' });
+		}
+	}
+	if (device.kind === 'power-curve' && !ascending(device.points.map((p) => p.speedMPerS))) {
+		ctx.addIssue({ code: 'custom', path: ['device', 'points'], message: 'power curve speeds must be strictly ascending' });
+	}
+	if (device.kind === 'power-matrix') {
+		if (!ascending(device.hsM)) ctx.addIssue({ code: 'custom', path: ['device', 'hsM'], message: 'Hs values must be strictly ascending' });
+		if (!ascending(device.periodS)) ctx.addIssue({ code: 'custom', path: ['device', 'periodS'], message: 'periods must be strictly ascending' });
+		if (device.powerKW.length !== device.hsM.length) {
+			ctx.addIssue({ code: 'custom', path: ['device', 'powerKW'], message: `power matrix needs ${device.hsM.length} rows (one per hsM value), has ${device.powerKW.length}` });
+		}
+		device.powerKW.forEach((row, i) => {
+			if (row.length !== device.periodS.length) {
+				ctx.addIssue({ code: 'custom', path: ['device', 'powerKW', i], message: `row needs ${device.periodS.length} values (one per periodS value), has ${row.length}` });
+			}
+		});
+	}
+}
+
+function checkPhasing(s: z.output<typeof scenarioObject>, ctx: RefineCtx) {
+	const years = s.timeline.constructionYears;
+	const check = (values: number[] | undefined, path: (string | number)[]) => {
+		if (!values) return;
+		if (values.length !== years) {
+			ctx.addIssue({ code: 'custom', path, message: `phasing needs ${years} entries (one per construction year), has ${values.length}` });
+			return;
+		}
+		const total = values.reduce((a, b) => a + b, 0);
+		if (Math.abs(total - 1) > 1e-6) ctx.addIssue({ code: 'custom', path, message: `phasing must sum to 1, sums to ${total}` });
+	};
+	check(s.capex.phasing, ['capex', 'phasing']);
+	s.capex.lines.forEach((line, i) => check(line.phasing, ['capex', 'lines', i, 'phasing']));
+}
+
+function checkFinance(s: z.output<typeof scenarioObject>, ctx: RefineCtx) {
+	const debt = s.finance.debt;
+	if (debt.sizing === 'none') return;
+	if (debt.tenorYears > s.timeline.operatingYears) {
+		ctx.addIssue({ code: 'custom', path: ['finance', 'debt', 'tenorYears'], message: `tenor (${debt.tenorYears} years) must not exceed the operating life (${s.timeline.operatingYears} years)` });
+	}
+	if (debt.graceYears >= debt.tenorYears) {
+		ctx.addIssue({ code: 'custom', path: ['finance', 'debt', 'graceYears'], message: 'grace years must be fewer than the tenor' });
+	}
+}
+
+export type Scenario = z.output<typeof scenarioSchema>;
+export type ScenarioInput = z.input<typeof scenarioSchema>;
+export type Resource = Scenario['resource'];
+export type DeviceSpec = Scenario['device'];
+export type OpexLine = Scenario['opex']['lines'][number];
+export type DebtSpec = Scenario['finance']['debt'];
+
+export type ScenarioIssue = { path: string; message: string };
+export type ParseScenarioResult = { ok: true; scenario: Scenario } | { ok: false; issues: ScenarioIssue[] };
+
+/** `['capex', 'lines', 2, 'amount']` -> `capex.lines[2].amount`. */
+export function formatIssuePath(path: readonly PropertyKey[]): string {
+	let out = '';
+	for (const key of path) {
+		if (typeof key === 'number') out += `[${key}]`;
+		else out += out === '' ? String(key) : `.${String(key)}`;
+	}
+	return out === '' ? '(document)' : out;
+}
+
+/** Validate an untrusted JSON value as a scenario, filling defaults. */
+export function parseScenario(input: unknown): ParseScenarioResult {
+	const result = scenarioSchema.safeParse(input);
+	if (result.success) return { ok: true, scenario: result.data };
+	return {
+		ok: false,
+		issues: result.error.issues.map((issue) => ({ path: formatIssuePath(issue.path), message: issue.message }))
+	};
+}

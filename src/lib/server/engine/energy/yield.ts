@@ -1,0 +1,179 @@
+/**
+ * Annual energy of the array: the device's power over the resource
+ * distribution, times hours, device count and losses; then P50, P90 and other
+ * exceedance levels. Power in kW, energy in MWh.
+ */
+import { dec, Decimal, ZERO } from '../decimal';
+import type { Scenario } from '../../../schemas/scenario';
+import { energyPeriodFromPeakPeriod, normaliseOccurrences, rayleighBins, weibullBins, type FlowBin, type SeaStateBin } from './distributions';
+import { flowDeviceRatedPowerKW, powerCurveKW, rotorPowerFunction } from './current';
+import { captureWidthPowerKW, powerMatrixKW, powerMatrixRatedPowerKW, waveEnergyFluxKWPerM } from './wave';
+import { netLossFactor } from './losses';
+import { combinedSigma, exceedanceFactor } from './uncertainty';
+
+export type EnergyBin = {
+	/** Flow bins: centre speed. */
+	speedMPerS?: Decimal;
+	/** Sea states: Hs, energy period and the deep-water flux. */
+	hsM?: Decimal;
+	teS?: Decimal;
+	fluxKWPerM?: Decimal;
+	probability: Decimal;
+	hours: Decimal;
+	devicePowerKW: Decimal;
+	/** Gross energy of the whole array from this bin, before losses, MWh/yr. */
+	arrayGrossEnergyMWh: Decimal;
+};
+
+export type Exceedance = { levelPercent: number; factor: Decimal; aepMWh: Decimal };
+
+export type EnergyEstimate = {
+	ratedPowerPerDeviceKW: Decimal;
+	installedCapacityKW: Decimal;
+	meanDevicePowerKW: Decimal;
+	/** Array energy before losses, MWh/yr. */
+	grossAepMWh: Decimal;
+	lossFactor: Decimal;
+	/** P50 net energy of operating year 1 (before degradation), MWh/yr. */
+	netAepMWh: Decimal;
+	combinedSigma: Decimal;
+	exceedances: Exceedance[];
+	p90AepMWh: Decimal;
+	/** Net AEP over installed capacity x hours in a year. */
+	capacityFactor: Decimal | null;
+	bins: EnergyBin[];
+	warnings: string[];
+};
+
+function flowBins(scenario: Scenario, warnings: string[]): FlowBin[] {
+	const r = scenario.resource;
+	if (r.kind === 'weibull') return weibullBins(r.scaleMPerS, r.shape, r.binWidthMPerS);
+	if (r.kind === 'rayleigh') return rayleighBins(r.meanSpeedMPerS, r.binWidthMPerS);
+	if (r.kind !== 'speed-histogram') return [];
+	const probabilities = normaliseOccurrences(r.bins.map((b) => b.occurrence));
+	if (!probabilities) {
+		warnings.push('The speed histogram has no occurrences (all zero): energy is zero.');
+		return [];
+	}
+	checkOccurrenceTotal(r.occurrenceBasis, r.bins.map((b) => b.occurrence), scenario.hoursPerYear, 'speed histogram', warnings);
+	return r.bins.map((b, i) => ({ speedMPerS: dec(b.speedMPerS), probability: probabilities[i] }));
+}
+
+function seaStateBins(scenario: Scenario, warnings: string[]): SeaStateBin[] {
+	const r = scenario.resource;
+	if (r.kind === 'sea-state') {
+		const te = r.periodType === 'peak-period' ? energyPeriodFromPeakPeriod(r.periodS, r.teOverTp) : dec(r.periodS);
+		return [{ hsM: dec(r.hsM), teS: te, probability: dec(1) }];
+	}
+	if (r.kind !== 'sea-state-table') return [];
+	const probabilities = normaliseOccurrences(r.states.map((s) => s.occurrence));
+	if (!probabilities) {
+		warnings.push('The sea-state table has no occurrences (all zero): energy is zero.');
+		return [];
+	}
+	checkOccurrenceTotal(r.occurrenceBasis, r.states.map((s) => s.occurrence), scenario.hoursPerYear, 'sea-state table', warnings);
+	return r.states.map((s, i) => ({
+		hsM: dec(s.hsM),
+		teS: r.periodType === 'peak-period' ? energyPeriodFromPeakPeriod(s.periodS, r.teOverTp) : dec(s.periodS),
+		probability: probabilities[i]
+	}));
+}
+
+function checkOccurrenceTotal(basis: 'hours' | 'probability', values: number[], hoursPerYear: number, what: string, warnings: string[]) {
+	const total = values.reduce((a, b) => a + b, 0);
+	const expected = basis === 'hours' ? hoursPerYear : 1;
+	if (Math.abs(total - expected) > 0.01 * expected) {
+		warnings.push(`The ${what} occurrences sum to ${total} rather than ${expected} ${basis}; they were normalised to sum to 1.`);
+	}
+}
+
+/** Evaluate the device over the resource: power per bin, then energy per bin. */
+function binsWithPower(scenario: Scenario, warnings: string[]): { bins: EnergyBin[]; ratedKW: Decimal } {
+	const hours = dec(scenario.hoursPerYear);
+	const devices = scenario.array.deviceCount;
+	const withEnergy = (bin: Omit<EnergyBin, 'hours' | 'arrayGrossEnergyMWh'>): EnergyBin => {
+		const binHours = bin.probability.times(hours);
+		return { ...bin, hours: binHours, arrayGrossEnergyMWh: bin.devicePowerKW.times(binHours).times(devices).div(1000) };
+	};
+	const { device, site } = scenario;
+	if (device.kind === 'rotor' || device.kind === 'power-curve') {
+		const power = device.kind === 'rotor' ? rotorPowerFunction(device, site.waterDensityKgPerM3) : (v: Decimal) => powerCurveKW(device.points, v);
+		const bins = flowBins(scenario, warnings).map((b) =>
+			withEnergy({ speedMPerS: b.speedMPerS, probability: b.probability, devicePowerKW: power(b.speedMPerS) })
+		);
+		return { bins, ratedKW: flowDeviceRatedPowerKW(device) };
+	}
+	const teAxis =
+		device.kind === 'power-matrix' && device.periodType === 'peak-period'
+			? device.periodS.map((p) => p * device.teOverTp)
+			: device.kind === 'power-matrix'
+				? device.periodS
+				: [];
+	let outside = ZERO;
+	const bins = seaStateBins(scenario, warnings).map((s) => {
+		const flux = waveEnergyFluxKWPerM(s.hsM, s.teS, site.waterDensityKgPerM3, site.gravityMPerS2);
+		let powerKW: Decimal;
+		if (device.kind === 'capture-width') powerKW = captureWidthPowerKW(device, flux);
+		else {
+			const looked = device.kind === 'power-matrix' ? powerMatrixKW(device, teAxis, s.hsM.toNumber(), s.teS.toNumber()) : null;
+			if (looked === null) outside = outside.plus(s.probability);
+			powerKW = looked ?? ZERO;
+		}
+		return withEnergy({ hsM: s.hsM, teS: s.teS, fluxKWPerM: flux, probability: s.probability, devicePowerKW: powerKW });
+	});
+	if (outside.gt(0)) {
+		warnings.push(
+			`${outside.times(100).toDecimalPlaces(2).toString()} % of the time falls in sea states outside the power matrix; they produce no power.`
+		);
+	}
+	const ratedKW = device.kind === 'power-matrix' ? powerMatrixRatedPowerKW(device) : dec(device.ratedPowerKW);
+	return { bins, ratedKW };
+}
+
+/**
+ * Annual energy estimate.
+ *
+ *     gross AEP = N_devices x hours/yr x sum_i p_i P(bin_i) / 1000        (MWh)
+ *     net AEP (P50) = gross AEP x loss factor
+ *     Pxx = P50 x max(0, 1 - z_xx sigma)
+ *     capacity factor = net AEP / (installed kW x hours / 1000)
+ *
+ * Source: IEC TS 62600-100 / -200 (mean annual energy from power matrix or
+ * power curve times the resource occurrence); losses and exceedance levels as
+ * in ./losses and ./uncertainty.
+ */
+export function estimateEnergy(scenario: Scenario): EnergyEstimate {
+	const warnings: string[] = [];
+	const { bins, ratedKW } = binsWithPower(scenario, warnings);
+	let grossAep = ZERO;
+	let meanPower = ZERO;
+	for (const b of bins) {
+		grossAep = grossAep.plus(b.arrayGrossEnergyMWh);
+		meanPower = meanPower.plus(b.devicePowerKW.times(b.probability));
+	}
+	const lossFactor = netLossFactor(scenario.array);
+	const netAep = grossAep.times(lossFactor);
+	const sigma = combinedSigma(scenario.uncertainty.components.map((c) => c.sigma));
+	const levels = [...new Set([90, ...scenario.uncertainty.exceedanceLevels])].sort((a, b) => a - b);
+	const exceedances = levels.map((levelPercent) => {
+		const factor = exceedanceFactor(levelPercent, sigma);
+		return { levelPercent, factor, aepMWh: netAep.times(factor) };
+	});
+	const installedKW = ratedKW.times(scenario.array.deviceCount);
+	const capacityMWhPerYear = installedKW.times(scenario.hoursPerYear).div(1000);
+	if (netAep.isZero()) warnings.push('Net annual energy is zero: LCOE and energy-based metrics are undefined.');
+	return {
+		ratedPowerPerDeviceKW: ratedKW,
+		installedCapacityKW: installedKW,
+		meanDevicePowerKW: meanPower,
+		grossAepMWh: grossAep,
+		lossFactor,
+		netAepMWh: netAep,
+		combinedSigma: sigma,
+		exceedances,
+		p90AepMWh: exceedances.find((e) => e.levelPercent === 90)!.aepMWh,
+		capacityFactor: capacityMWhPerYear.isZero() ? null : netAep.div(capacityMWhPerYear),
+		bins,
+		warnings
+	};
+}
