@@ -4,8 +4,9 @@
  */
 import type { Knex } from 'knex';
 import { seed as seedDemoWorkspace } from './01_demo_workspace';
+import { seed as seedDemoUsers } from './02_demo_users';
 
-const seeds: Array<(knex: Knex) => Promise<void>> = [seedDemoWorkspace];
+const seeds: Array<(knex: Knex) => Promise<void>> = [seedDemoWorkspace, seedDemoUsers];
 
 export async function runSeeds(knex: Knex): Promise<void> {
 	for (const seed of seeds) await seed(knex);

@@ -1,14 +1,58 @@
-import type { HandleServerError } from '@sveltejs/kit';
+import { redirect, type Handle, type HandleServerError } from '@sveltejs/kit';
+import { sequence } from '@sveltejs/kit/hooks';
 import { randomUUID } from 'node:crypto';
+import { SESSION_COOKIE, deleteSessionCookie, setSessionCookie, validateSessionToken } from '$lib/server/auth/session';
+import { cookiesAreSecure } from '$lib/server/auth/cookies';
+import { devInboxEnabled } from '$lib/server/mail/dev-inbox';
+
+/** Puts `user` and `session` on locals from the session cookie, sliding its expiry. */
+const authenticate: Handle = async ({ event, resolve }) => {
+	event.locals.user = null;
+	event.locals.session = null;
+	const token = event.cookies.get(SESSION_COOKIE);
+	if (token) {
+		const { session, user } = await validateSessionToken(token);
+		const secure = cookiesAreSecure(event.url);
+		if (session) {
+			setSessionCookie(event.cookies, token, session.expiresAt, secure);
+			event.locals.user = user;
+			event.locals.session = session;
+		} else {
+			deleteSessionCookie(event.cookies, secure);
+		}
+	}
+	return resolve(event);
+};
+
+/** Whole areas: the workbench needs a signed-in user; the dev inbox exists only beside the local mail sink. */
+const guardAreas: Handle = async ({ event, resolve }) => {
+	const path = event.url.pathname;
+	if ((path === '/app' || path.startsWith('/app/')) && !event.locals.user) {
+		redirect(303, `/signin?next=${encodeURIComponent(path + event.url.search)}`);
+	}
+	if (path.startsWith('/dev/') && !devInboxEnabled()) {
+		return new Response('Not found', { status: 404 });
+	}
+	return resolve(event);
+};
+
+const securityHeaders: Handle = async ({ event, resolve }) => {
+	const response = await resolve(event);
+	response.headers.set('x-content-type-options', 'nosniff');
+	response.headers.set('referrer-policy', 'same-origin');
+	response.headers.set('x-frame-options', 'DENY');
+	return response;
+};
+
+export const handle = sequence(securityHeaders, authenticate, guardAreas);
 
 /** Log the real error on the server; show the user a safe message with an id to quote. */
 export const handleError: HandleServerError = ({ error, status, message }) => {
 	if (status === 404) return { message };
 	const errorId = randomUUID();
 	console.error(`[error ${errorId}]`, error);
-	const databaseDown = isConnectionError(error);
 	return {
-		message: databaseDown
+		message: isConnectionError(error)
 			? 'The database is not answering right now. Your saved work is safe; try again in a moment.'
 			: 'Something went wrong on our side.',
 		errorId

@@ -1,0 +1,119 @@
+/**
+ * Sessions in PostgreSQL, after the lucia authors' recipe: the cookie carries
+ * a random token, the database keeps only its sha256; 30-day expiry that
+ * slides forward when less than half of it is left.
+ */
+import type { Knex } from 'knex';
+import type { Cookies } from '@sveltejs/kit';
+import { db } from '../db/knex';
+import { generateRandomToken, hashToken } from './tokens';
+
+export const SESSION_COOKIE = 'tw_session';
+const DAY_MS = 24 * 60 * 60 * 1000;
+export const SESSION_LIFETIME_MS = 30 * DAY_MS;
+
+export interface Session {
+	id: string;
+	userId: string;
+	expiresAt: Date;
+	workspaceId: string | null;
+}
+
+export interface SessionUser {
+	id: string;
+	email: string;
+	name: string;
+	emailVerified: boolean;
+}
+
+export type SessionValidation = { session: Session; user: SessionUser } | { session: null; user: null };
+
+export function generateSessionToken(): string {
+	return generateRandomToken();
+}
+
+export async function createSession(
+	token: string,
+	userId: string,
+	meta: { userAgent?: string; ip?: string; workspaceId?: string | null } = {},
+	knex: Knex = db()
+): Promise<Session> {
+	const session: Session = {
+		id: hashToken(token),
+		userId,
+		expiresAt: new Date(Date.now() + SESSION_LIFETIME_MS),
+		workspaceId: meta.workspaceId ?? null
+	};
+	await knex('sessions').insert({
+		id: session.id,
+		user_id: userId,
+		expires_at: session.expiresAt,
+		user_agent: (meta.userAgent ?? '').slice(0, 300),
+		ip: meta.ip ?? '',
+		workspace_id: session.workspaceId
+	});
+	return session;
+}
+
+export async function validateSessionToken(token: string, knex: Knex = db(), now = new Date()): Promise<SessionValidation> {
+	const id = hashToken(token);
+	const row = await knex('sessions')
+		.join('users', 'users.id', 'sessions.user_id')
+		.select(
+			'sessions.id',
+			'sessions.user_id',
+			'sessions.expires_at',
+			'sessions.workspace_id',
+			'users.email',
+			'users.name',
+			'users.email_verified_at'
+		)
+		.where('sessions.id', id)
+		.first();
+	if (!row) return { session: null, user: null };
+
+	const expiresAt = new Date(row.expires_at);
+	if (now.getTime() >= expiresAt.getTime()) {
+		await knex('sessions').where({ id }).delete();
+		return { session: null, user: null };
+	}
+	const session: Session = { id, userId: row.user_id, expiresAt, workspaceId: row.workspace_id };
+	if (now.getTime() >= expiresAt.getTime() - SESSION_LIFETIME_MS / 2) {
+		session.expiresAt = new Date(now.getTime() + SESSION_LIFETIME_MS);
+		await knex('sessions').where({ id }).update({ expires_at: session.expiresAt, last_seen_at: now });
+	}
+	return {
+		session,
+		user: { id: row.user_id, email: row.email, name: row.name, emailVerified: row.email_verified_at !== null }
+	};
+}
+
+export async function invalidateSession(sessionId: string, knex: Knex = db()): Promise<void> {
+	await knex('sessions').where({ id: sessionId }).delete();
+}
+
+/** Ends every session of a user, optionally keeping the one in use. */
+export async function invalidateUserSessions(userId: string, keepSessionId?: string, knex: Knex = db()): Promise<number> {
+	const query = knex('sessions').where({ user_id: userId });
+	if (keepSessionId) query.whereNot({ id: keepSessionId });
+	return query.delete();
+}
+
+export async function listUserSessions(userId: string, knex: Knex = db()) {
+	return knex('sessions')
+		.select('id', 'created_at', 'last_seen_at', 'expires_at', 'user_agent', 'ip')
+		.where({ user_id: userId })
+		.orderBy('last_seen_at', 'desc');
+}
+
+export async function setSessionWorkspace(sessionId: string, workspaceId: string, knex: Knex = db()): Promise<void> {
+	await knex('sessions').where({ id: sessionId }).update({ workspace_id: workspaceId });
+}
+
+export function setSessionCookie(cookies: Cookies, token: string, expiresAt: Date, secure: boolean) {
+	cookies.set(SESSION_COOKIE, token, { httpOnly: true, sameSite: 'lax', secure, path: '/', expires: expiresAt });
+}
+
+export function deleteSessionCookie(cookies: Cookies, secure: boolean) {
+	cookies.delete(SESSION_COOKIE, { httpOnly: true, sameSite: 'lax', secure, path: '/' });
+}

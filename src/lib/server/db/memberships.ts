@@ -1,0 +1,103 @@
+import type { Knex } from 'knex';
+import { db } from './knex';
+import type { WorkspaceRole } from '../auth/roles';
+
+export interface WorkspaceMembership {
+	workspaceId: string;
+	workspaceName: string;
+	workspaceSlug: string;
+	role: WorkspaceRole;
+}
+
+export async function getMembership(
+	workspaceId: string,
+	userId: string,
+	knex: Knex = db()
+): Promise<WorkspaceMembership | undefined> {
+	const row = await knex('memberships')
+		.join('workspaces', 'workspaces.id', 'memberships.workspace_id')
+		.select('memberships.workspace_id', 'workspaces.name', 'workspaces.slug', 'memberships.role')
+		.where({ 'memberships.workspace_id': workspaceId, 'memberships.user_id': userId })
+		.first();
+	return row && { workspaceId: row.workspace_id, workspaceName: row.name, workspaceSlug: row.slug, role: row.role };
+}
+
+export async function listWorkspacesForUser(userId: string, knex: Knex = db()): Promise<WorkspaceMembership[]> {
+	const rows = await knex('memberships')
+		.join('workspaces', 'workspaces.id', 'memberships.workspace_id')
+		.select('memberships.workspace_id', 'workspaces.name', 'workspaces.slug', 'memberships.role')
+		.where({ 'memberships.user_id': userId })
+		.orderBy('workspaces.name');
+	return rows.map((row) => ({
+		workspaceId: row.workspace_id,
+		workspaceName: row.name,
+		workspaceSlug: row.slug,
+		role: row.role
+	}));
+}
+
+export interface MemberRow {
+	userId: string;
+	email: string;
+	name: string;
+	role: WorkspaceRole;
+	joinedAt: Date;
+}
+
+export async function listMembers(workspaceId: string, knex: Knex = db()): Promise<MemberRow[]> {
+	const rows = await knex('memberships')
+		.join('users', 'users.id', 'memberships.user_id')
+		.select('users.id', 'users.email', 'users.name', 'memberships.role', 'memberships.created_at')
+		.where({ 'memberships.workspace_id': workspaceId })
+		.orderBy([{ column: 'memberships.role', order: 'asc' }, { column: 'users.email' }]);
+	return rows.map((r) => ({ userId: r.id, email: r.email, name: r.name, role: r.role, joinedAt: r.created_at }));
+}
+
+export async function addMember(workspaceId: string, userId: string, role: WorkspaceRole, knex: Knex = db()) {
+	await knex('memberships')
+		.insert({ workspace_id: workspaceId, user_id: userId, role })
+		.onConflict(['workspace_id', 'user_id'])
+		.ignore();
+}
+
+export class LastOwnerError extends Error {
+	constructor() {
+		super('A workspace needs at least one owner: make someone else an owner first.');
+	}
+}
+
+async function lockOwners(workspaceId: string, trx: Knex.Transaction): Promise<string[]> {
+	const rows = await trx('memberships')
+		.select('user_id')
+		.where({ workspace_id: workspaceId, role: 'owner' })
+		.forUpdate();
+	return rows.map((r) => r.user_id);
+}
+
+/** Changes a member's role; refuses to demote the last owner. Returns the previous role. */
+export async function changeMemberRole(
+	workspaceId: string,
+	userId: string,
+	role: WorkspaceRole,
+	knex: Knex = db()
+): Promise<WorkspaceRole | null> {
+	return knex.transaction(async (trx) => {
+		const owners = await lockOwners(workspaceId, trx);
+		const current = await trx('memberships').select('role').where({ workspace_id: workspaceId, user_id: userId }).first();
+		if (!current) return null;
+		if (current.role === 'owner' && role !== 'owner' && owners.length <= 1) throw new LastOwnerError();
+		await trx('memberships').where({ workspace_id: workspaceId, user_id: userId }).update({ role });
+		return current.role;
+	});
+}
+
+/** Removes a member (or lets one leave); refuses to remove the last owner. */
+export async function removeMember(workspaceId: string, userId: string, knex: Knex = db()): Promise<boolean> {
+	return knex.transaction(async (trx) => {
+		const owners = await lockOwners(workspaceId, trx);
+		if (owners.includes(userId) && owners.length <= 1) throw new LastOwnerError();
+		const removed = await trx('memberships').where({ workspace_id: workspaceId, user_id: userId }).delete();
+		await trx('sessions').where({ user_id: userId, workspace_id: workspaceId }).update({ workspace_id: null });
+		return removed > 0;
+	});
+}
