@@ -1,0 +1,316 @@
+/**
+ * Internal rate of return: the rate r > -1 at which the net present value of a
+ * cash-flow series is zero,
+ *
+ *     sum_t values[t] / (1 + r)^t = 0        (first value at t = 0)
+ *
+ * Method. With x = 1 / (1 + r) the NPV is the polynomial p(x) = sum_t c_t x^t,
+ * and every rate r > -1 is one x > 0. The positive axis is searched in two
+ * unit intervals, so the float64 polynomial never overflows:
+ *   - x in (0, 1]  for r >= 0, with p(x);
+ *   - y = 1 + r = 1 / x in (0, 1]  for -1 < r <= 0, with q(y) = y^N p(1 / y),
+ *     the same coefficients reversed.
+ * Roots are located in float64 (Brent's method on each bracketed sign change)
+ * and then polished by Newton steps on the decimal polynomial, so the result
+ * is exact to about 1e-25 for a simple root at the cost of one or two decimal
+ * polynomial evaluations.
+ *
+ * By Descartes' rule of signs the number of positive roots of p is at most the
+ * number of sign changes in the flows, and has the same parity. One sign change
+ * (an investment followed by returns) therefore means exactly one IRR, found
+ * directly. With several sign changes each unit interval is scanned on a grid of
+ * 64 cells; a cell whose ends share a sign but whose slopes show a turning point
+ * is checked at that turning point, so pairs of close roots and double roots
+ * are found too (more than two roots inside one cell, i.e. within about 1.5 %
+ * of each other, would not be).
+ */
+import { dec, Decimal, ONE, type DecimalInput } from '../decimal';
+import { solveRoot } from './roots';
+
+export type IrrResult = { rate: Decimal; reason: null } | { rate: null; reason: string };
+
+/** A flow at an integer period t (possibly negative). */
+export type TimedAmount = { t: number; amount: Decimal };
+
+/** Cells per unit interval when several sign changes allow several roots. */
+const SCAN_CELLS = 64;
+/** Longest series irrTimed accepts after shifting (periods). */
+const MAX_SPAN = 100_000;
+
+/** Where a float root lies: x = 1 / (1 + r) in (0, 1] or y = 1 + r in (0, 1]. */
+type Side = 'discount' | 'growth';
+type FloatRoot = { side: Side; z: number; rate: number; tangent: boolean };
+
+function failure(reason: string): IrrResult {
+	return { rate: null, reason };
+}
+
+/**
+ * Internal rate of return of flows at t = 0, 1, 2, ... (numpy-financial convention).
+ *
+ *     find r > -1 with sum_t values[t] / (1 + r)^t = 0
+ *
+ * Units: values in currency per period; the rate is a fraction per period.
+ * Source: numpy-financial `irr` (the same equation, there solved through the
+ * polynomial's eigenvalues); the method is in the module comment.
+ *
+ * Degenerate cases, decided on purpose:
+ *   - empty or all-zero flows, and flows that never change sign: rate null with
+ *     a reason (no rate can make the NPV zero);
+ *   - several sign changes with no real root: rate null with a reason;
+ *   - several real roots: the one nearest `guess` (default 0, i.e. the root of
+ *     smallest magnitude, which is numpy-financial 1.0's choice: irr([-100, 100,
+ *     0, -7]) has roots -0.0833 and -0.6789 and returns -0.0833). A later
+ *     numpy-financial prefers the smallest non-negative root when roots of
+ *     both signs exist; pass guess to choose otherwise. With a single sign
+ *     change there is only one root and guess does not matter.
+ *
+ * Example (numpy-financial docstring):
+ *
+ *     irr([-100, 39, 59, 55, 20])  // => { rate: 0.28094842115996..., reason: null }
+ *     irr([100, 200])              // => { rate: null, reason: 'cash flows never change sign ...' }
+ *
+ * @throws RangeError when guess is given and is not a finite number above -1.
+ */
+export function irr(values: readonly DecimalInput[], guess?: number): IrrResult {
+	if (guess !== undefined && !(Number.isFinite(guess) && guess > -1)) {
+		throw new RangeError(`guess must be a finite rate greater than -1, got ${guess}`);
+	}
+	if (values.length === 0) return failure('no cash flows, so there is no IRR');
+
+	const amounts = values.map(dec);
+	let first = 0;
+	while (first < amounts.length && amounts[first].isZero()) first++;
+	if (first === amounts.length) return failure('all cash flows are zero, so there is no IRR');
+	let last = amounts.length - 1;
+	while (amounts[last].isZero()) last--;
+	// Leading zeros multiply p by x^k and trailing zeros lower its degree: neither moves a root x > 0.
+	const coefficients = amounts.slice(first, last + 1);
+
+	const changes = signChanges(coefficients);
+	if (changes === 0) {
+		return failure('cash flows never change sign (only inflows or only outflows), so no rate makes the NPV zero');
+	}
+
+	const { floats, scale } = scaledFloats(coefficients);
+	const roots = changes === 1 ? [singleRoot(floats)] : allRoots(floats);
+	if (roots.length === 0) {
+		return failure(
+			`cash flows change sign ${changes} times but the NPV is not zero at any rate above -100 %, so there is no real IRR`
+		);
+	}
+
+	const target = guess ?? 0;
+	let chosen = roots[0];
+	for (const root of roots) {
+		if (Math.abs(root.rate - target) < Math.abs(chosen.rate - target)) chosen = root;
+	}
+	return { rate: polishedRate(coefficients, floats, scale, chosen), reason: null };
+}
+
+/**
+ * Internal rate of return of flows at integer periods t, which may be negative
+ * (construction years before the commercial operation date at t = 0) and may
+ * repeat (amounts at the same t add).
+ *
+ *     find r > -1 with sum_i amount_i / (1 + r)^{t_i} = 0
+ *
+ * Shifting every t by the same number of periods multiplies the NPV by a
+ * positive factor (1 + r)^k, so the flows are shifted to start at 0 and passed
+ * to `irr`; root choice and reasons are those of `irr`.
+ * Units as `irr`. Source: as `irr`.
+ *
+ * Example:
+ *
+ *     irrTimed([{ t: -1, amount: dec(-100) }, { t: 0, amount: dec(0) }, { t: 1, amount: dec(121) }])
+ *     // => { rate: 0.1, reason: null }
+ *
+ * @throws RangeError when a t is not an integer or the periods span more than 100 000.
+ */
+export function irrTimed(flows: readonly TimedAmount[]): IrrResult {
+	if (flows.length === 0) return failure('no cash flows, so there is no IRR');
+	let minT = Number.POSITIVE_INFINITY;
+	let maxT = Number.NEGATIVE_INFINITY;
+	for (const { t } of flows) {
+		if (!Number.isInteger(t)) throw new RangeError(`irrTimed needs whole periods, got t = ${t}`);
+		minT = Math.min(minT, t);
+		maxT = Math.max(maxT, t);
+	}
+	if (maxT - minT > MAX_SPAN) throw new RangeError(`flows span ${maxT - minT} periods, more than ${MAX_SPAN}`);
+	const series = new Array<Decimal>(maxT - minT + 1).fill(new Decimal(0));
+	for (const { t, amount } of flows) series[t - minT] = series[t - minT].plus(amount);
+	return irr(series);
+}
+
+function signChanges(coefficients: readonly Decimal[]): number {
+	let changes = 0;
+	let previous = 0;
+	for (const c of coefficients) {
+		const sign = c.isZero() ? 0 : c.isNegative() ? -1 : 1;
+		if (sign === 0) continue;
+		if (previous !== 0 && sign !== previous) changes++;
+		previous = sign;
+	}
+	return changes;
+}
+
+/** Coefficients as float64, scaled by a power of 2 (exact) so the largest is near 1. */
+function scaledFloats(coefficients: readonly Decimal[]): { floats: number[]; scale: number } {
+	const unscaled = coefficients.map((c) => c.toNumber());
+	let largest = 0;
+	for (const c of unscaled) largest = Math.max(largest, Math.abs(c));
+	const scale = 2 ** Math.floor(Math.log2(largest));
+	return { floats: unscaled.map((c) => c / scale), scale };
+}
+
+/** sum_k a_k z^k by Horner's rule. */
+function horner(a: readonly number[], z: number): number {
+	let value = a[a.length - 1];
+	for (let k = a.length - 2; k >= 0; k--) value = value * z + a[k];
+	return value;
+}
+
+/** Coefficients of the derivative: d/dz sum a_k z^k = sum (k + 1) a_{k+1} z^k. */
+function derivative<T>(a: readonly T[], times: (value: T, k: number) => T): T[] {
+	const result: T[] = [];
+	for (let k = 1; k < a.length; k++) result.push(times(a[k], k));
+	return result;
+}
+
+const floatDerivative = (a: readonly number[]) => derivative(a, (value, k) => value * k);
+
+function rateOf(side: Side, z: number): number {
+	return side === 'discount' ? 1 / z - 1 : z - 1;
+}
+
+function floatRoot(side: Side, z: number, tangent = false): FloatRoot {
+	return { side, z, rate: rateOf(side, z), tangent };
+}
+
+/**
+ * The one positive root when the flows change sign once. p(0) = c_0 and the
+ * leading coefficient have opposite signs; p(1) (the undiscounted sum) tells
+ * which unit interval holds the root. When rounding makes p(1) look like zero
+ * in one summation order and not the other, r = 0 is the root to float accuracy.
+ */
+function singleRoot(p: readonly number[]): FloatRoot {
+	const q = [...p].reverse();
+	const brackets: [Side, readonly number[]][] = [
+		['discount', p],
+		['growth', q]
+	];
+	for (const [side, poly] of brackets) {
+		const found = solveRoot((z) => horner(poly, z), 0, 1, { xTolerance: 0 });
+		if (found) return floatRoot(side, found.x);
+	}
+	return floatRoot('discount', 1);
+}
+
+/** Every positive root located by scanning both unit intervals (several sign changes). */
+function allRoots(p: readonly number[]): FloatRoot[] {
+	const roots = [
+		...rootsInUnitInterval(p, 'discount'),
+		// z = 1 is r = 0 on both sides: count it once
+		...rootsInUnitInterval([...p].reverse(), 'growth').filter((root) => root.z !== 1)
+	];
+	return roots;
+}
+
+function rootsInUnitInterval(poly: readonly number[], side: Side): FloatRoot[] {
+	const slope = floatDerivative(poly);
+	const absolute = poly.map(Math.abs);
+	const value = (z: number) => horner(poly, z);
+	const slopeAt = (z: number) => horner(slope, z);
+	const roots: FloatRoot[] = [];
+
+	let a = 0;
+	let fa = value(a);
+	for (let cell = 1; cell <= SCAN_CELLS; cell++) {
+		const b = cell / SCAN_CELLS;
+		const fb = value(b);
+		if (fb === 0) roots.push(floatRoot(side, b));
+		if (fa !== 0 && fb !== 0) {
+			if (Math.sign(fa) !== Math.sign(fb)) {
+				const found = solveRoot(value, a, b, { xTolerance: 0 });
+				if (found) roots.push(floatRoot(side, found.x));
+			} else {
+				roots.push(...hiddenPair(value, slopeAt, absolute, a, fa, b, fb, side));
+			}
+		}
+		a = b;
+		fa = fb;
+	}
+	return roots.filter((root) => root.z > 0);
+}
+
+/**
+ * Roots inside a cell whose ends share a sign: only possible if |p| turns back
+ * towards zero inside it. Heading towards zero at a and away from it at b
+ * brackets a turning point m; p(m) on the other side of zero (or zero within
+ * rounding) gives two roots (or one double root).
+ */
+function hiddenPair(
+	value: (z: number) => number,
+	slopeAt: (z: number) => number,
+	absolute: readonly number[],
+	a: number,
+	fa: number,
+	b: number,
+	fb: number,
+	side: Side
+): FloatRoot[] {
+	const sign = Math.sign(fa);
+	const slopeA = slopeAt(a);
+	const slopeB = slopeAt(b);
+	if (!(Math.sign(slopeA) === -sign && Math.sign(slopeB) === sign)) return [];
+	const turning = solveRoot(slopeAt, a, b, { xTolerance: 0 });
+	if (!turning) return [];
+	const m = turning.x;
+	const fm = value(m);
+	const roundingBound = 8 * Number.EPSILON * horner(absolute, m);
+	if (sign * fm > roundingBound) return [];
+	if (Math.abs(fm) <= roundingBound) return [floatRoot(side, m, true)];
+	const left = solveRoot(value, a, m, { xTolerance: 0 });
+	const right = solveRoot(value, m, b, { xTolerance: 0 });
+	return [left, right].filter((found) => found !== null).map((found) => floatRoot(side, found.x));
+}
+
+/**
+ * The root as a decimal rate, after Newton steps on the decimal polynomial.
+ * Only the value needs decimal precision (it is a sum that cancels to almost
+ * nothing near the root); the slope divides a correction of order 1e-16, so
+ * its float64 value is plenty and halves the decimal work. A double root (a
+ * tangency) is a simple root of the derivative, so that one is polished on p'
+ * instead. Steps stop once a correction is below 1e-15 relative (Newton's
+ * quadratic convergence leaves an error of order its square): usually one step.
+ */
+function polishedRate(
+	coefficients: readonly Decimal[],
+	floats: readonly number[],
+	scale: number,
+	root: FloatRoot
+): Decimal {
+	const ascending = root.side === 'discount' ? [...coefficients] : [...coefficients].reverse();
+	const poly = root.tangent ? derivative(ascending, (value, k) => value.times(k)) : ascending;
+	const floatAscending = root.side === 'discount' ? floats : [...floats].reverse();
+	const floatPoly = root.tangent ? floatDerivative(floatAscending) : floatAscending;
+	const slopePoly = floatDerivative(floatPoly).map((c) => c * scale);
+	const start = new Decimal(root.z);
+	let z = start;
+	for (let step = 0; step < 4; step++) {
+		const slope = horner(slopePoly, z.toNumber());
+		if (slope === 0 || !Number.isFinite(slope)) break;
+		const correction = decimalHorner(poly, z).div(slope);
+		z = z.minus(correction);
+		if (correction.abs().lte(z.abs().times('1e-15'))) break;
+	}
+	// Newton only refines: a step that leaves the float root's neighbourhood is not trusted.
+	if (!z.isFinite() || z.lte(0) || z.minus(start).abs().gt(start.times('1e-6'))) z = start;
+	return root.side === 'discount' ? ONE.div(z).minus(ONE) : z.minus(ONE);
+}
+
+function decimalHorner(a: readonly Decimal[], z: Decimal): Decimal {
+	let value = a[a.length - 1];
+	for (let k = a.length - 2; k >= 0; k--) value = value.times(z).plus(a[k]);
+	return value;
+}
