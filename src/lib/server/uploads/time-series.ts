@@ -87,6 +87,7 @@ interface Sample {
 }
 
 const MS_PER_HOUR = 3_600_000;
+const MS_PER_DAY = 86_400_000;
 
 function median(sortedValues: readonly number[]): number {
 	const mid = Math.floor(sortedValues.length / 2);
@@ -146,16 +147,21 @@ export function parseTimeSeriesCsv(
 	}
 	if (firstOutOfOrder) samples.sort((a, b) => a.epochMs - b.epochMs || a.row - b.row);
 
+	const repeats: { earlier: Sample; later: Sample }[] = [];
 	for (let i = 1; i < samples.length; i++) {
-		const [earlier, later] =
-			samples[i - 1].row < samples[i].row ? [samples[i - 1], samples[i]] : [samples[i], samples[i - 1]];
-		if (samples[i].epochMs === samples[i - 1].epochMs) {
-			errors.add(
-				later.row,
-				timeColumn.name,
-				`"${later.timestampText}" is the same time as row ${earlier.row}; each time may appear only once.`
-			);
-		}
+		if (samples[i].epochMs !== samples[i - 1].epochMs) continue;
+		// Stable sort keeps equal times in file order; pair each repeat with the first row of its time.
+		let first = i - 1;
+		while (first > 0 && samples[first - 1].epochMs === samples[i].epochMs) first--;
+		repeats.push({ earlier: samples[first], later: samples[i] });
+	}
+	repeats.sort((a, b) => a.later.row - b.later.row);
+	for (const { earlier, later } of repeats) {
+		errors.add(
+			later.row,
+			timeColumn.name,
+			`"${later.timestampText}" is the same time as row ${earlier.row}; each time may appear only once.`
+		);
 	}
 	if (errors.hasErrors) return errors.toFailure();
 
@@ -237,7 +243,7 @@ export function parseTimeSeriesCsv(
 	const first = samples[0];
 	const last = samples[samples.length - 1];
 	const recordMs = last.epochMs - first.epochMs;
-	const recordDays = hoursOf(recordMs).div(24);
+	const recordDays = new Decimal(recordMs).div(MS_PER_DAY);
 	if (recordDays.lessThan(SHORT_RECORD_DAYS)) {
 		warnings.push(
 			`The record covers ${recordDays.toDecimalPlaces(1).toFixed()} days, less than a lunar month: ` +
@@ -252,7 +258,8 @@ export function parseTimeSeriesCsv(
 	}
 
 	const coveredHours = hoursOfSamples(samples.length);
-	const recovery = Decimal.min(1, coveredHours.div(hoursOf(recordMs + intervalMs)));
+	// Ratios of whole milliseconds, divided once, so round figures stay round.
+	const recovery = Decimal.min(1, new Decimal(samples.length * intervalMs).div(recordMs + intervalMs));
 
 	return {
 		ok: true,
