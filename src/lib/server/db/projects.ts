@@ -34,3 +34,71 @@ export async function listProjectsInWorkspace(workspaceId: string, knex: Knex = 
 		.whereNull('archived_at')
 		.orderBy('name');
 }
+
+export async function listArchivedProjectsInWorkspace(workspaceId: string, knex: Knex = db()): Promise<ProjectRow[]> {
+	return knex('projects')
+		.select(projectColumns)
+		.where({ workspace_id: workspaceId })
+		.whereNotNull('archived_at')
+		.orderBy('name');
+}
+
+/** Any project, archived or not; callers check the workspace membership. */
+export async function getProjectById(id: string, knex: Knex = db()): Promise<ProjectRow | undefined> {
+	return knex('projects').select(projectColumns).where({ id }).first();
+}
+
+export interface NewProject {
+	workspaceId: string;
+	name: string;
+	technology: ProjectRow['technology'];
+	siteName?: string;
+	siteDescription?: string;
+	currency?: string;
+}
+
+export async function createProject(input: NewProject, knex: Knex = db()): Promise<ProjectRow> {
+	const [row] = await knex('projects')
+		.insert({
+			workspace_id: input.workspaceId,
+			name: input.name,
+			technology: input.technology,
+			site_name: input.siteName ?? '',
+			site_description: input.siteDescription ?? '',
+			currency: input.currency ?? 'EUR'
+		})
+		.returning(projectColumns);
+	return row;
+}
+
+export interface ProjectChanges {
+	name?: string;
+	siteName?: string;
+	siteDescription?: string;
+	currency?: string;
+}
+
+/** Changes a project's descriptive fields; the technology stays what it was created with. */
+export async function updateProject(id: string, changes: ProjectChanges, knex: Knex = db()): Promise<ProjectRow | undefined> {
+	const update: Record<string, unknown> = { updated_at: knex.fn.now() };
+	if (changes.name !== undefined) update.name = changes.name;
+	if (changes.siteName !== undefined) update.site_name = changes.siteName;
+	if (changes.siteDescription !== undefined) update.site_description = changes.siteDescription;
+	if (changes.currency !== undefined) update.currency = changes.currency;
+	const [row] = await knex('projects').where({ id }).update(update).returning(projectColumns);
+	return row;
+}
+
+/** Archives a project (its scenarios and uploads stay, hidden with it). Archiving twice keeps the first date. */
+export async function archiveProject(id: string, knex: Knex = db()): Promise<ProjectRow | undefined> {
+	await knex('projects').where({ id }).whereNull('archived_at').update({ archived_at: knex.fn.now(), updated_at: knex.fn.now() });
+	return getProjectById(id, knex);
+}
+
+export async function restoreProject(id: string, knex: Knex = db()): Promise<ProjectRow | undefined> {
+	const [row] = await knex('projects')
+		.where({ id })
+		.update({ archived_at: null, updated_at: knex.fn.now() })
+		.returning(projectColumns);
+	return row;
+}

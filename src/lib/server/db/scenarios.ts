@@ -1,0 +1,438 @@
+/**
+ * Scenarios and their revision history. Every change to a scenario's name,
+ * notes or document bumps its revision and writes a revision row in the same
+ * transaction. A save names the revision it was editing; when the row has
+ * moved on the save is refused with StaleRevisionError and nothing is written.
+ *
+ * The row's name and the document's `name` are kept the same: the row's name
+ * wins, and only the `name` field of a save renames a scenario (a document's
+ * own `name` is overwritten). Callers pass documents already validated
+ * against the scenario schema.
+ */
+import type { Knex } from 'knex';
+import { db } from './knex';
+import type { Scenario } from '../../schemas/scenario';
+import { changedSections, describeEdit } from '../workbench/document-changes';
+
+export type ScenarioDocument = Scenario;
+
+export interface PersonRef {
+	id: string;
+	name: string;
+}
+
+export interface ScenarioSummary {
+	id: string;
+	projectId: string;
+	name: string;
+	notes: string;
+	schemaVersion: number;
+	revision: number;
+	isBaseCase: boolean;
+	archivedAt: Date | null;
+	createdAt: Date;
+	updatedAt: Date;
+	createdBy: PersonRef | null;
+	updatedBy: PersonRef | null;
+}
+
+export interface ScenarioRecord extends ScenarioSummary {
+	document: ScenarioDocument;
+}
+
+export interface ScenarioRevision {
+	revision: number;
+	name: string;
+	changedSections: string[];
+	summary: string;
+	changedAt: Date;
+	changedBy: PersonRef | null;
+}
+
+export class StaleRevisionError extends Error {
+	constructor(
+		readonly expectedRevision: number,
+		readonly currentRevision: number,
+		readonly updatedAt: Date,
+		readonly updatedByName: string | null
+	) {
+		const who = updatedByName ? ` by ${updatedByName}` : '';
+		super(
+			`This scenario has changed since you opened it: you were editing revision ${expectedRevision}, ` +
+				`but revision ${currentRevision} was saved${who} at ${updatedAt.toISOString()}. ` +
+				'Nothing was saved. Reload the scenario to see the latest version, then make your change again.'
+		);
+		this.name = 'StaleRevisionError';
+	}
+}
+
+export class ArchivedScenarioError extends Error {
+	constructor(action: string) {
+		super(`This scenario is archived: restore it before you ${action}.`);
+		this.name = 'ArchivedScenarioError';
+	}
+}
+
+const summaryColumns = [
+	'scenarios.id',
+	'scenarios.project_id',
+	'scenarios.name',
+	'scenarios.notes',
+	'scenarios.schema_version',
+	'scenarios.revision',
+	'scenarios.is_base_case',
+	'scenarios.archived_at',
+	'scenarios.created_at',
+	'scenarios.updated_at',
+	'scenarios.created_by',
+	'scenarios.updated_by',
+	'creator.name as created_by_name',
+	'updater.name as updated_by_name'
+] as const;
+
+interface SummaryDbRow {
+	id: string;
+	project_id: string;
+	name: string;
+	notes: string;
+	schema_version: number;
+	revision: number;
+	is_base_case: boolean;
+	archived_at: Date | null;
+	created_at: Date;
+	updated_at: Date;
+	created_by: string | null;
+	updated_by: string | null;
+	created_by_name: string | null;
+	updated_by_name: string | null;
+}
+
+function person(id: string | null, name: string | null): PersonRef | null {
+	return id === null ? null : { id, name: name ?? '' };
+}
+
+function toSummary(row: SummaryDbRow): ScenarioSummary {
+	return {
+		id: row.id,
+		projectId: row.project_id,
+		name: row.name,
+		notes: row.notes,
+		schemaVersion: row.schema_version,
+		revision: row.revision,
+		isBaseCase: row.is_base_case,
+		archivedAt: row.archived_at,
+		createdAt: row.created_at,
+		updatedAt: row.updated_at,
+		createdBy: person(row.created_by, row.created_by_name),
+		updatedBy: person(row.updated_by, row.updated_by_name)
+	};
+}
+
+function summaries(knex: Knex) {
+	return knex('scenarios')
+		.leftJoin('users as creator', 'creator.id', 'scenarios.created_by')
+		.leftJoin('users as updater', 'updater.id', 'scenarios.updated_by');
+}
+
+export async function listScenariosInProject(
+	projectId: string,
+	options: { archived?: boolean } = {},
+	knex: Knex = db()
+): Promise<ScenarioSummary[]> {
+	const query = summaries(knex).select(summaryColumns).where('scenarios.project_id', projectId);
+	if (options.archived) query.whereNotNull('scenarios.archived_at');
+	else query.whereNull('scenarios.archived_at');
+	const rows: SummaryDbRow[] = await query.orderBy([
+		{ column: 'scenarios.is_base_case', order: 'desc' },
+		{ column: 'scenarios.name' },
+		{ column: 'scenarios.created_at' }
+	]);
+	return rows.map(toSummary);
+}
+
+export async function getScenarioById(id: string, knex: Knex = db()): Promise<ScenarioRecord | undefined> {
+	const row = await summaries(knex)
+		.select([...summaryColumns, 'scenarios.document'])
+		.where('scenarios.id', id)
+		.first();
+	return row && { ...toSummary(row), document: row.document };
+}
+
+/** The documents of chosen scenarios of one project, in the order asked (unknown ids are left out). */
+export async function getScenariosInProject(projectId: string, ids: readonly string[], knex: Knex = db()): Promise<ScenarioRecord[]> {
+	if (ids.length === 0) return [];
+	const rows = await summaries(knex)
+		.select([...summaryColumns, 'scenarios.document'])
+		.where('scenarios.project_id', projectId)
+		.whereIn('scenarios.id', ids);
+	const byId = new Map(rows.map((row) => [row.id, { ...toSummary(row), document: row.document }]));
+	return ids.flatMap((id) => byId.get(id) ?? []);
+}
+
+export async function getBaseCaseOfProject(projectId: string, knex: Knex = db()): Promise<ScenarioRecord | undefined> {
+	const row = await knex('scenarios').select('id').where({ project_id: projectId, is_base_case: true }).first();
+	return row ? getScenarioById(row.id, knex) : undefined;
+}
+
+/** Where a scenario sits, for authorization: its project and that project's workspace. */
+export async function getScenarioPlace(
+	id: string,
+	knex: Knex = db()
+): Promise<{ scenarioId: string; projectId: string; workspaceId: string } | undefined> {
+	const row = await knex('scenarios')
+		.join('projects', 'projects.id', 'scenarios.project_id')
+		.select('scenarios.id', 'scenarios.project_id', 'projects.workspace_id')
+		.where('scenarios.id', id)
+		.first();
+	return row && { scenarioId: row.id, projectId: row.project_id, workspaceId: row.workspace_id };
+}
+
+async function insertRevision(
+	trx: Knex.Transaction,
+	entry: { scenarioId: string; revision: number; name: string; document: ScenarioDocument; sections: string[]; summary: string; userId: string | null }
+) {
+	await trx('scenario_revisions').insert({
+		scenario_id: entry.scenarioId,
+		revision: entry.revision,
+		name: entry.name,
+		document: JSON.stringify(entry.document),
+		changed_sections: entry.sections,
+		summary: entry.summary,
+		changed_by: entry.userId
+	});
+}
+
+/** Locks the project row so base-case choices in it happen one at a time. */
+async function lockProject(trx: Knex.Transaction, projectId: string) {
+	await trx('projects').select('id').where({ id: projectId }).forUpdate();
+}
+
+export interface NewScenario {
+	projectId: string;
+	name: string;
+	notes?: string;
+	document: ScenarioDocument;
+	userId: string | null;
+	/** Revision 1's summary; "Created" when omitted. */
+	summary?: string;
+}
+
+/** Creates a scenario at revision 1. The first live scenario of a project becomes its base case. */
+export async function createScenario(input: NewScenario, knex: Knex = db()): Promise<ScenarioRecord> {
+	const id = await knex.transaction(async (trx) => {
+		await lockProject(trx, input.projectId);
+		const existingBase = await trx('scenarios').select('id').where({ project_id: input.projectId, is_base_case: true }).first();
+		const document = { ...input.document, name: input.name };
+		const [row] = await trx('scenarios')
+			.insert({
+				project_id: input.projectId,
+				name: input.name,
+				notes: input.notes ?? '',
+				document: JSON.stringify(document),
+				schema_version: document.schemaVersion,
+				revision: 1,
+				is_base_case: !existingBase,
+				created_by: input.userId,
+				updated_by: input.userId
+			})
+			.returning('id');
+		await insertRevision(trx, {
+			scenarioId: row.id,
+			revision: 1,
+			name: input.name,
+			document,
+			sections: changedSections(null, document),
+			summary: input.summary ?? 'Created',
+			userId: input.userId
+		});
+		return row.id as string;
+	});
+	return (await getScenarioById(id, knex))!;
+}
+
+export interface ScenarioSave {
+	scenarioId: string;
+	/** The revision the user was editing. */
+	expectedRevision: number;
+	userId: string | null;
+	name?: string;
+	notes?: string;
+	document?: ScenarioDocument;
+	/** Words for the history instead of the generated "Edited capex and opex". */
+	summary?: string;
+}
+
+/**
+ * Saves a new revision. Refuses (StaleRevisionError) when the scenario is no
+ * longer at `expectedRevision`; answers undefined when it does not exist. A
+ * save that changes nothing writes nothing and answers the scenario as it is.
+ */
+export async function saveScenario(save: ScenarioSave, knex: Knex = db()): Promise<ScenarioRecord | undefined> {
+	const saved = await knex.transaction(async (trx) => {
+		const current = await trx('scenarios')
+			.leftJoin('users as updater', 'updater.id', 'scenarios.updated_by')
+			.select(
+				'scenarios.id',
+				'scenarios.name',
+				'scenarios.notes',
+				'scenarios.document',
+				'scenarios.revision',
+				'scenarios.archived_at',
+				'scenarios.updated_at',
+				'updater.name as updated_by_name'
+			)
+			.where('scenarios.id', save.scenarioId)
+			.forUpdate('scenarios')
+			.first();
+		if (!current) return false;
+		if (current.revision !== save.expectedRevision) {
+			throw new StaleRevisionError(save.expectedRevision, current.revision, current.updated_at, current.updated_by_name);
+		}
+		if (current.archived_at) throw new ArchivedScenarioError('edit it');
+
+		const name = save.name ?? current.name;
+		const document: ScenarioDocument = { ...(save.document ?? current.document), name };
+		const notes = save.notes ?? current.notes;
+		const sections = changedSections(current.document, document);
+		if (notes !== current.notes) sections.push('notes');
+		if (sections.length === 0) return true;
+
+		const revision = current.revision + 1;
+		await trx('scenarios').where({ id: save.scenarioId }).update({
+			name,
+			notes,
+			document: JSON.stringify(document),
+			schema_version: document.schemaVersion,
+			revision,
+			updated_by: save.userId,
+			updated_at: trx.fn.now()
+		});
+		await insertRevision(trx, {
+			scenarioId: save.scenarioId,
+			revision,
+			name,
+			document,
+			sections,
+			summary: save.summary ?? describeEdit(sections),
+			userId: save.userId
+		});
+		return true;
+	});
+	return saved ? getScenarioById(save.scenarioId, knex) : undefined;
+}
+
+/** A copy at revision 1 in the same project, never the base case; answers undefined when the source is missing. */
+export async function duplicateScenario(
+	sourceId: string,
+	options: { name?: string; notes?: string; userId: string | null },
+	knex: Knex = db()
+): Promise<ScenarioRecord | undefined> {
+	const source = await getScenarioById(sourceId, knex);
+	if (!source) return undefined;
+	const name = options.name ?? `${source.name} (copy)`.slice(0, 200);
+	const id = await knex.transaction(async (trx) => {
+		const document = { ...source.document, name };
+		const [row] = await trx('scenarios')
+			.insert({
+				project_id: source.projectId,
+				name,
+				notes: options.notes ?? source.notes,
+				document: JSON.stringify(document),
+				schema_version: document.schemaVersion,
+				revision: 1,
+				is_base_case: false,
+				created_by: options.userId,
+				updated_by: options.userId
+			})
+			.returning('id');
+		await insertRevision(trx, {
+			scenarioId: row.id,
+			revision: 1,
+			name,
+			document,
+			sections: changedSections(null, document),
+			summary: `Duplicated from "${source.name}" (revision ${source.revision})`,
+			userId: options.userId
+		});
+		return row.id as string;
+	});
+	return getScenarioById(id, knex);
+}
+
+/** Makes a scenario its project's base case, taking the mark from whichever scenario had it. */
+export async function markBaseCase(scenarioId: string, userId: string | null, knex: Knex = db()): Promise<ScenarioRecord | undefined> {
+	const found = await knex.transaction(async (trx) => {
+		const place = await trx('scenarios').select('project_id', 'archived_at', 'is_base_case').where({ id: scenarioId }).first();
+		if (!place) return false;
+		if (place.archived_at) throw new ArchivedScenarioError('make it the base case');
+		if (place.is_base_case) return true;
+		await lockProject(trx, place.project_id);
+		await trx('scenarios')
+			.where({ project_id: place.project_id, is_base_case: true })
+			.update({ is_base_case: false, updated_at: trx.fn.now() });
+		await trx('scenarios')
+			.where({ id: scenarioId })
+			.update({ is_base_case: true, updated_by: userId, updated_at: trx.fn.now() });
+		return true;
+	});
+	return found ? getScenarioById(scenarioId, knex) : undefined;
+}
+
+/** Archives a scenario; an archived scenario is no longer the base case. Archiving twice keeps the first date. */
+export async function archiveScenario(scenarioId: string, userId: string | null, knex: Knex = db()): Promise<ScenarioRecord | undefined> {
+	await knex('scenarios')
+		.where({ id: scenarioId })
+		.whereNull('archived_at')
+		.update({ archived_at: knex.fn.now(), is_base_case: false, updated_by: userId, updated_at: knex.fn.now() });
+	return getScenarioById(scenarioId, knex);
+}
+
+export async function restoreScenario(scenarioId: string, userId: string | null, knex: Knex = db()): Promise<ScenarioRecord | undefined> {
+	await knex('scenarios')
+		.where({ id: scenarioId })
+		.whereNotNull('archived_at')
+		.update({ archived_at: null, updated_by: userId, updated_at: knex.fn.now() });
+	return getScenarioById(scenarioId, knex);
+}
+
+/** Deletes a scenario for good, with its history; only an archived one. */
+export async function deleteArchivedScenario(scenarioId: string, knex: Knex = db()): Promise<'deleted' | 'not-archived' | 'missing'> {
+	const row = await knex('scenarios').select('archived_at').where({ id: scenarioId }).first();
+	if (!row) return 'missing';
+	if (!row.archived_at) return 'not-archived';
+	await knex('scenarios').where({ id: scenarioId }).whereNotNull('archived_at').delete();
+	return 'deleted';
+}
+
+export async function listScenarioRevisions(scenarioId: string, knex: Knex = db()): Promise<ScenarioRevision[]> {
+	const rows = await knex('scenario_revisions')
+		.leftJoin('users', 'users.id', 'scenario_revisions.changed_by')
+		.select(
+			'scenario_revisions.revision',
+			'scenario_revisions.name',
+			'scenario_revisions.changed_sections',
+			'scenario_revisions.summary',
+			'scenario_revisions.changed_at',
+			'scenario_revisions.changed_by',
+			'users.name as changed_by_name'
+		)
+		.where('scenario_revisions.scenario_id', scenarioId)
+		.orderBy('scenario_revisions.revision', 'desc');
+	return rows.map((row) => ({
+		revision: row.revision,
+		name: row.name,
+		changedSections: row.changed_sections,
+		summary: row.summary,
+		changedAt: row.changed_at,
+		changedBy: person(row.changed_by, row.changed_by_name)
+	}));
+}
+
+export async function getScenarioRevisionDocument(
+	scenarioId: string,
+	revision: number,
+	knex: Knex = db()
+): Promise<ScenarioDocument | undefined> {
+	const row = await knex('scenario_revisions').select('document').where({ scenario_id: scenarioId, revision }).first();
+	return row?.document;
+}
