@@ -4,6 +4,8 @@
  */
 import { clusterSettingsFromEnv, databaseUrl, startCluster, stopCluster } from '../docker-local/postgres';
 import { migrateAndSeed } from './migrate';
+import { mailSinkPortsFromEnv, startMailSink } from '../docker-local/mail-sink';
+import { demoUsers } from '../seeds/02_demo_users';
 
 export interface RunningService {
 	name: string;
@@ -24,4 +26,30 @@ export async function startPostgres(options: { seed?: boolean } = {}): Promise<R
 }
 
 /** Stand-ins started after PostgreSQL (mail sink, Stripe stand-in), in order. */
-export const extraServices: Array<() => Promise<RunningService>> = [];
+export const extraServices: Array<() => Promise<RunningService>> = [startMailSinkService];
+
+async function startMailSinkService(): Promise<RunningService> {
+	const { smtpPort, httpPort } = mailSinkPortsFromEnv();
+	const sink = await startMailSink(smtpPort, httpPort);
+	return {
+		name: 'mail sink',
+		env: {
+			SMTP_HOST: '127.0.0.1',
+			SMTP_PORT: String(smtpPort),
+			MAIL_SINK_URL: `http://127.0.0.1:${httpPort}`
+		},
+		stop: sink.stop
+	};
+}
+
+/** What a newcomer needs to sign in at once. */
+export function demoCredentialsText(origin: string): string {
+	const lines = Object.entries(demoUsers).map(
+		([persona, u]) => `  ${persona.padEnd(9)} ${u.email.padEnd(40)} ${u.password}`
+	);
+	return [
+		'Demo users (invented people; sign in at ' + origin + '/signin):',
+		...lines,
+		`Mail sent by the app lands in the dev inbox: ${origin}/dev/mail`
+	].join('\n');
+}

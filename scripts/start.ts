@@ -11,7 +11,7 @@ import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdirSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { clusterSettingsFromEnv, projectRoot, removeCluster } from '../docker-local/postgres';
-import { extraServices, startPostgres, type RunningService } from './local-services';
+import { demoCredentialsText, extraServices, startPostgres, type RunningService } from './local-services';
 
 const dev = process.argv.includes('--dev');
 const fresh = process.argv.includes('--fresh');
@@ -97,11 +97,7 @@ async function main() {
 			void shutdown(code ?? 1);
 		}
 	});
-	for (const service of services) {
-		const note = service.env.NOTE;
-		if (note) console.log(note);
-	}
-	console.log(`\nTidewright is starting on ${origin}\n`);
+	console.log(`\n${demoCredentialsText(origin)}\n\nTidewright is starting on ${origin}\n`);
 }
 
 main().catch(async (error) => {

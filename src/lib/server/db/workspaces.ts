@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { randomBytes } from 'node:crypto';
 import { db } from './knex';
 
 export interface WorkspaceRow {
@@ -17,4 +18,23 @@ export async function getWorkspaceBySlug(slug: string, knex: Knex = db()): Promi
 
 export async function getWorkspaceById(id: string, knex: Knex = db()): Promise<WorkspaceRow | undefined> {
 	return knex('workspaces').select(workspaceColumns).where({ id }).first();
+}
+
+function slugFor(name: string): string {
+	const base = name
+		.toLowerCase()
+		.normalize('NFKD')
+		.replace(/[^a-z0-9]+/g, '-')
+		.replace(/^-|-$/g, '')
+		.slice(0, 40);
+	return `${base || 'workspace'}-${randomBytes(3).toString('hex')}`;
+}
+
+/** A new workspace with its first owner, in one transaction. */
+export async function createWorkspaceWithOwner(name: string, ownerUserId: string, knex: Knex = db()): Promise<WorkspaceRow> {
+	return knex.transaction(async (trx) => {
+		const [workspace] = await trx('workspaces').insert({ name: name.trim(), slug: slugFor(name) }).returning(workspaceColumns);
+		await trx('memberships').insert({ workspace_id: workspace.id, user_id: ownerUserId, role: 'owner' });
+		return workspace;
+	});
 }

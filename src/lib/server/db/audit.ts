@@ -1,0 +1,56 @@
+import type { Knex } from 'knex';
+import { db } from './knex';
+
+export type AuditEventName =
+	| 'sign-in'
+	| 'sign-in-failed'
+	| 'sign-in-blocked'
+	| 'sign-out'
+	| 'sign-out-everywhere'
+	| 'sign-up'
+	| 'email-verified'
+	| 'password-reset-requested'
+	| 'password-reset'
+	| 'password-changed'
+	| 'role-changed'
+	| 'member-removed'
+	| 'member-left'
+	| 'invitation-sent'
+	| 'invitation-revoked'
+	| 'invitation-accepted';
+
+export interface AuditInput {
+	event: AuditEventName;
+	workspaceId?: string | null;
+	actorUserId?: string | null;
+	actorEmail?: string;
+	ip?: string;
+	detail?: Record<string, unknown>;
+}
+
+export async function recordAuditEvent(input: AuditInput, knex: Knex = db()): Promise<void> {
+	await knex('audit_events').insert({
+		event: input.event,
+		workspace_id: input.workspaceId ?? null,
+		actor_user_id: input.actorUserId ?? null,
+		actor_email: input.actorEmail ?? '',
+		ip: input.ip ?? '',
+		detail: JSON.stringify(input.detail ?? {})
+	});
+}
+
+/**
+ * Events an owner may read: those recorded against the workspace, plus the
+ * account events (sign-in, password) of its current members.
+ */
+export async function listAuditEventsForWorkspace(workspaceId: string, limit = 200, knex: Knex = db()) {
+	return knex('audit_events')
+		.select('id', 'event', 'actor_email', 'ip', 'detail', 'created_at')
+		.where('workspace_id', workspaceId)
+		.orWhere((q) =>
+			q.whereNull('workspace_id').whereIn('actor_user_id', knex('memberships').select('user_id').where({ workspace_id: workspaceId }))
+		)
+		.orderBy('created_at', 'desc')
+		.orderBy('id', 'desc')
+		.limit(limit);
+}

@@ -1,0 +1,75 @@
+/** The messages Tidewright sends, each as plain text and HTML in the same words. */
+export interface MailContent {
+	subject: string;
+	text: string;
+	html: string;
+}
+
+function escapeHtml(value: string): string {
+	return value.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+}
+
+function layout(paragraphs: string[], action: { label: string; url: string }, footer: string): MailContent['html'] {
+	const body = paragraphs.map((p) => `<p style="margin:0 0 14px">${escapeHtml(p)}</p>`).join('');
+	return `<!doctype html><html><body style="margin:0;background:#fbf9f4;font-family:Helvetica,Arial,sans-serif;color:#0c2130">
+<div style="max-width:520px;margin:0 auto;padding:28px">
+<p style="font-family:Georgia,serif;font-size:20px;margin:0 0 20px">Tidewright</p>
+${body}
+<p style="margin:22px 0"><a href="${escapeHtml(action.url)}" style="background:#c8643b;color:#fff;padding:10px 18px;border-radius:6px;text-decoration:none">${escapeHtml(action.label)}</a></p>
+<p style="font-size:13px;color:#3e6e85;margin:0 0 8px">If the button does not work, paste this address into your browser:<br>${escapeHtml(action.url)}</p>
+<p style="font-size:12px;color:#3e6e85;margin-top:24px">${escapeHtml(footer)}</p>
+</div></body></html>`;
+}
+
+function text(paragraphs: string[], action: { label: string; url: string }, footer: string): string {
+	return [...paragraphs, `${action.label}: ${action.url}`, '', footer].join('\n\n');
+}
+
+function message(subject: string, paragraphs: string[], action: { label: string; url: string }, footer: string): MailContent {
+	return { subject, text: text(paragraphs, action, footer), html: layout(paragraphs, action, footer) };
+}
+
+export function verifyEmailMessage(input: { name: string; url: string; hoursValid: number }): MailContent {
+	return message(
+		'Confirm your e-mail address for Tidewright',
+		[
+			`Hello ${input.name || 'there'},`,
+			'You (or someone using your address) made a Tidewright account. Confirm the address so we can send you invitations and password resets.',
+			`The link works once and for ${input.hoursValid} hours.`
+		],
+		{ label: 'Confirm my address', url: input.url },
+		'If you did not sign up, ignore this message and no account will be confirmed.'
+	);
+}
+
+export function passwordResetMessage(input: { name: string; url: string; minutesValid: number }): MailContent {
+	return message(
+		'Choose a new Tidewright password',
+		[
+			`Hello ${input.name || 'there'},`,
+			'Someone asked to reset the password of the Tidewright account for this address. Follow the link to choose a new one; every device signed in to the account will be signed out.',
+			`The link works once and for ${input.minutesValid} minutes.`
+		],
+		{ label: 'Choose a new password', url: input.url },
+		'If you did not ask for this, ignore this message: your password stays as it is.'
+	);
+}
+
+export function invitationMessage(input: {
+	inviterName: string;
+	workspaceName: string;
+	role: string;
+	url: string;
+	daysValid: number;
+}): MailContent {
+	return message(
+		`${input.inviterName} invited you to ${input.workspaceName} on Tidewright`,
+		[
+			`${input.inviterName} invited you to join the workspace “${input.workspaceName}” as ${input.role === 'analyst' || input.role === 'owner' ? 'an' : 'a'} ${input.role}.`,
+			'Tidewright is where the team keeps its ocean-energy project cases: resource, costs, financing and results.',
+			`Accept with an existing account or make a new one. The invitation is open for ${input.daysValid} days.`
+		],
+		{ label: 'Open the invitation', url: input.url },
+		'If you do not know this person or workspace, ignore this message.'
+	);
+}

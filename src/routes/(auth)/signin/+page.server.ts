@@ -1,0 +1,27 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { signInForm } from '$lib/schemas/account';
+import { signIn } from '$lib/server/auth/accounts';
+import { setSessionCookie } from '$lib/server/auth/session';
+import { cookiesAreSecure } from '$lib/server/auth/cookies';
+import { fieldErrors, readForm, requestContext, safeNextPath } from '$lib/server/forms';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ locals, url }) => {
+	const next = safeNextPath(url.searchParams.get('next'));
+	if (locals.user) redirect(303, next);
+	return { next, notice: url.searchParams.get('notice') };
+};
+
+export const actions: Actions = {
+	default: async (event) => {
+		const fields = await readForm(event.request);
+		const echo = { email: fields.email ?? '', next: safeNextPath(fields.next) };
+		const parsed = signInForm.safeParse(fields);
+		if (!parsed.success) return fail(400, { ...echo, errors: fieldErrors(parsed.error), message: null });
+
+		const outcome = await signIn(parsed.data, requestContext(event));
+		if (!outcome.ok) return fail(400, { ...echo, errors: {} as Record<string, string>, message: outcome.message });
+		setSessionCookie(event.cookies, outcome.sessionToken, outcome.session.expiresAt, cookiesAreSecure(event.url));
+		redirect(303, echo.next);
+	}
+};
