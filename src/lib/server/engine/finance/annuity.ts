@@ -58,7 +58,7 @@ function timingFactor(r: Decimal, when: PaymentTiming): Decimal {
  * Example (numpy-financial docstring): 200 000 borrowed at 7.5 % a year over
  * 15 years of monthly payments:
  *
- *     pmt(0.075 / 12, 180, 200000)  // => -1854.02472000546...
+ *     pmt(0.075 / 12, 180, 200000)  // => -1854.0247200054762... (numpy float64: -1854.0247200054619)
  *
  * @throws RangeError when rate <= -1 or nper <= 0.
  */
@@ -116,7 +116,7 @@ export function capitalRecoveryFactor(rate: DecimalInput, years: number): Decima
  *
  * Example (numpy-financial test suite): saving 2000 a year for 20 years at 7.5 %:
  *
- *     fv(0.075, 20, -2000, 0)  // => 86609.3626730429...
+ *     fv(0.075, 20, -2000, 0)  // => 86609.3626730430... (numpy float64: 86609.362673042924)
  *
  * @throws RangeError when rate <= -1 or nper < 0.
  */

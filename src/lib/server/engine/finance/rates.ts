@@ -41,7 +41,7 @@ export function nominalFromReal(real: DecimalInput, inflation: DecimalInput): De
  *
  * Example: nominal 8 % with 2.5 % inflation is real 5.365854 %:
  *
- *     realFromNominal(0.08, 0.025)  // => 0.0536585365853658536585365853659
+ *     realFromNominal(0.08, 0.025)  // => 0.05365853658536585365853658537
  *
  * @throws RangeError when either rate is not greater than -1.
  */
