@@ -1,0 +1,60 @@
+/**
+ * Taking in an uploaded file: parse it with the parser for its kind and store
+ * it only when every row is good. A bad file answers the parser's row and
+ * column errors and leaves the database untouched.
+ */
+import type { Knex } from 'knex';
+import { db } from '../db/knex';
+import { storeUpload, type UploadRecord } from '../db/uploads';
+import type { UploadKind } from '../../schemas/workbench';
+import type { UploadError, UploadResult } from '../uploads/result';
+import { parseTimeSeriesCsv } from '../uploads/time-series';
+import { parseSpeedHistogramCsv } from '../uploads/speed-histogram';
+import { parsePowerCurveCsv } from '../uploads/power-curve';
+import { parseSeaStateTableCsv } from '../uploads/sea-state-table';
+import { parsePowerMatrixCsv } from '../uploads/power-matrix';
+import { DEFAULT_MAX_BYTES } from '../uploads/decode';
+
+/** The largest upload taken in (the parsers refuse anything above it with a named error). */
+export const MAX_UPLOAD_BYTES = DEFAULT_MAX_BYTES;
+
+const parsers: Record<UploadKind, (bytes: Uint8Array) => UploadResult<unknown, unknown>> = {
+	'current-speed-time-series': (bytes) => parseTimeSeriesCsv(bytes),
+	'speed-histogram': (bytes) => parseSpeedHistogramCsv(bytes),
+	'power-curve': (bytes) => parsePowerCurveCsv(bytes),
+	'sea-state-table': (bytes) => parseSeaStateTableCsv(bytes),
+	'power-matrix': (bytes) => parsePowerMatrixCsv(bytes)
+};
+
+export function parseUpload(kind: UploadKind, bytes: Uint8Array): UploadResult<unknown, unknown> {
+	return parsers[kind](bytes);
+}
+
+export interface IncomingUpload {
+	projectId: string;
+	kind: UploadKind;
+	fileName: string;
+	contentType: string;
+	bytes: Uint8Array;
+	userId: string | null;
+}
+
+export type ReceiveUploadResult = { ok: true; upload: UploadRecord } | { ok: false; errors: UploadError[] };
+
+export async function receiveUpload(incoming: IncomingUpload, knex: Knex = db()): Promise<ReceiveUploadResult> {
+	const parsed = parseUpload(incoming.kind, incoming.bytes);
+	if (!parsed.ok) return { ok: false, errors: parsed.errors };
+	const upload = await storeUpload(
+		{
+			projectId: incoming.projectId,
+			kind: incoming.kind,
+			fileName: incoming.fileName,
+			contentType: incoming.contentType,
+			content: incoming.bytes,
+			parsed: { data: parsed.data, summary: parsed.summary, warnings: parsed.warnings },
+			userId: incoming.userId
+		},
+		knex
+	);
+	return { ok: true, upload };
+}
