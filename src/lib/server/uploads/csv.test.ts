@@ -21,6 +21,10 @@ describe('detectDelimiter', () => {
 		expect(detectDelimiter('speed_m_s\thours\n')).toBe('\t');
 	});
 
+	it('prefers a semicolon even when decimal commas are as many', () => {
+		expect(detectDelimiter('hs_m/te_s;6,5;7,5\n')).toBe(';');
+	});
+
 	it('skips leading blank lines and ignores delimiters inside quotes', () => {
 		expect(detectDelimiter('\n\n"a;b;c",d\n')).toBe(',');
 	});

@@ -52,18 +52,23 @@ export type TableResult = { ok: true; table: CsvTable } | UploadFailure;
 
 const DELIMITER_NAMES: Record<Delimiter, string> = { ',': 'commas', ';': 'semicolons', '\t': 'tabs' };
 
-/** Counts each candidate delimiter outside quotes on the first non-blank line; the most frequent wins, comma on a tie. */
+/**
+ * Picks the delimiter from the first non-blank line, outside quotes: a tab if
+ * there is one, else a semicolon, else a comma. Header names never hold tabs
+ * or semicolons, while a semicolon-separated row may hold as many decimal
+ * commas as semicolons, so counting would be a coin toss.
+ */
 export function detectDelimiter(text: string): Delimiter {
-	const firstLine = text.split(/\r\n|\n|\r/).find((line) => line.trim() !== '') ?? '';
-	const counts: Record<Delimiter, number> = { ',': 0, ';': 0, '\t': 0 };
+	const firstLine = /[^\r\n]*\S[^\r\n]*/.exec(text)?.[0] ?? '';
 	let quoted = false;
+	let semicolon = false;
 	for (const ch of firstLine) {
 		if (ch === '"') quoted = !quoted;
-		else if (!quoted && (ch === ',' || ch === ';' || ch === '\t')) counts[ch]++;
+		else if (quoted) continue;
+		else if (ch === '\t') return '\t';
+		else if (ch === ';') semicolon = true;
 	}
-	let best: Delimiter = ',';
-	for (const d of [';', '\t'] as const) if (counts[d] > counts[best]) best = d;
-	return best;
+	return semicolon ? ';' : ',';
 }
 
 function isBlankRow(cells: string[]): boolean {
