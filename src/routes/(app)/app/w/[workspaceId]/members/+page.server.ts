@@ -1,0 +1,142 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { z } from 'zod';
+import { inviteForm } from '$lib/schemas/account';
+import { requireWorkspaceRole } from '$lib/server/auth/authorize';
+import { isWorkspaceRole, roleDescriptions } from '$lib/server/auth/roles';
+import { LastOwnerError, changeMemberRole, listMembers, removeMember } from '$lib/server/db/memberships';
+import { INVITATION_DAYS, createInvitation, listOpenInvitations, revokeInvitation } from '$lib/server/db/invitations';
+import { recordAuditEvent } from '$lib/server/db/audit';
+import { getUserById } from '$lib/server/db/users';
+import { sendMail } from '$lib/server/mail/mailer';
+import { invitationMessage } from '$lib/server/mail/templates';
+import { fieldErrors, readForm } from '$lib/server/forms';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const { user, membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'viewer');
+	const isOwner = membership.role === 'owner';
+	const [members, invitations] = await Promise.all([
+		listMembers(membership.workspaceId),
+		isOwner ? listOpenInvitations(membership.workspaceId) : Promise.resolve([])
+	]);
+	return {
+		me: user.id,
+		isOwner,
+		roleDescriptions,
+		members: members.map((m) => ({ userId: m.userId, email: m.email, name: m.name, role: m.role })),
+		invitations: invitations.map((i) => ({ id: i.id, email: i.email, role: i.role, expiresAt: i.expiresAt.toISOString() }))
+	};
+};
+
+const memberTarget = z.object({ userId: z.string().uuid('Choose a member.') });
+
+export const actions: Actions = {
+	invite: async (event) => {
+		const { user, membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'owner');
+		const fields = await readForm(event.request);
+		const parsed = inviteForm.safeParse(fields);
+		if (!parsed.success) {
+			return fail(400, { action: 'invite', email: fields.email ?? '', role: fields.role ?? 'analyst', errors: fieldErrors(parsed.error) });
+		}
+		const { id, token } = await createInvitation({ workspaceId: membership.workspaceId, email: parsed.data.email, role: parsed.data.role, invitedBy: user.id });
+		const inviter = await getUserById(user.id);
+		await sendMail(
+			parsed.data.email,
+			invitationMessage({
+				inviterName: inviter?.name || user.email,
+				workspaceName: membership.workspaceName,
+				role: parsed.data.role,
+				url: `${event.url.origin}/invite/${token}`,
+				daysValid: INVITATION_DAYS
+			})
+		);
+		await recordAuditEvent({
+			event: 'invitation-sent',
+			workspaceId: membership.workspaceId,
+			actorUserId: user.id,
+			actorEmail: user.email,
+			ip: event.getClientAddress(),
+			detail: { invitationId: id, email: parsed.data.email, role: parsed.data.role }
+		});
+		return { action: 'invite', sentTo: parsed.data.email, email: '', role: 'analyst', errors: {} as Record<string, string> };
+	},
+
+	changeRole: async (event) => {
+		const { user, membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'owner');
+		const fields = await readForm(event.request);
+		const target = memberTarget.safeParse(fields);
+		if (!target.success || !isWorkspaceRole(fields.role)) return fail(400, { action: 'changeRole', tone: 'error' as const, message: 'Choose a member and a role.' });
+		try {
+			const previous = await changeMemberRole(membership.workspaceId, target.data.userId, fields.role);
+			if (!previous) return fail(404, { action: 'changeRole', tone: 'error' as const, message: 'That person is not a member.' });
+			await recordAuditEvent({
+				event: 'role-changed',
+				workspaceId: membership.workspaceId,
+				actorUserId: user.id,
+				actorEmail: user.email,
+				ip: event.getClientAddress(),
+				detail: { memberId: target.data.userId, from: previous, to: fields.role }
+			});
+		} catch (error) {
+			if (error instanceof LastOwnerError) return fail(409, { action: 'changeRole', tone: 'error' as const, message: error.message });
+			throw error;
+		}
+		return { action: 'changeRole', tone: 'ok' as const, message: 'Role changed.' };
+	},
+
+	remove: async (event) => {
+		const { user, membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'owner');
+		const target = memberTarget.safeParse(await readForm(event.request));
+		if (!target.success) return fail(400, { action: 'remove', tone: 'error' as const, message: 'Choose a member.' });
+		try {
+			await removeMember(membership.workspaceId, target.data.userId);
+		} catch (error) {
+			if (error instanceof LastOwnerError) return fail(409, { action: 'remove', tone: 'error' as const, message: error.message });
+			throw error;
+		}
+		await recordAuditEvent({
+			event: 'member-removed',
+			workspaceId: membership.workspaceId,
+			actorUserId: user.id,
+			actorEmail: user.email,
+			ip: event.getClientAddress(),
+			detail: { memberId: target.data.userId }
+		});
+		return { action: 'remove', tone: 'ok' as const, message: 'Member removed.' };
+	},
+
+	revoke: async (event) => {
+		const { user, membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'owner');
+		const invitationId = (await readForm(event.request)).invitationId ?? '';
+		if (!z.string().uuid().safeParse(invitationId).success || !(await revokeInvitation(membership.workspaceId, invitationId))) {
+			return fail(404, { action: 'revoke', tone: 'error' as const, message: 'That invitation is no longer open.' });
+		}
+		await recordAuditEvent({
+			event: 'invitation-revoked',
+			workspaceId: membership.workspaceId,
+			actorUserId: user.id,
+			actorEmail: user.email,
+			ip: event.getClientAddress(),
+			detail: { invitationId }
+		});
+		return { action: 'revoke', tone: 'ok' as const, message: 'Invitation withdrawn.' };
+	},
+
+	leave: async (event) => {
+		const { user, membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'viewer');
+		try {
+			await removeMember(membership.workspaceId, user.id);
+		} catch (error) {
+			if (error instanceof LastOwnerError) return fail(409, { action: 'leave', tone: 'error' as const, message: error.message });
+			throw error;
+		}
+		await recordAuditEvent({
+			event: 'member-left',
+			workspaceId: membership.workspaceId,
+			actorUserId: user.id,
+			actorEmail: user.email,
+			ip: event.getClientAddress()
+		});
+		redirect(303, '/app');
+	}
+};
