@@ -2,6 +2,7 @@
  * The upload kinds, their parsers and templates, for the route layer: pass the
  * uploaded bytes and the kind, get the scenario fragment or the errors.
  */
+import type { UploadKind } from '../../schemas/workbench';
 import { parsePowerCurveCsv } from './power-curve';
 import { parsePowerMatrixCsv } from './power-matrix';
 import { parseSeaStateTableCsv } from './sea-state-table';
@@ -39,9 +40,9 @@ export const UPLOAD_KINDS = {
 		template: '/templates/power-matrix.csv',
 		parse: parsePowerMatrixCsv
 	}
-} as const;
+} as const satisfies Record<UploadKind, { label: string; target: 'resource' | 'device'; template: string; parse: unknown }>;
 
-export type UploadKind = keyof typeof UPLOAD_KINDS;
+export type { UploadKind };
 
 export function isUploadKind(value: string): value is UploadKind {
 	return Object.hasOwn(UPLOAD_KINDS, value);

@@ -30,6 +30,9 @@ export const GAP_FACTOR = 1.5;
  */
 export const PLAUSIBLE_MAX_SPEED_M_S = 6;
 
+/** A histogram longer than this is a unit mistake (cm/s) or a bin width far too fine. */
+export const MAX_BINS = 1000;
+
 /** Shorter records miss part of the lunar month's two spring-neap cycles (common practice). */
 const SHORT_RECORD_DAYS = 29.5;
 
@@ -94,6 +97,10 @@ function median(sortedValues: readonly number[]): number {
 	return sortedValues.length % 2 === 1
 		? sortedValues[mid]
 		: (sortedValues[mid - 1] + sortedValues[mid]) / 2;
+}
+
+function lowestSpeedText(samples: readonly Sample[]): string {
+	return samples.reduce((low, s) => (s.speed < low.speed ? s : low), samples[0]).speedText;
 }
 
 function hoursOf(ms: number): Decimal {
@@ -212,6 +219,13 @@ export function parseTimeSeriesCsv(
 	}
 	const lowest = Math.min(...counts.keys());
 	const highest = Math.max(...counts.keys());
+	if (highest - lowest + 1 > MAX_BINS) {
+		return fileFailure(
+			`The speeds run from ${lowestSpeedText(samples)} to ${maxSample.speedText} m/s, which would need ` +
+				`${(highest - lowest + 1).toLocaleString('en')} bins of ${plain(indexer.width)} m/s (at most ${MAX_BINS}). ` +
+				'Check the speeds are in m/s, not cm/s or mm/s, or choose wider bins.'
+		);
+	}
 
 	// Hours as (samples x interval ms) / ms per hour: one division, so a year of
 	// 10-minute samples is exactly 8760 h.
