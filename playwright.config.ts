@@ -4,6 +4,8 @@ import { defineConfig } from '@playwright/test';
 // away at the start of every run, on ports apart from `npm start`'s.
 const port = Number(process.env.E2E_PORT ?? 3100);
 const pgPort = Number(process.env.E2E_PG_PORT ?? 54331);
+export const mailSinkSmtpPort = Number(process.env.MAIL_SINK_SMTP_PORT ?? 54335);
+export const mailSinkHttpPort = Number(process.env.MAIL_SINK_HTTP_PORT ?? 54336);
 export const baseURL = `http://127.0.0.1:${port}`;
 
 export default defineConfig({
@@ -47,6 +49,8 @@ export default defineConfig({
 			PGPORT_LOCAL: String(pgPort),
 			PG_DATA_DIR: '.data/pg-e2e',
 			PG_FSYNC: 'off',
+			MAIL_SINK_SMTP_PORT: String(mailSinkSmtpPort),
+			MAIL_SINK_HTTP_PORT: String(mailSinkHttpPort),
 			TIDEWRIGHT_E2E: '1'
 		}
 	}

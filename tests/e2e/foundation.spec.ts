@@ -1,3 +1,4 @@
+import { signInPage } from './helpers/session';
 import { expect, test } from '@playwright/test';
 
 test('the home page says what Tidewright is and leads to the workbench', async ({ page }) => {
@@ -5,12 +6,14 @@ test('the home page says what Tidewright is and leads to the workbench', async (
 	await expect(page.getByRole('heading', { level: 1 })).toContainText('resource to return');
 	await expect(page.getByLabel('Cautions')).toContainText('not investment advice');
 	await page.getByRole('link', { name: 'Open the workbench' }).click();
-	await expect(page).toHaveURL(/\/app/);
+	await expect(page).toHaveURL(/\/signin/);
 });
 
-test('the workbench lists the demo projects fetched from the API', async ({ page }) => {
-	const apiCall = page.waitForResponse((r) => r.url().includes('/api/v1/projects') && r.status() === 200);
+test('the workbench asks for sign-in, then lists the demo projects fetched from the API', async ({ page }) => {
 	await page.goto('/app');
+	await expect(page).toHaveURL(/\/signin\?next=%2Fapp/);
+	const apiCall = page.waitForResponse((r) => /\/api\/v1\/workspaces\/[^/]+\/projects$/.test(r.url()) && r.status() === 200);
+	await signInPage(page, 'viewer');
 	await apiCall;
 	const projects = page.getByRole('list', { name: 'Projects' });
 	await expect(projects.getByRole('heading', { name: 'Kestle Narrows Tidal Array' })).toBeVisible();

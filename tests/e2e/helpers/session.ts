@@ -1,0 +1,51 @@
+/**
+ * Signed-in HTTP clients and pages for the demo personas (seeds/02_demo_users.ts).
+ * Sign-in goes through the real form action, as a browser's would.
+ */
+import { expect, type APIRequestContext, type Browser, type Page } from '@playwright/test';
+import { request as playwrightRequest } from '@playwright/test';
+import { demoUsers, type DemoPersona } from '../../../seeds/02_demo_users';
+
+export type Persona = DemoPersona | 'anonymous';
+
+export async function signedInRequest(
+	playwright: { request: typeof playwrightRequest },
+	baseURL: string,
+	persona: Persona
+): Promise<APIRequestContext> {
+	const context = await playwright.request.newContext({ baseURL, extraHTTPHeaders: { origin: baseURL } });
+	if (persona === 'anonymous') return context;
+	const user = demoUsers[persona];
+	const response = await context.post('/signin', {
+		form: { email: user.email, password: user.password, next: '/app' },
+		maxRedirects: 0
+	});
+	expect(response.status(), `sign-in of ${persona}`).toBe(303);
+	expect(response.headers()['location']).toBe('/app');
+	return context;
+}
+
+export async function signInPage(page: Page, persona: DemoPersona) {
+	const user = demoUsers[persona];
+	await page.goto('/signin');
+	await page.getByLabel('E-mail').fill(user.email);
+	await page.getByLabel('Password').fill(user.password);
+	await page.getByRole('button', { name: 'Sign in' }).click();
+	await expect(page).toHaveURL(/\/app\/w\//);
+}
+
+export async function newSignedInPage(browser: Browser, persona: DemoPersona): Promise<Page> {
+	const context = await browser.newContext();
+	const page = await context.newPage();
+	await signInPage(page, persona);
+	return page;
+}
+
+export async function workspaceIdOf(request: APIRequestContext, name: string): Promise<string> {
+	const response = await request.get('/api/v1/workspaces');
+	expect(response.ok()).toBe(true);
+	const { workspaces } = (await response.json()) as { workspaces: { id: string; name: string }[] };
+	const found = workspaces.find((w) => w.name === name);
+	if (!found) throw new Error(`workspace ${name} not visible`);
+	return found.id;
+}
