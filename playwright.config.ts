@@ -7,6 +7,8 @@ const pgPort = Number(process.env.E2E_PG_PORT ?? 54331);
 export const mailSinkSmtpPort = Number(process.env.MAIL_SINK_SMTP_PORT ?? 54335);
 export const mailSinkHttpPort = Number(process.env.MAIL_SINK_HTTP_PORT ?? 54336);
 export const baseURL = `http://127.0.0.1:${port}`;
+export const e2eClusterDir = `.data/pg-e2e-${pgPort}`;
+export const e2ePgPort = pgPort;
 
 export default defineConfig({
 	testDir: 'tests/e2e',
@@ -47,7 +49,7 @@ export default defineConfig({
 			PORT: String(port),
 			ORIGIN: baseURL,
 			PGPORT_LOCAL: String(pgPort),
-			PG_DATA_DIR: '.data/pg-e2e',
+			PG_DATA_DIR: e2eClusterDir,
 			PG_FSYNC: 'off',
 			MAIL_SINK_SMTP_PORT: String(mailSinkSmtpPort),
 			MAIL_SINK_HTTP_PORT: String(mailSinkHttpPort),

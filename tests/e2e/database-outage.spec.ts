@@ -1,3 +1,4 @@
+import { e2eClusterDir, e2ePgPort } from '../../playwright.config';
 import { signInPage } from './helpers/session';
 import { expect, test } from '@playwright/test';
 import { execFileSync } from 'node:child_process';
@@ -5,7 +6,7 @@ import { execFileSync } from 'node:child_process';
 // Stops and restarts the browser tests' own cluster (see playwright.config.ts).
 function cluster(command: 'start' | 'stop') {
 	execFileSync('npx', ['tsx', 'docker-local/postgres.ts', command], {
-		env: { ...process.env, PGPORT_LOCAL: process.env.E2E_PG_PORT ?? '54331', PG_DATA_DIR: '.data/pg-e2e' },
+		env: { ...process.env, PGPORT_LOCAL: String(e2ePgPort), PG_DATA_DIR: e2eClusterDir },
 		stdio: 'pipe'
 	});
 }
