@@ -24,9 +24,14 @@ export function waveEnergyFluxKWPerM(
 	densityKgPerM3: DecimalInput,
 	gravityMPerS2: DecimalInput
 ): Decimal {
+	return waveFluxFunction(densityKgPerM3, gravityMPerS2)(dec(hsM), dec(teS));
+}
+
+/** J(Hs, Te) in kW/m with the constant rho g^2 / (64 pi 1000) computed once, for many sea states. */
+export function waveFluxFunction(densityKgPerM3: DecimalInput, gravityMPerS2: DecimalInput): (hsM: Decimal, teS: Decimal) => Decimal {
 	const g = dec(gravityMPerS2);
-	const hs = dec(hsM);
-	return dec(densityKgPerM3).times(g).times(g).times(hs).times(hs).times(teS).div(PI.times(64000));
+	const coefficient = dec(densityKgPerM3).times(g).times(g).div(PI.times(64000));
+	return (hs, te) => coefficient.times(hs).times(hs).times(te);
 }
 
 /**
@@ -82,16 +87,28 @@ export function powerMatrixKW(
 	hsM: number,
 	teS: number
 ): Decimal | null {
-	const row = locate(matrix.hsM, hsM);
-	const col = locate(teAxisS, teS);
-	if (!row || !col) return null;
-	const m = matrix.powerKW;
-	if (matrix.lookup === 'nearest') return dec(m[row.nearest][col.nearest]);
-	const a = row.weightUpper;
-	const b = col.weightUpper;
-	const low = dec(m[row.lower][col.lower]).plus(b.times(m[row.lower][col.upper] - m[row.lower][col.lower]));
-	const high = dec(m[row.upper][col.lower]).plus(b.times(m[row.upper][col.upper] - m[row.upper][col.lower]));
-	return low.plus(a.times(high.minus(low)));
+	return powerMatrixFunction(matrix, teAxisS)(hsM, teS);
+}
+
+/** The lookup of powerMatrixKW with the matrix converted to decimals once, for many sea states. */
+export function powerMatrixFunction(
+	matrix: Pick<PowerMatrixSpec, 'hsM' | 'powerKW' | 'lookup'>,
+	teAxisS: readonly number[]
+): (hsM: number, teS: number) => Decimal | null {
+	const m = matrix.powerKW.map((row) => row.map((v) => new Decimal(v)));
+	return (hsM, teS) => {
+		const row = locate(matrix.hsM, hsM);
+		const col = locate(teAxisS, teS);
+		if (!row || !col) return null;
+		if (matrix.lookup === 'nearest') return m[row.nearest][col.nearest];
+		const a = row.weightUpper;
+		const b = col.weightUpper;
+		const lowRow = m[row.lower];
+		const highRow = m[row.upper];
+		const low = b.isZero() ? lowRow[col.lower] : lowRow[col.lower].plus(b.times(lowRow[col.upper].minus(lowRow[col.lower])));
+		const high = b.isZero() ? highRow[col.lower] : highRow[col.lower].plus(b.times(highRow[col.upper].minus(highRow[col.lower])));
+		return a.isZero() ? low : low.plus(a.times(high.minus(low)));
+	};
 }
 
 /** Rated power per device (kW): given, or the matrix maximum. */

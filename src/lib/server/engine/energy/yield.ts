@@ -7,7 +7,7 @@ import { dec, Decimal, ZERO } from '../decimal';
 import type { Scenario } from '../../../schemas/scenario';
 import { energyPeriodFromPeakPeriod, normaliseOccurrences, rayleighBins, weibullBins, type FlowBin, type SeaStateBin } from './distributions';
 import { flowDeviceRatedPowerKW, powerCurveKW, rotorPowerFunction } from './current';
-import { captureWidthPowerKW, powerMatrixKW, powerMatrixRatedPowerKW, waveEnergyFluxKWPerM } from './wave';
+import { captureWidthPowerKW, powerMatrixFunction, powerMatrixRatedPowerKW, waveFluxFunction } from './wave';
 import { netLossFactor } from './losses';
 import { combinedSigma, exceedanceFactor } from './uncertainty';
 
@@ -90,10 +90,10 @@ function checkOccurrenceTotal(basis: 'hours' | 'probability', values: number[], 
 /** Evaluate the device over the resource: power per bin, then energy per bin. */
 function binsWithPower(scenario: Scenario, warnings: string[]): { bins: EnergyBin[]; ratedKW: Decimal } {
 	const hours = dec(scenario.hoursPerYear);
-	const devices = scenario.array.deviceCount;
+	const devicesPerThousand = dec(scenario.array.deviceCount).div(1000);
 	const withEnergy = (bin: Omit<EnergyBin, 'hours' | 'arrayGrossEnergyMWh'>): EnergyBin => {
 		const binHours = bin.probability.times(hours);
-		return { ...bin, hours: binHours, arrayGrossEnergyMWh: bin.devicePowerKW.times(binHours).times(devices).div(1000) };
+		return { ...bin, hours: binHours, arrayGrossEnergyMWh: bin.devicePowerKW.times(binHours).times(devicesPerThousand) };
 	};
 	const { device, site } = scenario;
 	if (device.kind === 'rotor' || device.kind === 'power-curve') {
@@ -110,12 +110,14 @@ function binsWithPower(scenario: Scenario, warnings: string[]): { bins: EnergyBi
 				? device.periodS
 				: [];
 	let outside = ZERO;
+	const fluxOf = waveFluxFunction(site.waterDensityKgPerM3, site.gravityMPerS2);
+	const lookup = device.kind === 'power-matrix' ? powerMatrixFunction(device, teAxis) : null;
 	const bins = seaStateBins(scenario, warnings).map((s) => {
-		const flux = waveEnergyFluxKWPerM(s.hsM, s.teS, site.waterDensityKgPerM3, site.gravityMPerS2);
+		const flux = fluxOf(s.hsM, s.teS);
 		let powerKW: Decimal;
 		if (device.kind === 'capture-width') powerKW = captureWidthPowerKW(device, flux);
 		else {
-			const looked = device.kind === 'power-matrix' ? powerMatrixKW(device, teAxis, s.hsM.toNumber(), s.teS.toNumber()) : null;
+			const looked = lookup ? lookup(s.hsM.toNumber(), s.teS.toNumber()) : null;
 			if (looked === null) outside = outside.plus(s.probability);
 			powerKW = looked ?? ZERO;
 		}

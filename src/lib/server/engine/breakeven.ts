@@ -1,0 +1,62 @@
+/**
+ * Breakeven tariff: the flat real price per MWh, paid in every operating year
+ * (indexed to inflation), at which the project's post-tax NPV at the discount
+ * rate is zero.
+ */
+import { dec, Decimal } from './decimal';
+import { solveRoot } from './finance/roots';
+import { operate, type CasePreparation } from './cashflow';
+import { flatRealPricePath } from './revenue';
+
+export type BreakevenResult = { tariffPerMWh: Decimal; evaluations: number } | { tariffPerMWh: null; evaluations: number; reason: string };
+
+const MAX_SECANT_STEPS = 12;
+
+/**
+ * NPV(p) is affine in the flat real tariff p (revenue and revenue-share opex are
+ * linear in p) except where tax switches on or losses are carried forward,
+ * which makes it piecewise linear and increasing. So: two evaluations near
+ * the guess (the real LCOE, which is the answer when there is no tax) give the
+ * line, its root is checked, and secant steps (each landing on the next
+ * linear piece) finish it; Brent's method (finance/roots)
+ * is the fallback on a bracket. Tolerance: |NPV| below 1e-6 currency units or
+ * the tariff pinned to 1e-9 per MWh.
+ * Source: definition of the breakeven price; Brent (1973) for the fallback.
+ */
+export function solveBreakevenTariff(prep: CasePreparation, guessPerMWh: Decimal | null = null): BreakevenResult {
+	let evaluations = 0;
+	const npvAt = (p: Decimal) => {
+		evaluations++;
+		return operate(prep, flatRealPricePath(p, prep.priceIndex.operation)).npv;
+	};
+	if (prep.energy.netAepMWh.isZero()) return { tariffPerMWh: null, evaluations, reason: 'no energy is produced, so no tariff can pay for the project' };
+
+	// Start near the answer (the real LCOE is the breakeven without tax), so the first line is the right piece.
+	let a = guessPerMWh && guessPerMWh.gt(0) ? guessPerMWh : dec(100);
+	let fa = npvAt(a);
+	let b = a.times(1.05);
+	let fb = npvAt(b);
+	if (fb.lte(fa)) return { tariffPerMWh: null, evaluations, reason: 'the NPV does not rise with the tariff' };
+	for (let step = 0; step < MAX_SECANT_STEPS; step++) {
+		const next = b.minus(fb.times(b.minus(a)).div(fb.minus(fa)));
+		const fNext = npvAt(next);
+		if (fNext.abs().lt(1e-6) || next.minus(b).abs().lt(1e-9)) return { tariffPerMWh: next, evaluations };
+		a = b;
+		fa = fb;
+		b = next;
+		fb = fNext;
+		if (fb.eq(fa)) break;
+	}
+	// Fallback: bracket the root around the last estimate and let Brent finish.
+	const guess = b.toNumber();
+	const f = (p: number) => npvAt(new Decimal(p)).toNumber();
+	let lo = guess - Math.max(1, Math.abs(guess));
+	let hi = guess + Math.max(1, Math.abs(guess));
+	for (let widen = 0; widen < 20 && Math.sign(f(lo)) === Math.sign(f(hi)); widen++) {
+		lo -= hi - lo;
+		hi += hi - lo;
+	}
+	const root = solveRoot(f, lo, hi, { xTolerance: 1e-9 });
+	if (!root) return { tariffPerMWh: null, evaluations, reason: 'the breakeven search did not converge' };
+	return { tariffPerMWh: new Decimal(root.x), evaluations };
+}

@@ -1,0 +1,247 @@
+/**
+ * The annual cash-flow model, in three stages so that solvers re-run only what
+ * changes:
+ *
+ *   prepareCase  everything that does not depend on the price (timeline, indices,
+ *                energy by year, capex, grants, opex, depreciation);
+ *   operate      revenue, opex, EBITDA, unlevered tax and the project cash flows
+ *                for a given price path (the breakeven solve re-runs only this);
+ *   financeCase  debt sizing, interest, levered tax, CFADS and equity flows.
+ *
+ * Amounts are nominal currency of each year unless named real. Time convention
+ * as in ./timeline: t = 0 is COD, construction at t <= 0, operating year k at t = k.
+ */
+import { dec, Decimal, ONE, ZERO } from './decimal';
+import type { Scenario } from '../../schemas/scenario';
+import type { EnergyEstimate } from './energy/yield';
+import { degradationFactors } from './energy/losses';
+import { nominalFromReal } from './finance/rates';
+import { depreciationSchedule } from './finance/depreciation';
+import { buildTimeline, discountFactorsOnTimeline, powersOnTimeline, presentValue, type Timeline, type TimeSeries } from './timeline';
+import { capexSchedule, decommissioningCost, opexSchedule, totalOpex, type CapexSchedule, type OpexSchedule } from './costs';
+import { grantSchedule, revenueByYear } from './revenue';
+import { corporateTax } from './tax';
+import { structureDebt, type DebtStructure } from './debt';
+
+export type CasePreparation = {
+	scenario: Scenario;
+	energy: EnergyEstimate;
+	timeline: Timeline;
+	inflation: Decimal;
+	realDiscountRate: Decimal;
+	nominalDiscountRate: Decimal;
+	priceIndex: TimeSeries;
+	/** 1 / price index: turns nominal amounts back into COD-year money. */
+	priceDeflator: TimeSeries;
+	realDiscountFactors: TimeSeries;
+	nominalDiscountFactors: TimeSeries;
+	/** Net P50 energy delivered in each operating year (after degradation), MWh. */
+	energyMWh: Decimal[];
+	capex: CapexSchedule;
+	grants: { realTotal: Decimal; nominal: Decimal[]; capped: boolean };
+	/** Nominal capex net of grants per construction year. */
+	fundingNeed: Decimal[];
+	opex: OpexSchedule;
+	/** Nominal decommissioning cost, in the final operating year. */
+	decommissioning: Decimal;
+	/** Tax depreciation per operating year, of capex net of grants. */
+	depreciation: Decimal[];
+	warnings: string[];
+};
+
+export function prepareCase(scenario: Scenario, energy: EnergyEstimate): CasePreparation {
+	const warnings: string[] = [];
+	const { constructionYears, operatingYears } = scenario.timeline;
+	const timeline = buildTimeline(constructionYears, operatingYears);
+	const inflation = dec(scenario.finance.inflation);
+	const realDiscountRate = dec(scenario.finance.realDiscountRate);
+	const nominalDiscountRate = nominalFromReal(realDiscountRate, inflation);
+	const priceIndex = powersOnTimeline(ONE.plus(inflation), timeline);
+	const energyMWh = degradationFactors(scenario.array.degradationPerYear, operatingYears).map((f) => f.times(energy.netAepMWh));
+	const capex = capexSchedule(scenario.capex, energy.installedCapacityKW, scenario.array.deviceCount, priceIndex.construction);
+	const grants = grantSchedule(scenario.revenue.grants, capex.realTotal, capex.real, priceIndex.construction);
+	if (grants.capped) warnings.push('Grants exceed capex; they were limited to the capex.');
+	const fundingNeed = capex.nominal.map((c, j) => c.minus(grants.nominal[j]));
+	const costContext = { installedKW: energy.installedCapacityKW, deviceCount: scenario.array.deviceCount, capexRealTotal: capex.realTotal };
+	const opex = opexSchedule(scenario.opex, { ...costContext, energyMWh, priceIndex: priceIndex.operation });
+	const decommissioning = decommissioningCost(scenario.decommissioning, {
+		...costContext,
+		finalPriceIndex: priceIndex.operation[operatingYears - 1]
+	});
+	let depreciableCost = ZERO;
+	for (const f of fundingNeed) depreciableCost = depreciableCost.plus(f);
+	const dep = scenario.finance.depreciation;
+	const depreciation = depreciationSchedule(
+		dep.method,
+		depreciableCost,
+		dep.lifeYears ?? operatingYears,
+		operatingYears,
+		dep.decliningBalanceFactor
+	);
+	return {
+		scenario,
+		energy,
+		timeline,
+		inflation,
+		realDiscountRate,
+		nominalDiscountRate,
+		priceIndex,
+		priceDeflator: powersOnTimeline(ONE.div(ONE.plus(inflation)), timeline),
+		realDiscountFactors: discountFactorsOnTimeline(realDiscountRate, timeline),
+		nominalDiscountFactors: discountFactorsOnTimeline(nominalDiscountRate, timeline),
+		energyMWh,
+		capex,
+		grants,
+		fundingNeed,
+		opex,
+		decommissioning,
+		depreciation,
+		warnings
+	};
+}
+
+export type OperatingResult = {
+	pricePerMWh: Decimal[];
+	revenue: Decimal[];
+	opex: Decimal[];
+	ebitda: Decimal[];
+	/** Decommissioning cost per operating year (final year only). */
+	decommissioning: Decimal[];
+	/** Tax as if the project had no debt, used for project (unlevered) returns. */
+	unleveredTax: Decimal[];
+	projectPreTax: TimeSeries;
+	projectPostTax: TimeSeries;
+	/** Post-tax project NPV at the nominal discount rate, valued at COD. */
+	npv: Decimal;
+};
+
+/** Revenue, opex, EBITDA, unlevered tax and project cash flows for a price path. */
+export function operate(prep: CasePreparation, pricePerMWh: readonly Decimal[]): OperatingResult {
+	const n = prep.timeline.operatingYears;
+	const revenue = revenueByYear(prep.energyMWh, pricePerMWh);
+	const opex = totalOpex(prep.opex, revenue);
+	const ebitda = revenue.map((r, k) => r.minus(opex[k]));
+	const decommissioning = Array.from({ length: n }, (_, k) => (k === n - 1 ? prep.decommissioning : ZERO));
+	const taxable = ebitda.map((e, k) => e.minus(prep.depreciation[k]).minus(decommissioning[k]));
+	const { finance } = prep.scenario;
+	const unleveredTax = corporateTax(taxable, finance.taxRate, finance.taxLossCarryForward).tax;
+	const construction = prep.fundingNeed.map((f) => f.neg());
+	const operatingPreTax = ebitda.map((e, k) => e.minus(decommissioning[k]));
+	const projectPreTax = { construction, operation: operatingPreTax };
+	const projectPostTax = { construction, operation: operatingPreTax.map((v, k) => v.minus(unleveredTax[k])) };
+	return {
+		pricePerMWh: [...pricePerMWh],
+		revenue,
+		opex,
+		ebitda,
+		decommissioning,
+		unleveredTax,
+		projectPreTax,
+		projectPostTax,
+		npv: presentValue(projectPostTax, prep.nominalDiscountFactors)
+	};
+}
+
+export type FinancingResult = {
+	debt: DebtStructure | null;
+	interest: Decimal[];
+	principal: Decimal[];
+	debtService: Decimal[];
+	closingBalance: Decimal[];
+	/** Tax actually paid, with interest deducted. */
+	tax: Decimal[];
+	taxableIncome: Decimal[];
+	lossCarriedForward: Decimal[];
+	cfads: Decimal[];
+	equity: TimeSeries;
+	warnings: string[];
+};
+
+const MAX_TAX_ITERATIONS = 40;
+
+/**
+ * Debt, levered tax, CFADS and equity cash flows.
+ *
+ *     taxable_k = EBITDA_k - depreciation_k - decommissioning_k - interest_k
+ *     CFADS_k   = EBITDA_k - decommissioning_k - tax_k
+ *     equity_j  = -(F_j - draws_j) - fee_j - interest paid in construction_j   (t <= 0)
+ *     equity_k  = CFADS_k - debt service_k                                   (t = k)
+ *
+ * Interest lowers tax, which raises CFADS, which (for DSCR sizing or sculpting)
+ * changes the debt: the circle is closed by fixed-point iteration until the
+ * interest moves by less than 1e-9 currency units (it contracts by roughly
+ * tax rate x interest rate per round). Source: common practice.
+ */
+export function financeCase(prep: CasePreparation, op: OperatingResult): FinancingResult {
+	const { finance } = prep.scenario;
+	const n = prep.timeline.operatingYears;
+	const warnings: string[] = [];
+	const preInterest = op.ebitda.map((e, k) => e.minus(prep.depreciation[k]).minus(op.decommissioning[k]));
+	const taxFor = (interest: readonly Decimal[]) => {
+		const taxableIncome = preInterest.map((v, k) => v.minus(interest[k]));
+		return { taxableIncome, ...corporateTax(taxableIncome, finance.taxRate, finance.taxLossCarryForward) };
+	};
+	const cfadsFor = (tax: readonly Decimal[]) => op.ebitda.map((e, k) => e.minus(op.decommissioning[k]).minus(tax[k]));
+
+	const terms = finance.debt;
+	if (terms.sizing === 'none') {
+		const taxed = taxFor(op.ebitda.map(() => ZERO));
+		const cfads = cfadsFor(taxed.tax);
+		const zeros = cfads.map(() => ZERO);
+		return {
+			debt: null,
+			interest: zeros,
+			principal: zeros,
+			debtService: zeros,
+			closingBalance: zeros,
+			...taxed,
+			cfads,
+			equity: { construction: prep.fundingNeed.map((f) => f.neg()), operation: cfads },
+			warnings
+		};
+	}
+
+	let interest: Decimal[] = op.ebitda.map(() => ZERO);
+	let taxed = taxFor(interest);
+	let cfads = cfadsFor(taxed.tax);
+	let debt = structureDebt({ terms, fundingNeed: prep.fundingNeed, cfads, operatingYears: n });
+	let converged = false;
+	let previousMove: Decimal | null = null;
+	for (let round = 0; round < MAX_TAX_ITERATIONS; round++) {
+		const implied = debt.rows.map((r) => r.interest);
+		const move = implied.reduce((m, v, k) => Decimal.max(m, v.minus(interest[k]).abs()), ZERO);
+		const tolerance = Decimal.max(1e-6, debt.balanceAtCod.times(1e-10));
+		if (move.lt(tolerance)) {
+			interest = implied;
+			converged = true;
+		} else if (previousMove && previousMove.gt(0) && move.div(previousMove).lt(0.5)) {
+			// Geometric convergence at ratio q: jump ahead by q / (1 - q) of the last step (Aitken-style).
+			const q = move.div(previousMove);
+			const ahead = q.div(ONE.minus(q));
+			interest = implied.map((v, k) => v.plus(v.minus(interest[k]).times(ahead)));
+		} else interest = implied;
+		previousMove = move;
+		taxed = taxFor(interest);
+		cfads = cfadsFor(taxed.tax);
+		if (converged) break;
+		debt = structureDebt({ terms, fundingNeed: prep.fundingNeed, cfads, operatingYears: n });
+	}
+	if (!converged) warnings.push('The debt and tax calculation did not settle; debt figures may be slightly off.');
+	warnings.push(...debt.warnings);
+
+	const construction = prep.fundingNeed.map((f, j) => {
+		const fee = j === 0 ? debt.upfrontFee : ZERO;
+		return f.minus(debt.draws[j]).plus(fee).plus(debt.interestPaidInConstruction[j]).neg();
+	});
+	return {
+		debt,
+		interest,
+		principal: debt.rows.map((r) => r.principal),
+		debtService: debt.debtService,
+		closingBalance: debt.rows.map((r) => r.closing),
+		...taxed,
+		cfads,
+		equity: { construction, operation: cfads.map((c, k) => c.minus(debt.debtService[k])) },
+		warnings
+	};
+}

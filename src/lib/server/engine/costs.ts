@@ -1,0 +1,162 @@
+/**
+ * Capital, operating and decommissioning cost schedules. Inputs are real money
+ * in COD-year prices; schedules come out in nominal money of each year
+ * (real x price index (1 + inflation)^t, times any real escalation).
+ */
+import { dec, Decimal, ONE, ZERO } from './decimal';
+import type { Scenario, OpexLine } from '../../schemas/scenario';
+
+export type CapexSchedule = {
+	/** Each line's real total with contingency. */
+	lines: { name: string; realTotal: Decimal }[];
+	/** Real total of all lines with contingency. */
+	realTotal: Decimal;
+	/** Real spend per construction year (first first). */
+	real: Decimal[];
+	/** Nominal spend per construction year. */
+	nominal: Decimal[];
+};
+
+function evenPhasing(years: number): Decimal[] {
+	return Array.from({ length: years }, () => ONE.div(years));
+}
+
+/**
+ * Capex per construction year.
+ *
+ *     line total = amount x (1 | installed kW | device count) x (1 + contingency)
+ *     real_j = sum over lines of line total x phasing_j;  nominal_j = real_j x (1 + i)^t_j
+ *
+ * Phasing defaults to the capex-level phasing, then to an even spread.
+ * Source: common practice.
+ */
+export function capexSchedule(
+	capex: Scenario['capex'],
+	installedKW: Decimal,
+	deviceCount: number,
+	priceIndex: readonly Decimal[]
+): CapexSchedule {
+	const years = priceIndex.length;
+	const defaultPhasing = capex.phasing ? capex.phasing.map(dec) : evenPhasing(years);
+	const withContingency = ONE.plus(capex.contingency);
+	const real: Decimal[] = Array.from({ length: years }, () => ZERO);
+	const lines = capex.lines.map((line) => {
+		const quantity = line.basis === 'per-kW' ? installedKW : line.basis === 'per-device' ? dec(deviceCount) : ONE;
+		const realTotal = quantity.times(line.amount).times(withContingency);
+		const phasing = line.phasing ? line.phasing.map(dec) : defaultPhasing;
+		phasing.forEach((share, j) => (real[j] = real[j].plus(realTotal.times(share))));
+		return { name: line.name, realTotal };
+	});
+	let realTotal = ZERO;
+	for (const l of lines) realTotal = realTotal.plus(l.realTotal);
+	return { lines, realTotal, real, nominal: real.map((r, j) => r.times(priceIndex[j])) };
+}
+
+export type OpexContext = {
+	installedKW: Decimal;
+	deviceCount: number;
+	capexRealTotal: Decimal;
+	/** Net energy delivered in each operating year, MWh. */
+	energyMWh: readonly Decimal[];
+	/** (1 + inflation)^k for each operating year k. */
+	priceIndex: readonly Decimal[];
+};
+
+export type OpexSchedule = {
+	/** Nominal cost per operating year of each line that does not depend on revenue. */
+	lines: { name: string; nominal: Decimal[] }[];
+	/** Sum of those lines per operating year. */
+	revenueIndependent: Decimal[];
+	/** Lines charged as a share of revenue (leases). */
+	revenueShareLines: { name: string; fraction: Decimal }[];
+	revenueShare: Decimal;
+};
+
+/** Index for a line with real escalation e: (1 + i)^k (1 + e)^k, by repeated multiplication. */
+function escalatedIndex(priceIndex: readonly Decimal[], escalation: number): Decimal[] {
+	if (escalation === 0) return [...priceIndex];
+	const step = ONE.plus(escalation);
+	let extra = ONE;
+	return priceIndex.map((p) => {
+		extra = extra.times(step);
+		return p.times(extra);
+	});
+}
+
+function lineRealAmounts(line: Exclude<OpexLine, { basis: 'percent-of-revenue' }>, ctx: OpexContext): Decimal[] {
+	const years = ctx.priceIndex.length;
+	switch (line.basis) {
+		case 'fixed-per-year':
+			return Array.from({ length: years }, () => dec(line.amount));
+		case 'per-kW-year': {
+			const perYear = ctx.installedKW.times(line.amount);
+			return Array.from({ length: years }, () => perYear);
+		}
+		case 'per-MWh':
+			return ctx.energyMWh.map((e) => e.times(line.amount));
+		case 'percent-of-capex': {
+			const perYear = ctx.capexRealTotal.times(line.fraction);
+			return Array.from({ length: years }, () => perYear);
+		}
+		case 'periodic-overhaul': {
+			const cost = line.perDevice ? dec(line.amount).times(ctx.deviceCount) : dec(line.amount);
+			// Overhauls fall in years N, 2N, ... but never in the final operating year.
+			return Array.from({ length: years }, (_, i) => ((i + 1) % line.intervalYears === 0 && i + 1 < years ? cost : ZERO));
+		}
+	}
+}
+
+/**
+ * Opex per operating year, nominal.
+ *
+ *     fixed-per-year: A;  per-kW-year: A x kW;  per-MWh: A x E_k;  percent-of-capex: f x capex;
+ *     periodic-overhaul: A (x devices) in years n, 2n, ... before the final year;
+ *     each x (1 + i)^k (1 + e)^k.   percent-of-revenue: f x revenue_k (nominal already).
+ *
+ * Source: common practice for O&M cost models.
+ */
+export function opexSchedule(opex: Scenario['opex'], ctx: OpexContext): OpexSchedule {
+	const years = ctx.priceIndex.length;
+	const revenueIndependent: Decimal[] = Array.from({ length: years }, () => ZERO);
+	const lines: OpexSchedule['lines'] = [];
+	const revenueShareLines: OpexSchedule['revenueShareLines'] = [];
+	let revenueShare = ZERO;
+	for (const line of opex.lines) {
+		if (line.basis === 'percent-of-revenue') {
+			revenueShareLines.push({ name: line.name, fraction: dec(line.fraction) });
+			revenueShare = revenueShare.plus(line.fraction);
+			continue;
+		}
+		const index = escalatedIndex(ctx.priceIndex, line.escalation);
+		const nominal = lineRealAmounts(line, ctx).map((real, k) => real.times(index[k]));
+		nominal.forEach((v, k) => (revenueIndependent[k] = revenueIndependent[k].plus(v)));
+		lines.push({ name: line.name, nominal });
+	}
+	return { lines, revenueIndependent, revenueShareLines, revenueShare };
+}
+
+/** Total opex per year once revenue is known. */
+export function totalOpex(schedule: OpexSchedule, revenue: readonly Decimal[]): Decimal[] {
+	if (schedule.revenueShare.isZero()) return schedule.revenueIndependent;
+	return schedule.revenueIndependent.map((v, k) => v.plus(revenue[k].times(schedule.revenueShare)));
+}
+
+/**
+ * Decommissioning cost, nominal, paid at the end of the final operating year
+ * (t = N): real amount (lump sum, per device, per kW, or share of capex) x (1 + i)^N.
+ * Source: common practice.
+ */
+export function decommissioningCost(
+	spec: Scenario['decommissioning'],
+	ctx: { installedKW: Decimal; deviceCount: number; capexRealTotal: Decimal; finalPriceIndex: Decimal }
+): Decimal {
+	const real =
+		spec.basis === 'per-device'
+			? dec(spec.amount).times(ctx.deviceCount)
+			: spec.basis === 'per-kW'
+				? ctx.installedKW.times(spec.amount)
+				: spec.basis === 'percent-of-capex'
+					? ctx.capexRealTotal.times(spec.amount)
+					: dec(spec.amount);
+	return real.times(ctx.finalPriceIndex);
+}

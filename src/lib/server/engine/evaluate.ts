@@ -1,0 +1,380 @@
+/**
+ * One evaluation of a scenario: energy, costs, cash flows, financing and the
+ * metrics, returned as plain data with decimals as strings.
+ *
+ * Time convention: t = 0 is the commercial operation date (COD). Capex of the
+ * last construction year sits at t = 0, earlier years at t = -1, -2, ...;
+ * operating year k sits at t = k (end of year). NPVs are valued at COD.
+ */
+import { Decimal } from './decimal';
+import type { Scenario } from '../../schemas/scenario';
+import { estimateEnergy, type EnergyEstimate } from './energy/yield';
+import { financeCase, operate, prepareCase, type CasePreparation, type FinancingResult, type OperatingResult } from './cashflow';
+import { nominalPricePath } from './revenue';
+import { coverRatios, discountedLcoe, fixedChargeRateLcoe, internalRate, loanLifeCoverRatio, paybackYears } from './metrics';
+import { solveBreakevenTariff } from './breakeven';
+
+export const METRIC_KEYS = [
+	'netAepMWh',
+	'p90AepMWh',
+	'capacityFactor',
+	'lcoeReal',
+	'lcoeNominal',
+	'lcoeFcr',
+	'projectIrrPreTax',
+	'projectIrrPostTax',
+	'equityIrr',
+	'npv',
+	'paybackYears',
+	'minDscr',
+	'avgDscr',
+	'llcr',
+	'debtAmount',
+	'breakevenTariff'
+] as const;
+export type MetricKey = (typeof METRIC_KEYS)[number];
+
+/** Units of each metric, for labels. Rates are fractions; IRRs are nominal. */
+export const METRIC_UNITS: Record<MetricKey, string> = {
+	netAepMWh: 'MWh/yr',
+	p90AepMWh: 'MWh/yr',
+	capacityFactor: 'fraction',
+	lcoeReal: 'currency/MWh (real, COD-year money)',
+	lcoeNominal: 'currency/MWh (nominal levelised)',
+	lcoeFcr: 'currency/MWh (real)',
+	projectIrrPreTax: 'fraction/yr (nominal)',
+	projectIrrPostTax: 'fraction/yr (nominal)',
+	equityIrr: 'fraction/yr (nominal)',
+	npv: 'currency at COD (post-tax project, nominal rate)',
+	paybackYears: 'years from COD',
+	minDscr: 'ratio',
+	avgDscr: 'ratio',
+	llcr: 'ratio',
+	debtAmount: 'currency (balance at COD)',
+	breakevenTariff: 'currency/MWh (flat real)'
+};
+
+export type Metrics<T> = Record<MetricKey, T | null>;
+
+export type DetailedEvaluation = {
+	prep: CasePreparation;
+	operating: OperatingResult;
+	financing: FinancingResult;
+	dscr: (Decimal | null)[];
+	metrics: Metrics<Decimal>;
+	breakevenEvaluations: number;
+	warnings: string[];
+};
+
+export type EvaluateOptions = {
+	/** Reuse an energy estimate of the same resource, device and array (sensitivity runs). */
+	energy?: EnergyEstimate;
+	/** Solve the breakeven tariff (a few extra cash-flow passes). Default true. */
+	breakeven?: boolean;
+};
+
+/** The evaluation with decimals, for the engine's own callers (sensitivity, tests). */
+export function evaluateDetailed(scenario: Scenario, options: EvaluateOptions = {}): DetailedEvaluation {
+	const energy = options.energy ?? estimateEnergy(scenario);
+	const prep = prepareCase(scenario, energy);
+	const prices = nominalPricePath(scenario.revenue, scenario.finance.inflation, prep.priceIndex.operation);
+	const operating = operate(prep, prices);
+	const financing = financeCase(prep, operating);
+	const warnings = [...energy.warnings, ...prep.warnings, ...financing.warnings];
+	const note = (metric: MetricKey, reason: string) => warnings.push(`${metric} is not available: ${reason}.`);
+
+	const lcoe = discountedLcoe(prep, operating);
+	const lcoeFcr = fixedChargeRateLcoe(prep, operating);
+	if (lcoe.real === null) note('lcoeReal', 'no energy is produced');
+
+	const times = prep.timeline.constructionTimes;
+	const irrOf = (metric: MetricKey, series: typeof operating.projectPreTax) => {
+		const result = internalRate(series, times);
+		if (result.rate === null) note(metric, result.reason);
+		return result.rate;
+	};
+	const projectIrrPreTax = irrOf('projectIrrPreTax', operating.projectPreTax);
+	const projectIrrPostTax = irrOf('projectIrrPostTax', operating.projectPostTax);
+	const equityIrr = irrOf('equityIrr', financing.equity);
+
+	const payback = paybackYears(operating.projectPostTax);
+	if (payback === null) note('paybackYears', 'the cumulative post-tax cash flow never turns positive');
+
+	const cover = coverRatios(financing.cfads, financing.debtService);
+	const debt = financing.debt;
+	const terms = scenario.finance.debt;
+	const llcr = debt && terms.sizing !== 'none' ? loanLifeCoverRatio(financing.cfads, debt.balanceAtCod, terms.interestRate, terms.tenorYears) : null;
+	if (cover.min === null) note('minDscr', 'there is no debt service');
+	if (llcr === null) note('llcr', 'there is no debt');
+
+	let breakevenTariff: Decimal | null = null;
+	let breakevenEvaluations = 0;
+	if (options.breakeven !== false) {
+		const solved = solveBreakevenTariff(prep, lcoe.real);
+		breakevenEvaluations = solved.evaluations;
+		breakevenTariff = solved.tariffPerMWh;
+		if (solved.tariffPerMWh === null) note('breakevenTariff', solved.reason);
+		else if (solved.tariffPerMWh.lt(0)) warnings.push('The breakeven tariff is negative: the project pays back without any revenue from energy sales.');
+	}
+
+	const metrics: Metrics<Decimal> = {
+		netAepMWh: energy.netAepMWh,
+		p90AepMWh: energy.p90AepMWh,
+		capacityFactor: energy.capacityFactor,
+		lcoeReal: lcoe.real,
+		lcoeNominal: lcoe.nominal,
+		lcoeFcr,
+		projectIrrPreTax,
+		projectIrrPostTax,
+		equityIrr,
+		npv: operating.npv,
+		paybackYears: payback,
+		minDscr: cover.min,
+		avgDscr: cover.average,
+		llcr,
+		debtAmount: debt ? debt.balanceAtCod : new Decimal(0),
+		breakevenTariff
+	};
+	return { prep, operating, financing, dscr: cover.perYear, metrics, breakevenEvaluations, warnings };
+}
+
+// ---------------------------------------------------------------- plain-data result
+
+export type DecimalString = string;
+
+export type CashFlowRow = {
+	/** t: 0 is COD, negative construction years, k the end of operating year k. */
+	t: number;
+	phase: 'construction' | 'operation';
+	energyMWh: DecimalString;
+	pricePerMWh: DecimalString;
+	revenue: DecimalString;
+	opex: DecimalString;
+	ebitda: DecimalString;
+	capex: DecimalString;
+	grants: DecimalString;
+	decommissioning: DecimalString;
+	depreciation: DecimalString;
+	taxableIncome: DecimalString;
+	tax: DecimalString;
+	cfads: DecimalString;
+	debtDrawdown: DecimalString;
+	interest: DecimalString;
+	principal: DecimalString;
+	debtService: DecimalString;
+	debtBalance: DecimalString;
+	dscr: DecimalString | null;
+	projectCashFlowPreTax: DecimalString;
+	projectCashFlowPostTax: DecimalString;
+	cumulativeProjectCashFlow: DecimalString;
+	equityCashFlow: DecimalString;
+	cumulativeEquityCashFlow: DecimalString;
+};
+
+export type EnergyBinRow = {
+	speedMPerS?: DecimalString;
+	hsM?: DecimalString;
+	teS?: DecimalString;
+	fluxKWPerM?: DecimalString;
+	probability: DecimalString;
+	hours: DecimalString;
+	devicePowerKW: DecimalString;
+	arrayGrossEnergyMWh: DecimalString;
+};
+
+export type EngineResult = {
+	schemaVersion: 1;
+	scenarioName: string;
+	technology: Scenario['technology'];
+	currency: string;
+	timeConvention: string;
+	energy: {
+		deviceCount: number;
+		ratedPowerPerDeviceKW: DecimalString;
+		installedCapacityKW: DecimalString;
+		meanDevicePowerKW: DecimalString;
+		grossAepMWh: DecimalString;
+		lossFactor: DecimalString;
+		netAepMWh: DecimalString;
+		combinedSigma: DecimalString;
+		exceedances: { label: string; levelPercent: number; aepMWh: DecimalString; shareOfP50: DecimalString }[];
+		capacityFactor: DecimalString | null;
+		bins: EnergyBinRow[];
+	};
+	costs: {
+		capexRealTotal: DecimalString;
+		capexLines: { name: string; realTotal: DecimalString }[];
+		grantsRealTotal: DecimalString;
+		decommissioningNominal: DecimalString;
+	};
+	rates: { inflation: DecimalString; realDiscountRate: DecimalString; nominalDiscountRate: DecimalString };
+	financing: null | {
+		sizedBy: 'gearing' | 'target-dscr' | 'gearing-cap';
+		gearing: DecimalString;
+		debtAmount: DecimalString;
+		debtDrawn: DecimalString;
+		interestDuringConstruction: DecimalString;
+		upfrontFee: DecimalString;
+	};
+	cashFlow: CashFlowRow[];
+	metrics: Metrics<DecimalString>;
+	warnings: string[];
+};
+
+/** Decimal as a plain string in normal notation, rounded to 10 decimal places, without trailing zeros. */
+export function decimalString(d: Decimal): DecimalString {
+	const fixed = d.toFixed(10);
+	const trimmed = fixed.includes('.') ? fixed.replace(/\.?0+$/, '') : fixed;
+	return trimmed === '-0' ? '0' : trimmed;
+}
+const maybe = (d: Decimal | null | undefined) => (d === null || d === undefined ? null : decimalString(d));
+
+const TIME_CONVENTION =
+	't = 0 is the commercial operation date (COD); capex of the last construction year is at t = 0 and earlier years at t = -1, -2, ...; operating year k is at t = k (end of year). Amounts are nominal; NPV is valued at COD.';
+
+function cashFlowRows(d: DetailedEvaluation): CashFlowRow[] {
+	const { prep, operating: op, financing: fin } = d;
+	const zero = '0';
+	const rows: CashFlowRow[] = [];
+	let project = new Decimal(0);
+	let equity = new Decimal(0);
+	prep.timeline.constructionTimes.forEach((t, j) => {
+		project = project.plus(op.projectPreTax.construction[j]);
+		equity = equity.plus(fin.equity.construction[j]);
+		const draw = fin.debt ? fin.debt.draws[j] : new Decimal(0);
+		const paidInterest = fin.debt ? fin.debt.interestPaidInConstruction[j] : new Decimal(0);
+		rows.push({
+			t,
+			phase: 'construction',
+			energyMWh: zero,
+			pricePerMWh: zero,
+			revenue: zero,
+			opex: zero,
+			ebitda: zero,
+			capex: decimalString(prep.capex.nominal[j]),
+			grants: decimalString(prep.grants.nominal[j]),
+			decommissioning: zero,
+			depreciation: zero,
+			taxableIncome: zero,
+			tax: zero,
+			cfads: zero,
+			debtDrawdown: decimalString(draw),
+			interest: decimalString(paidInterest),
+			principal: zero,
+			debtService: decimalString(paidInterest),
+			debtBalance: zero,
+			dscr: null,
+			projectCashFlowPreTax: decimalString(op.projectPreTax.construction[j]),
+			projectCashFlowPostTax: decimalString(op.projectPostTax.construction[j]),
+			cumulativeProjectCashFlow: decimalString(project),
+			equityCashFlow: decimalString(fin.equity.construction[j]),
+			cumulativeEquityCashFlow: decimalString(equity)
+		});
+	});
+	if (fin.debt && rows.length > 0) rows[rows.length - 1].debtBalance = decimalString(fin.debt.balanceAtCod);
+	prep.timeline.operatingTimes.forEach((t, k) => {
+		project = project.plus(op.projectPostTax.operation[k]);
+		equity = equity.plus(fin.equity.operation[k]);
+		rows.push({
+			t,
+			phase: 'operation',
+			energyMWh: decimalString(prep.energyMWh[k]),
+			pricePerMWh: decimalString(op.pricePerMWh[k]),
+			revenue: decimalString(op.revenue[k]),
+			opex: decimalString(op.opex[k]),
+			ebitda: decimalString(op.ebitda[k]),
+			capex: zero,
+			grants: zero,
+			decommissioning: decimalString(op.decommissioning[k]),
+			depreciation: decimalString(prep.depreciation[k]),
+			taxableIncome: decimalString(fin.taxableIncome[k]),
+			tax: decimalString(fin.tax[k]),
+			cfads: decimalString(fin.cfads[k]),
+			debtDrawdown: zero,
+			interest: decimalString(fin.interest[k]),
+			principal: decimalString(fin.principal[k]),
+			debtService: decimalString(fin.debtService[k]),
+			debtBalance: decimalString(fin.closingBalance[k]),
+			dscr: maybe(d.dscr[k]),
+			projectCashFlowPreTax: decimalString(op.projectPreTax.operation[k]),
+			projectCashFlowPostTax: decimalString(op.projectPostTax.operation[k]),
+			cumulativeProjectCashFlow: decimalString(project),
+			equityCashFlow: decimalString(fin.equity.operation[k]),
+			cumulativeEquityCashFlow: decimalString(equity)
+		});
+	});
+	return rows;
+}
+
+/** Turn a detailed evaluation into the plain-data result. */
+export function toEngineResult(d: DetailedEvaluation): EngineResult {
+	const { prep } = d;
+	const { scenario, energy } = prep;
+	const metrics = Object.fromEntries(METRIC_KEYS.map((k) => [k, maybe(d.metrics[k])])) as Metrics<DecimalString>;
+	const debt = d.financing.debt;
+	let drawn = new Decimal(0);
+	if (debt) for (const x of debt.draws) drawn = drawn.plus(x);
+	return {
+		schemaVersion: 1,
+		scenarioName: scenario.name,
+		technology: scenario.technology,
+		currency: scenario.currency,
+		timeConvention: TIME_CONVENTION,
+		energy: {
+			deviceCount: scenario.array.deviceCount,
+			ratedPowerPerDeviceKW: decimalString(energy.ratedPowerPerDeviceKW),
+			installedCapacityKW: decimalString(energy.installedCapacityKW),
+			meanDevicePowerKW: decimalString(energy.meanDevicePowerKW),
+			grossAepMWh: decimalString(energy.grossAepMWh),
+			lossFactor: decimalString(energy.lossFactor),
+			netAepMWh: decimalString(energy.netAepMWh),
+			combinedSigma: decimalString(energy.combinedSigma),
+			exceedances: energy.exceedances.map((e) => ({
+				label: `P${e.levelPercent}`,
+				levelPercent: e.levelPercent,
+				aepMWh: decimalString(e.aepMWh),
+				shareOfP50: decimalString(e.factor)
+			})),
+			capacityFactor: maybe(energy.capacityFactor),
+			bins: energy.bins.map((b) => ({
+				...(b.speedMPerS ? { speedMPerS: decimalString(b.speedMPerS) } : {}),
+				...(b.hsM ? { hsM: decimalString(b.hsM) } : {}),
+				...(b.teS ? { teS: decimalString(b.teS) } : {}),
+				...(b.fluxKWPerM ? { fluxKWPerM: decimalString(b.fluxKWPerM) } : {}),
+				probability: decimalString(b.probability),
+				hours: decimalString(b.hours),
+				devicePowerKW: decimalString(b.devicePowerKW),
+				arrayGrossEnergyMWh: decimalString(b.arrayGrossEnergyMWh)
+			}))
+		},
+		costs: {
+			capexRealTotal: decimalString(prep.capex.realTotal),
+			capexLines: prep.capex.lines.map((l) => ({ name: l.name, realTotal: decimalString(l.realTotal) })),
+			grantsRealTotal: decimalString(prep.grants.realTotal),
+			decommissioningNominal: decimalString(prep.decommissioning)
+		},
+		rates: {
+			inflation: decimalString(prep.inflation),
+			realDiscountRate: decimalString(prep.realDiscountRate),
+			nominalDiscountRate: decimalString(prep.nominalDiscountRate)
+		},
+		financing: debt
+			? {
+					sizedBy: debt.sizedBy,
+					gearing: decimalString(debt.drawShare),
+					debtAmount: decimalString(debt.balanceAtCod),
+					debtDrawn: decimalString(drawn),
+					interestDuringConstruction: decimalString(debt.interestDuringConstruction),
+					upfrontFee: decimalString(debt.upfrontFee)
+				}
+			: null,
+		cashFlow: cashFlowRows(d),
+		metrics,
+		warnings: d.warnings
+	};
+}
+
+/** Evaluate a validated scenario (see parseScenario) into plain data. */
+export function evaluateScenario(scenario: Scenario): EngineResult {
+	return toEngineResult(evaluateDetailed(scenario));
+}

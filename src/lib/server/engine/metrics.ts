@@ -1,0 +1,131 @@
+/**
+ * Results from the cash flows: LCOE (discounted, real and nominal, and the
+ * fixed-charge-rate form), IRRs, payback and debt cover ratios.
+ */
+import { dec, Decimal, ONE, ZERO, type DecimalInput } from './decimal';
+import { capitalRecoveryFactor } from './finance/annuity';
+import { irrTimed, type IrrResult } from './finance/irr';
+import type { TimeSeries } from './timeline';
+import type { CasePreparation, OperatingResult } from './cashflow';
+
+/**
+ * Discounted LCOE (IEA/NEA definition): discounted costs over discounted energy.
+ *
+ *     LCOE_real    = sum_t C_t / (1 + n)^t  /  sum_k E_k / (1 + r)^k
+ *     LCOE_nominal = sum_t C_t / (1 + n)^t  /  sum_k E_k / (1 + n)^k
+ *
+ * C_t are nominal capex (gross of grants), opex and decommissioning; n is the
+ * nominal rate (1 + n) = (1 + r)(1 + i). Discounting nominal costs at n equals
+ * discounting real costs at r, so the numerator is the same present value; the
+ * real LCOE is a constant-money price, the nominal one a level current-money
+ * price. Tax, financing and grants are left out. Energy is discounted too
+ * (an undiscounted denominator is the classic mistake). Null when no energy.
+ * Source: IEA/NEA, Projected Costs of Generating Electricity (LCOE method);
+ * real versus nominal levelising as in NREL's Manual for the Economic
+ * Evaluation of Energy Efficiency and Renewable Energy Technologies (1995).
+ */
+export function discountedLcoe(prep: CasePreparation, op: OperatingResult): { real: Decimal | null; nominal: Decimal | null } {
+	const df = prep.nominalDiscountFactors;
+	let costs = ZERO;
+	prep.capex.nominal.forEach((c, j) => (costs = costs.plus(c.times(df.construction[j]))));
+	op.opex.forEach((o, k) => (costs = costs.plus(o.plus(op.decommissioning[k]).times(df.operation[k]))));
+	let energyReal = ZERO;
+	let energyNominal = ZERO;
+	prep.energyMWh.forEach((e, k) => {
+		energyReal = energyReal.plus(e.times(prep.realDiscountFactors.operation[k]));
+		energyNominal = energyNominal.plus(e.times(df.operation[k]));
+	});
+	if (energyReal.isZero()) return { real: null, nominal: null };
+	return { real: costs.div(energyReal), nominal: costs.div(energyNominal) };
+}
+
+/**
+ * Fixed-charge-rate LCOE for quick comparison.
+ *
+ *     LCOE_FCR = (FCR x capex + annual opex) / AEP,   FCR = CRF(r, N) = r / (1 - (1 + r)^-N)
+ *
+ * with capex the real total (with contingency, gross of grants), annual opex
+ * the mean real opex over the operating years, AEP the year-1 net P50 energy
+ * and r the real discount rate. Equals the discounted LCOE when capex is spent
+ * at COD and opex and energy are level. Source: NREL Annual Technology
+ * Baseline, LCOE equations (FCR form), without its tax and financing factors.
+ */
+export function fixedChargeRateLcoe(prep: CasePreparation, op: OperatingResult): Decimal | null {
+	if (prep.energy.netAepMWh.isZero()) return null;
+	const years = prep.timeline.operatingYears;
+	const crf = capitalRecoveryFactor(prep.realDiscountRate, years);
+	let realOpex = ZERO;
+	op.opex.forEach((o, k) => (realOpex = realOpex.plus(o.times(prep.priceDeflator.operation[k]))));
+	const annualOpex = realOpex.div(years);
+	return crf.times(prep.capex.realTotal).plus(annualOpex).div(prep.energy.netAepMWh);
+}
+
+/** Flows of a time series with their t, for the IRR. */
+export function timedFlows(series: TimeSeries, constructionTimes: readonly number[]): { t: number; amount: Decimal }[] {
+	return [
+		...series.construction.map((amount, j) => ({ t: constructionTimes[j], amount })),
+		...series.operation.map((amount, k) => ({ t: k + 1, amount }))
+	];
+}
+
+export function internalRate(series: TimeSeries, constructionTimes: readonly number[]): IrrResult {
+	return irrTimed(timedFlows(series, constructionTimes));
+}
+
+/**
+ * Payback in years from COD: the first time the cumulative (undiscounted)
+ * cash flow, summed from the first construction year, stops being negative,
+ * interpolated linearly inside the year it turns.
+ *
+ *     payback = (k - 1) + (-cumulative_{k-1}) / flow_k
+ *
+ * 0 when the cumulative is never negative by COD. Null when it never turns.
+ * Source: common practice (simple payback period).
+ */
+export function paybackYears(series: TimeSeries): Decimal | null {
+	let cumulative = ZERO;
+	for (const v of series.construction) cumulative = cumulative.plus(v);
+	if (cumulative.gte(0)) return ZERO;
+	for (let k = 0; k < series.operation.length; k++) {
+		const flow = series.operation[k];
+		const next = cumulative.plus(flow);
+		if (next.gte(0)) return dec(k).plus(cumulative.neg().div(flow));
+		cumulative = next;
+	}
+	return null;
+}
+
+/**
+ * DSCR_k = CFADS_k / debt service_k over the years with debt service; the
+ * minimum and the (arithmetic) average. Null when there is no debt service.
+ * Source: common practice in project finance.
+ */
+export function coverRatios(cfads: readonly Decimal[], debtService: readonly Decimal[]): { perYear: (Decimal | null)[]; min: Decimal | null; average: Decimal | null } {
+	const perYear = debtService.map((ds, k) => (ds.gt(0) ? cfads[k].div(ds) : null));
+	const present = perYear.filter((d): d is Decimal => d !== null);
+	if (present.length === 0) return { perYear, min: null, average: null };
+	let total = ZERO;
+	for (const d of present) total = total.plus(d);
+	return { perYear, min: Decimal.min(...present), average: total.div(present.length) };
+}
+
+/**
+ * Loan life cover ratio at COD: CFADS over the loan's life, discounted at the
+ * loan rate, over the debt outstanding at COD.
+ *
+ *     LLCR = sum_{k=1}^{tenor} CFADS_k / (1 + r_debt)^k  /  B_COD
+ *
+ * With a constant DSCR (sculpted, no grace) it equals that DSCR. Null when no
+ * debt. Source: common practice in project finance.
+ */
+export function loanLifeCoverRatio(cfads: readonly Decimal[], balanceAtCod: Decimal, rate: DecimalInput, tenorYears: number): Decimal | null {
+	if (balanceAtCod.lte(0)) return null;
+	const v = ONE.div(ONE.plus(dec(rate)));
+	let factor = ONE;
+	let pv = ZERO;
+	for (let k = 0; k < tenorYears; k++) {
+		factor = factor.times(v);
+		pv = pv.plus(cfads[k].times(factor));
+	}
+	return pv.div(balanceAtCod);
+}
