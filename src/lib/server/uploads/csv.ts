@@ -50,8 +50,6 @@ export interface ReadOptions {
 export type GridResult = { ok: true; grid: CsvGrid } | UploadFailure;
 export type TableResult = { ok: true; table: CsvTable } | UploadFailure;
 
-const DELIMITER_NAMES: Record<Delimiter, string> = { ',': 'commas', ';': 'semicolons', '\t': 'tabs' };
-
 /**
  * Picks the delimiter from the first non-blank line, outside quotes: a tab if
  * there is one, else a semicolon, else a comma. Header names never hold tabs
@@ -258,8 +256,4 @@ export function resolveColumns(
 			? [`Ignored ${extra.length === 1 ? 'column' : 'columns'} ${describeHeader(extra)}: not used by this upload.`]
 			: [];
 	return { ok: true, columns: { byName: found, chosen, warnings } };
-}
-
-export function delimiterName(d: Delimiter): string {
-	return DELIMITER_NAMES[d];
 }

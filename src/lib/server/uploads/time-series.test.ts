@@ -105,7 +105,8 @@ describe('parseTimeSeriesCsv: binning and summary', () => {
 	});
 
 	it('refuses a bin width that is not above 0', () => {
-		expect(messages(SMALL, { binWidthMS: 0 })).toEqual(['The bin width must be above 0 m/s, not 0.']);
+		expect(messages(SMALL, { binWidthMS: 0 })).toEqual(['The bin width must be a number above 0 m/s, not 0.']);
+		expect(messages(SMALL, { binWidthMS: 'wide' })).toEqual(['The bin width must be a number above 0 m/s, not wide.']);
 	});
 
 	it('produces a resource the scenario schema accepts unchanged', () => {

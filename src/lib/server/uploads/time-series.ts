@@ -9,10 +9,10 @@
  * two rows at the same instant fail the upload.
  */
 import { Decimal, sum } from '../engine/decimal';
-import { binIndexer, DEFAULT_BIN_WIDTH_M_S } from './binning';
-import { readCsvTable, resolveColumns } from './csv';
+import { binIndexer, DEFAULT_BIN_WIDTH_M_S, type BinIndexer } from './binning';
+import { readCsvTable, resolveColumns, type CsvTable } from './csv';
 import { DEFAULT_MAX_BYTES } from './decode';
-import { numberAt, timestampAt } from './fields';
+import { numberAt, timestampAt, type Column } from './fields';
 import { plain, type SpeedHistogramResource } from './fragments';
 import { ErrorCollector, fileFailure, type UploadResult } from './result';
 
@@ -99,31 +99,11 @@ function median(sortedValues: readonly number[]): number {
 		: (sortedValues[mid - 1] + sortedValues[mid]) / 2;
 }
 
-function lowestSpeedText(samples: readonly Sample[]): string {
-	return samples.reduce((low, s) => (s.speed < low.speed ? s : low), samples[0]).speedText;
-}
-
 function hoursOf(ms: number): Decimal {
 	return new Decimal(ms).div(MS_PER_HOUR);
 }
 
-export function parseTimeSeriesCsv(
-	bytes: Uint8Array,
-	options: TimeSeriesOptions = {}
-): UploadResult<SpeedHistogramResource, TimeSeriesSummary> {
-	const read = readCsvTable(bytes, {
-		maxBytes: options.maxBytes ?? DEFAULT_MAX_BYTES,
-		maxRows: options.maxRows ?? DEFAULT_TIME_SERIES_MAX_ROWS
-	});
-	if (!read.ok) return read;
-	const { table } = read;
-	const resolved = resolveColumns(table, { required: TIME_SERIES_HEADER }, TIME_SERIES_HEADER);
-	if (!resolved.ok) return resolved;
-	const timeColumn = resolved.columns.byName.get('timestamp')!;
-	const speedColumn = resolved.columns.byName.get('speed_m_s')!;
-	const warnings = [...resolved.columns.warnings];
-
-	const errors = new ErrorCollector();
+function readSamples(table: CsvTable, timeColumn: Column, speedColumn: Column, errors: ErrorCollector) {
 	const samples: Sample[] = [];
 	let withoutZone = 0;
 	for (const r of table.rows) {
@@ -139,12 +119,15 @@ export function parseTimeSeriesCsv(
 			speedText: speed.text
 		});
 	}
-	if (errors.hasErrors) return errors.toFailure();
+	return { samples, withoutZone };
+}
 
-	if (samples.length < 2) {
-		return fileFailure('The file has only one measurement; a time series needs at least two to find its sampling interval.');
-	}
-
+/**
+ * Sorts the samples by time when they are not in order, and reports every
+ * repeated instant against the first row with that time, in file order.
+ * Returns the first sample found out of order, or null.
+ */
+function putInTimeOrder(samples: Sample[], timeColumn: Column, errors: ErrorCollector): Sample | null {
 	let firstOutOfOrder: Sample | null = null;
 	for (let i = 1; i < samples.length; i++) {
 		if (samples[i].epochMs < samples[i - 1].epochMs) {
@@ -157,7 +140,6 @@ export function parseTimeSeriesCsv(
 	const repeats: { earlier: Sample; later: Sample }[] = [];
 	for (let i = 1; i < samples.length; i++) {
 		if (samples[i].epochMs !== samples[i - 1].epochMs) continue;
-		// Stable sort keeps equal times in file order; pair each repeat with the first row of its time.
 		let first = i - 1;
 		while (first > 0 && samples[first - 1].epochMs === samples[i].epochMs) first--;
 		repeats.push({ earlier: samples[first], later: samples[i] });
@@ -170,7 +152,114 @@ export function parseTimeSeriesCsv(
 			`"${later.timestampText}" is the same time as row ${earlier.row}; each time may appear only once.`
 		);
 	}
+	return firstOutOfOrder;
+}
+
+/** Median interval and the gaps: intervals over GAP_FACTOR x the median, each missing (interval - median). */
+function samplingStatistics(samples: readonly Sample[]) {
+	const intervals: number[] = new Array(samples.length - 1);
+	for (let i = 1; i < samples.length; i++) intervals[i - 1] = samples[i].epochMs - samples[i - 1].epochMs;
+	const intervalMs = median([...intervals].sort((a, b) => a - b));
+	let gapCount = 0;
+	let gapMs = 0;
+	let longestGapMs = 0;
+	for (const dt of intervals) {
+		if (dt <= GAP_FACTOR * intervalMs) continue;
+		gapCount++;
+		gapMs += dt - intervalMs;
+		longestGapMs = Math.max(longestGapMs, dt - intervalMs);
+	}
+	return { intervalMs, gapCount, gapMs, longestGapMs };
+}
+
+/**
+ * Counts samples per bin and turns counts into hours (count x interval) and
+ * probabilities (count / samples), for every bin from the lowest occupied to
+ * the highest. Hours are (count x interval ms) / ms per hour, one division,
+ * so a year of 10-minute samples is exactly 8760 h.
+ */
+function binSpeeds(samples: readonly Sample[], indexer: BinIndexer, intervalMs: number) {
+	const counts = new Map<number, number>();
+	for (const s of samples) {
+		const k = indexer.indexOf(s.speed, s.speedText);
+		counts.set(k, (counts.get(k) ?? 0) + 1);
+	}
+	const lowest = Math.min(...counts.keys());
+	const highest = Math.max(...counts.keys());
+	const binCount = highest - lowest + 1;
+	if (binCount > MAX_BINS) return { ok: false as const, binCount };
+
+	const n = new Decimal(samples.length);
+	const bins: BinSummary[] = [];
+	const resourceBins: SpeedHistogramResource['bins'] = [];
+	for (let k = lowest; k <= highest; k++) {
+		const count = counts.get(k) ?? 0;
+		const centre = indexer.centreOf(k);
+		const hours = hoursOf(count * intervalMs);
+		bins.push({
+			speedMS: plain(centre),
+			samples: count,
+			hours: plain(hours),
+			probability: plain(new Decimal(count).div(n))
+		});
+		resourceBins.push({ speedMPerS: centre.toNumber(), occurrence: hours.toNumber() });
+	}
+	return { ok: true as const, bins, resourceBins };
+}
+
+function makeIndexer(width: number | string | undefined): BinIndexer | null {
+	try {
+		const indexer = binIndexer(width ?? DEFAULT_BIN_WIDTH_M_S);
+		return indexer.width.isFinite() && indexer.width.greaterThan(0) ? indexer : null;
+	} catch {
+		return null;
+	}
+}
+
+export function parseTimeSeriesCsv(
+	bytes: Uint8Array,
+	options: TimeSeriesOptions = {}
+): UploadResult<SpeedHistogramResource, TimeSeriesSummary> {
+	const indexer = makeIndexer(options.binWidthMS);
+	if (!indexer) return fileFailure(`The bin width must be a number above 0 m/s, not ${options.binWidthMS}.`);
+
+	const read = readCsvTable(bytes, {
+		maxBytes: options.maxBytes ?? DEFAULT_MAX_BYTES,
+		maxRows: options.maxRows ?? DEFAULT_TIME_SERIES_MAX_ROWS
+	});
+	if (!read.ok) return read;
+	const { table } = read;
+	const resolved = resolveColumns(table, { required: TIME_SERIES_HEADER }, TIME_SERIES_HEADER);
+	if (!resolved.ok) return resolved;
+	const timeColumn = resolved.columns.byName.get('timestamp')!;
+	const speedColumn = resolved.columns.byName.get('speed_m_s')!;
+	const warnings = [...resolved.columns.warnings];
+
+	const errors = new ErrorCollector();
+	const { samples, withoutZone } = readSamples(table, timeColumn, speedColumn, errors);
 	if (errors.hasErrors) return errors.toFailure();
+	if (samples.length < 2) {
+		return fileFailure('The file has only one measurement; a time series needs at least two to find its sampling interval.');
+	}
+	const firstOutOfOrder = putInTimeOrder(samples, timeColumn, errors);
+	if (errors.hasErrors) return errors.toFailure();
+
+	const { intervalMs, gapCount, gapMs, longestGapMs } = samplingStatistics(samples);
+	const slowest = samples.reduce((low, s) => (s.speed < low.speed ? s : low), samples[0]);
+	const fastest = samples.reduce((high, s) => (s.speed > high.speed ? s : high), samples[0]);
+	const binned = binSpeeds(samples, indexer, intervalMs);
+	if (!binned.ok) {
+		return fileFailure(
+			`The speeds run from ${slowest.speedText} to ${fastest.speedText} m/s, which would need ` +
+				`${binned.binCount.toLocaleString('en')} bins of ${plain(indexer.width)} m/s (at most ${MAX_BINS}). ` +
+				'Check the speeds are in m/s, not cm/s or mm/s, or choose wider bins.'
+		);
+	}
+
+	const first = samples[0];
+	const last = samples[samples.length - 1];
+	const recordMs = last.epochMs - first.epochMs;
+	const recordDays = new Decimal(recordMs).div(MS_PER_DAY);
 
 	if (firstOutOfOrder) {
 		warnings.push(
@@ -185,79 +274,12 @@ export function parseTimeSeriesCsv(
 			`${withoutZone} timestamps name no time zone and were read as UTC, while the others name theirs; check they agree.`
 		);
 	}
-
-	const intervals: number[] = new Array(samples.length - 1);
-	for (let i = 1; i < samples.length; i++) intervals[i - 1] = samples[i].epochMs - samples[i - 1].epochMs;
-	const intervalMs = median([...intervals].sort((a, b) => a - b));
-
-	let gapCount = 0;
-	let gapMs = 0;
-	let longestGapMs = 0;
-	for (const dt of intervals) {
-		if (dt <= GAP_FACTOR * intervalMs) continue;
-		gapCount++;
-		gapMs += dt - intervalMs;
-		longestGapMs = Math.max(longestGapMs, dt - intervalMs);
-	}
-
-	let indexer;
-	try {
-		indexer = binIndexer(options.binWidthMS ?? DEFAULT_BIN_WIDTH_M_S);
-	} catch {
-		return fileFailure(`The bin width "${options.binWidthMS}" is not a number.`);
-	}
-	if (!indexer.width.isFinite() || indexer.width.lessThanOrEqualTo(0)) {
-		return fileFailure(`The bin width must be above 0 m/s, not ${options.binWidthMS}.`);
-	}
-
-	const counts = new Map<number, number>();
-	let maxSample = samples[0];
-	for (const s of samples) {
-		const k = indexer.indexOf(s.speed, s.speedText);
-		counts.set(k, (counts.get(k) ?? 0) + 1);
-		if (s.speed > maxSample.speed) maxSample = s;
-	}
-	const lowest = Math.min(...counts.keys());
-	const highest = Math.max(...counts.keys());
-	if (highest - lowest + 1 > MAX_BINS) {
-		return fileFailure(
-			`The speeds run from ${lowestSpeedText(samples)} to ${maxSample.speedText} m/s, which would need ` +
-				`${(highest - lowest + 1).toLocaleString('en')} bins of ${plain(indexer.width)} m/s (at most ${MAX_BINS}). ` +
-				'Check the speeds are in m/s, not cm/s or mm/s, or choose wider bins.'
-		);
-	}
-
-	// Hours as (samples x interval ms) / ms per hour: one division, so a year of
-	// 10-minute samples is exactly 8760 h.
-	const hoursOfSamples = (count: number) => hoursOf(count * intervalMs);
-	const n = new Decimal(samples.length);
-	const bins: BinSummary[] = [];
-	const resourceBins: SpeedHistogramResource['bins'] = [];
-	for (let k = lowest; k <= highest; k++) {
-		const count = counts.get(k) ?? 0;
-		const centre = indexer.centreOf(k);
-		const hours = hoursOfSamples(count);
-		bins.push({
-			speedMS: plain(centre),
-			samples: count,
-			hours: plain(hours),
-			probability: plain(new Decimal(count).div(n))
-		});
-		resourceBins.push({ speedMPerS: centre.toNumber(), occurrence: hours.toNumber() });
-	}
-
-	const meanSpeed = sum(samples.map((s) => new Decimal(s.speedText))).div(n);
-	if (maxSample.speed > PLAUSIBLE_MAX_SPEED_M_S) {
+	if (fastest.speed > PLAUSIBLE_MAX_SPEED_M_S) {
 		warnings.push(
-			`The fastest speed is ${maxSample.speedText} m/s (row ${maxSample.row}), faster than any tidal stream ` +
+			`The fastest speed is ${fastest.speedText} m/s (row ${fastest.row}), faster than any tidal stream ` +
 				`(about ${PLAUSIBLE_MAX_SPEED_M_S} m/s at most): check the speeds are in m/s, not cm/s or knots.`
 		);
 	}
-
-	const first = samples[0];
-	const last = samples[samples.length - 1];
-	const recordMs = last.epochMs - first.epochMs;
-	const recordDays = new Decimal(recordMs).div(MS_PER_DAY);
 	if (recordDays.lessThan(SHORT_RECORD_DAYS)) {
 		warnings.push(
 			`The record covers ${recordDays.toDecimalPlaces(1).toFixed()} days, less than a lunar month: ` +
@@ -271,13 +293,13 @@ export function parseTimeSeriesCsv(
 		);
 	}
 
-	const coveredHours = hoursOfSamples(samples.length);
+	const meanSpeed = sum(samples.map((s) => new Decimal(s.speedText))).div(samples.length);
 	// Ratios of whole milliseconds, divided once, so round figures stay round.
 	const recovery = Decimal.min(1, new Decimal(samples.length * intervalMs).div(recordMs + intervalMs));
 
 	return {
 		ok: true,
-		data: { kind: 'speed-histogram', occurrenceBasis: 'hours', bins: resourceBins },
+		data: { kind: 'speed-histogram', occurrenceBasis: 'hours', bins: binned.resourceBins },
 		summary: {
 			sampleCount: samples.length,
 			firstTimestamp: new Date(first.epochMs).toISOString(),
@@ -288,14 +310,14 @@ export function parseTimeSeriesCsv(
 			gapCount,
 			gapTotalHours: plain(hoursOf(gapMs)),
 			longestGapHours: plain(hoursOf(longestGapMs)),
-			coveredHours: plain(coveredHours),
+			coveredHours: plain(hoursOf(samples.length * intervalMs)),
 			dataRecovery: plain(recovery),
 			meanSpeedMS: plain(meanSpeed),
-			maxSpeedMS: plain(new Decimal(maxSample.speedText)),
+			maxSpeedMS: plain(new Decimal(fastest.speedText)),
 			binWidthMS: plain(indexer.width),
 			timestampsReadAsUtc: withoutZone,
 			sorted: firstOutOfOrder !== null,
-			bins
+			bins: binned.bins
 		},
 		warnings
 	};
