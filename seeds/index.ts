@@ -5,8 +5,9 @@
 import type { Knex } from 'knex';
 import { seed as seedDemoWorkspace } from './01_demo_workspace';
 import { seed as seedDemoUsers } from './02_demo_users';
+import { seed as seedDemoScenarios } from './03_demo_scenarios';
 
-const seeds: Array<(knex: Knex) => Promise<void>> = [seedDemoWorkspace, seedDemoUsers];
+const seeds: Array<(knex: Knex) => Promise<void>> = [seedDemoWorkspace, seedDemoUsers, seedDemoScenarios];
 
 export async function runSeeds(knex: Knex): Promise<void> {
 	for (const seed of seeds) await seed(knex);

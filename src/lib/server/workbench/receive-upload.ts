@@ -7,27 +7,13 @@ import type { Knex } from 'knex';
 import { db } from '../db/knex';
 import { storeUpload, type UploadRecord } from '../db/uploads';
 import type { UploadKind } from '../../schemas/workbench';
-import type { UploadError, UploadResult } from '../uploads/result';
-import { parseTimeSeriesCsv } from '../uploads/time-series';
-import { parseSpeedHistogramCsv } from '../uploads/speed-histogram';
-import { parsePowerCurveCsv } from '../uploads/power-curve';
-import { parseSeaStateTableCsv } from '../uploads/sea-state-table';
-import { parsePowerMatrixCsv } from '../uploads/power-matrix';
-import { DEFAULT_MAX_BYTES } from '../uploads/decode';
+import { DEFAULT_MAX_BYTES, UPLOAD_KINDS, type UploadError, type UploadResult } from '../uploads';
 
 /** The largest upload taken in (the parsers refuse anything above it with a named error). */
 export const MAX_UPLOAD_BYTES = DEFAULT_MAX_BYTES;
 
-const parsers: Record<UploadKind, (bytes: Uint8Array) => UploadResult<unknown, unknown>> = {
-	'current-speed-time-series': (bytes) => parseTimeSeriesCsv(bytes),
-	'speed-histogram': (bytes) => parseSpeedHistogramCsv(bytes),
-	'power-curve': (bytes) => parsePowerCurveCsv(bytes),
-	'sea-state-table': (bytes) => parseSeaStateTableCsv(bytes),
-	'power-matrix': (bytes) => parsePowerMatrixCsv(bytes)
-};
-
 export function parseUpload(kind: UploadKind, bytes: Uint8Array): UploadResult<unknown, unknown> {
-	return parsers[kind](bytes);
+	return UPLOAD_KINDS[kind].parse(bytes);
 }
 
 export interface IncomingUpload {

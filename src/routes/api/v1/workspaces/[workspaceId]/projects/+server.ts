@@ -1,20 +1,22 @@
 import { json } from '@sveltejs/kit';
 import { requireWorkspaceRole } from '$lib/server/auth/authorize';
-import { listProjectsInWorkspace } from '$lib/server/db/projects';
+import { createProject, listArchivedProjectsInWorkspace, listProjectsInWorkspace } from '$lib/server/db/projects';
+import { createProjectBody } from '$lib/schemas/workbench';
+import { apiRoute, readJsonBody, validateBody } from '$lib/server/workbench/api-route';
+import { projectJson } from '$lib/server/workbench/serialize';
 import type { RequestHandler } from './$types';
 
-export const GET: RequestHandler = async (event) => {
+/** The workspace's projects; `?archived=1` lists the archived ones instead. */
+export const GET: RequestHandler = apiRoute(async (event) => {
 	const { membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'viewer');
-	const projects = await listProjectsInWorkspace(membership.workspaceId);
-	return json({
-		workspace: { id: membership.workspaceId, name: membership.workspaceName, role: membership.role },
-		projects: projects.map((p) => ({
-			id: p.id,
-			name: p.name,
-			technology: p.technology,
-			siteName: p.site_name,
-			siteDescription: p.site_description,
-			currency: p.currency
-		}))
-	});
-};
+	const archived = event.url.searchParams.get('archived') === '1';
+	const rows = archived ? await listArchivedProjectsInWorkspace(membership.workspaceId) : await listProjectsInWorkspace(membership.workspaceId);
+	return json({ workspace: { id: membership.workspaceId, name: membership.workspaceName, role: membership.role }, projects: rows.map(projectJson) });
+});
+
+export const POST: RequestHandler = apiRoute(async (event) => {
+	const { membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'analyst');
+	const body = validateBody(createProjectBody, await readJsonBody(event.request));
+	const project = await createProject({ workspaceId: membership.workspaceId, ...body });
+	return json({ project: projectJson(project) }, { status: 201 });
+});

@@ -1,0 +1,117 @@
+/**
+ * The frame of every workbench API route: read and validate the body, and
+ * turn every refusal into the one JSON error shape
+ * `{ error: { message, issues: [{ path, message }] } }` (src/lib/server/api.ts).
+ */
+import { isHttpError, isRedirect, json, type RequestEvent } from '@sveltejs/kit';
+import type { z } from 'zod';
+import type { ApiIssue } from '../api';
+import { ArchivedScenarioError, StaleRevisionError } from '../db/scenarios';
+import { parseScenario, type Scenario } from '../../schemas/scenario';
+
+/** A refusal with a status, a message, field issues and any extra facts for the client. */
+export class ApiProblem extends Error {
+	constructor(
+		readonly status: number,
+		message: string,
+		readonly issues: ApiIssue[] = [],
+		readonly details: Record<string, unknown> = {}
+	) {
+		super(message);
+		this.name = 'ApiProblem';
+	}
+}
+
+export function problemResponse(status: number, message: string, issues: ApiIssue[] = [], details: Record<string, unknown> = {}) {
+	return json({ error: { message, issues, ...details } }, { status, headers: { 'cache-control': 'no-store' } });
+}
+
+function responseFor(e: unknown): Response | null {
+	if (e instanceof ApiProblem) return problemResponse(e.status, e.message, e.issues, e.details);
+	if (e instanceof StaleRevisionError) {
+		return problemResponse(409, e.message, [{ path: 'revision', message: `the scenario is now at revision ${e.currentRevision}` }], {
+			currentRevision: e.currentRevision
+		});
+	}
+	if (e instanceof ArchivedScenarioError) return problemResponse(409, e.message);
+	if (isHttpError(e)) return problemResponse(e.status, e.body.message);
+	return null;
+}
+
+/** Wraps a route handler so thrown refusals answer as JSON errors; anything else is a real failure (500). */
+export function apiRoute<E extends RequestEvent>(handler: (event: E) => Promise<Response>): (event: E) => Promise<Response> {
+	return async (event) => {
+		try {
+			const response = await handler(event);
+			response.headers.set('cache-control', 'no-store');
+			return response;
+		} catch (e) {
+			if (isRedirect(e)) throw e;
+			const response = responseFor(e);
+			if (response) return response;
+			throw e;
+		}
+	};
+}
+
+/** `['capex', 'lines', 2, 'amount']` under `document` -> `document.capex.lines[2].amount`. */
+export function issuePath(path: readonly PropertyKey[], prefix = ''): string {
+	let out = prefix;
+	for (const key of path) {
+		if (typeof key === 'number') out += `[${key}]`;
+		else out += out === '' ? String(key) : `.${String(key)}`;
+	}
+	return out === '' ? '(body)' : out;
+}
+
+export function zodIssues(error: z.ZodError, prefix = ''): ApiIssue[] {
+	return error.issues.flatMap((issue) => {
+		if (issue.code === 'unrecognized_keys') {
+			return issue.keys.map((key) => ({ path: issuePath([...issue.path, key], prefix), message: 'this field is not accepted here' }));
+		}
+		return [{ path: issuePath(issue.path, prefix), message: issue.message }];
+	});
+}
+
+/** The request's JSON body; an empty body reads as `{}` when `optional`. */
+export async function readJsonBody(request: Request, options: { optional?: boolean } = {}): Promise<unknown> {
+	const text = await request.text();
+	if (text.trim() === '') {
+		if (options.optional) return {};
+		throw new ApiProblem(400, 'The request needs a JSON body.');
+	}
+	try {
+		return JSON.parse(text);
+	} catch {
+		throw new ApiProblem(400, 'The request body is not valid JSON.');
+	}
+}
+
+export function validateBody<S extends z.ZodType>(schema: S, value: unknown): z.output<S> {
+	const result = schema.safeParse(value);
+	if (result.success) return result.data;
+	throw new ApiProblem(422, 'Some fields need attention.', zodIssues(result.error));
+}
+
+/** A scenario document checked against the schema (and the project's technology), issues under `document.`. */
+export function validateDocument(value: unknown, project: { technology: string }, prefix = 'document'): Scenario {
+	const result = parseScenario(value);
+	if (!result.ok) {
+		const issues = result.issues.map((issue) => ({
+			path: issue.path === '(document)' ? prefix : `${prefix}.${issue.path}`,
+			message: issue.message
+		}));
+		throw new ApiProblem(422, 'The scenario document has problems in the fields listed.', issues);
+	}
+	if (result.scenario.technology !== project.technology) {
+		throw new ApiProblem(422, 'The scenario document has problems in the fields listed.', [
+			{ path: `${prefix}.technology`, message: `this project is ${project.technology}; the document is ${result.scenario.technology}` }
+		]);
+	}
+	return result.scenario;
+}
+
+/** The document with the scenario's name in it (the row's name is the one that counts); anything else as it came. */
+export function withName(document: unknown, name: string): unknown {
+	return document && typeof document === 'object' && !Array.isArray(document) ? { ...document, name } : document;
+}

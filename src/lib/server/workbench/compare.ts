@@ -1,0 +1,73 @@
+/**
+ * Scenarios side by side: each scenario's metrics and its differences from
+ * the base case, in decimal arithmetic on the engine's decimal strings.
+ */
+import { Decimal } from '../engine/decimal';
+import { METRIC_KEYS, METRIC_UNITS, type EngineResult, type MetricKey } from '../engine/evaluate';
+
+export interface CompareEntry {
+	id: string;
+	name: string;
+	revision: number;
+	isBaseCase: boolean;
+	result: EngineResult;
+}
+
+export interface MetricDifference {
+	/** scenario - base case, in the metric's unit. */
+	absolute: string;
+	/** (scenario - base case) / |base case|; null when the base case is 0. */
+	relative: string | null;
+}
+
+export interface ComparedScenario {
+	id: string;
+	name: string;
+	revision: number;
+	isBaseCase: boolean;
+	metrics: Record<MetricKey, string | null>;
+	/** Null for every metric when there is no base case; null for one metric when either side has no value. */
+	differences: Record<MetricKey, MetricDifference | null> | null;
+	warnings: string[];
+}
+
+export interface Comparison {
+	metrics: { key: MetricKey; unit: string }[];
+	baseCase: { id: string; name: string; revision: number; metrics: Record<MetricKey, string | null> } | null;
+	scenarios: ComparedScenario[];
+}
+
+/** Rounded to 10 decimal places, plain notation, like the engine's own strings. */
+function text(d: Decimal): string {
+	return d.toDecimalPlaces(10).toFixed();
+}
+
+export function metricDifference(value: string | null, base: string | null): MetricDifference | null {
+	if (value === null || base === null) return null;
+	const v = new Decimal(value);
+	const b = new Decimal(base);
+	const absolute = v.minus(b);
+	return { absolute: text(absolute), relative: b.isZero() ? null : text(absolute.div(b.abs())) };
+}
+
+export function compareScenarios(entries: readonly CompareEntry[], baseCase: CompareEntry | null): Comparison {
+	const baseMetrics = baseCase?.result.metrics ?? null;
+	return {
+		metrics: METRIC_KEYS.map((key) => ({ key, unit: METRIC_UNITS[key] })),
+		baseCase: baseCase && { id: baseCase.id, name: baseCase.name, revision: baseCase.revision, metrics: baseCase.result.metrics },
+		scenarios: entries.map((entry) => ({
+			id: entry.id,
+			name: entry.name,
+			revision: entry.revision,
+			isBaseCase: entry.isBaseCase,
+			metrics: entry.result.metrics,
+			differences: baseMetrics
+				? (Object.fromEntries(METRIC_KEYS.map((key) => [key, metricDifference(entry.result.metrics[key], baseMetrics[key])])) as Record<
+						MetricKey,
+						MetricDifference | null
+					>)
+				: null,
+			warnings: entry.result.warnings
+		}))
+	};
+}

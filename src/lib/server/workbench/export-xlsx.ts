@@ -1,0 +1,27 @@
+/**
+ * XLSX export with exceljs: one sheet per table (About, Cash flow, Metrics,
+ * Warnings, Cautions), numbers as numeric cells, headers bold and frozen.
+ */
+import ExcelJS from 'exceljs';
+import type { ExportTable } from './export-tables';
+
+function addSheet(workbook: ExcelJS.Workbook, table: ExportTable) {
+	const sheet = workbook.addWorksheet(table.title, { views: [{ state: 'frozen', ySplit: 1 }] });
+	sheet.addRow(table.headers).font = { bold: true };
+	for (const row of table.rows) {
+		sheet.addRow(row.map((cell, i) => (cell !== null && table.numeric[i] ? Number(cell) : cell)));
+	}
+	table.headers.forEach((header, i) => {
+		const longest = Math.max(header.length, ...table.rows.map((r) => String(r[i] ?? '').length));
+		sheet.getColumn(i + 1).width = Math.min(80, Math.max(10, longest + 2));
+	});
+}
+
+export async function tablesToXlsx(tables: readonly ExportTable[], meta: { title: string }): Promise<Uint8Array<ArrayBuffer>> {
+	const workbook = new ExcelJS.Workbook();
+	workbook.creator = 'Tidewright';
+	workbook.title = meta.title;
+	for (const table of tables) addSheet(workbook, table);
+	const buffer = await workbook.xlsx.writeBuffer();
+	return new Uint8Array(buffer as ArrayBuffer);
+}

@@ -1,0 +1,43 @@
+import { json } from '@sveltejs/kit';
+import { isUuid } from '$lib/server/auth/authorize';
+import { getBaseCaseOfProject, getScenariosInProject, listScenariosInProject, type ScenarioRecord } from '$lib/server/db/scenarios';
+import { requireProjectRole } from '$lib/server/workbench/access';
+import { ApiProblem, apiRoute, validateDocument } from '$lib/server/workbench/api-route';
+import { compareScenarios, type CompareEntry } from '$lib/server/workbench/compare';
+import { evaluateDocument } from '$lib/server/workbench/evaluation';
+import type { ProjectRow } from '$lib/server/db/projects';
+import type { RequestHandler } from './$types';
+
+const MAX_COMPARED = 12;
+
+function entryOf(scenario: ScenarioRecord, project: ProjectRow): CompareEntry {
+	const result = evaluateDocument(validateDocument(scenario.document, project, `scenarios[${scenario.id}].document`));
+	return { id: scenario.id, name: scenario.name, revision: scenario.revision, isBaseCase: scenario.isBaseCase, result };
+}
+
+/**
+ * Saved scenarios side by side (`?ids=a,b,c`; without ids, the project's live
+ * scenarios), each with its differences from the project's base case.
+ */
+export const GET: RequestHandler = apiRoute(async (event) => {
+	const { project } = await requireProjectRole(event, event.params.projectId, 'viewer');
+	const idsParam = event.url.searchParams.get('ids');
+	let ids: string[];
+	if (idsParam === null || idsParam.trim() === '') {
+		ids = (await listScenariosInProject(project.id)).slice(0, MAX_COMPARED).map((s) => s.id);
+	} else {
+		ids = [...new Set(idsParam.split(',').map((id) => id.trim()).filter((id) => id !== ''))];
+		const issues = ids.flatMap((id, i) => (isUuid(id) ? [] : [{ path: `ids[${i}]`, message: `"${id}" is not a scenario id` }]));
+		if (ids.length > MAX_COMPARED) issues.push({ path: 'ids', message: `compare at most ${MAX_COMPARED} scenarios at once` });
+		if (issues.length > 0) throw new ApiProblem(422, 'The scenario list has problems.', issues);
+	}
+	const scenarios = await getScenariosInProject(project.id, ids);
+	const found = new Set(scenarios.map((s) => s.id));
+	const missing = ids.flatMap((id, i) => (found.has(id) ? [] : [{ path: `ids[${i}]`, message: 'no such scenario in this project' }]));
+	if (missing.length > 0) throw new ApiProblem(404, 'Some of these scenarios are not in this project.', missing);
+
+	const entries = scenarios.map((s) => entryOf(s, project));
+	const base = entries.find((e) => e.isBaseCase) ?? null;
+	const baseEntry = base ?? (await getBaseCaseOfProject(project.id).then((s) => (s ? entryOf(s, project) : null)));
+	return json({ projectId: project.id, currency: project.currency, ...compareScenarios(entries, baseEntry) });
+});

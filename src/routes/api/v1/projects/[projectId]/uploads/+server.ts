@@ -1,0 +1,33 @@
+import { json } from '@sveltejs/kit';
+import { listUploadsInProject } from '$lib/server/db/uploads';
+import { requireProjectRole } from '$lib/server/workbench/access';
+import { apiRoute, problemResponse } from '$lib/server/workbench/api-route';
+import { receiveUpload } from '$lib/server/workbench/receive-upload';
+import { readUploadForm } from '$lib/server/workbench/upload-form';
+import { uploadJson, uploadSummaryJson } from '$lib/server/workbench/serialize';
+import type { RequestHandler } from './$types';
+
+export const GET: RequestHandler = apiRoute(async (event) => {
+	const { project } = await requireProjectRole(event, event.params.projectId, 'viewer');
+	return json({ uploads: (await listUploadsInProject(project.id)).map(uploadSummaryJson) });
+});
+
+/**
+ * Multipart `kind` + `file`. A file with any bad row answers 422 with every
+ * row and column error (issues with `row` and `column`) and stores nothing;
+ * a good file is stored with its parsed data, answered as the preview.
+ */
+export const POST: RequestHandler = apiRoute(async (event) => {
+	const { project, user } = await requireProjectRole(event, event.params.projectId, 'analyst');
+	const form = await readUploadForm(event.request);
+	const received = await receiveUpload({ projectId: project.id, userId: user.id, ...form });
+	if (!received.ok) {
+		const count = received.errors.length;
+		return problemResponse(
+			422,
+			`The file was not saved: ${count === 1 ? 'it has a problem' : `it has ${count} problems`}. Fix ${count === 1 ? 'it' : 'them'} and upload it again.`,
+			received.errors.map((e) => ({ path: 'file', message: e.message, row: e.row, column: e.column }))
+		);
+	}
+	return json({ upload: uploadJson(received.upload) }, { status: 201 });
+});

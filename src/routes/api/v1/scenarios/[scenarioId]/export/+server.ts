@@ -1,0 +1,38 @@
+import { requireScenarioRole } from '$lib/server/workbench/access';
+import { ApiProblem, apiRoute } from '$lib/server/workbench/api-route';
+import { evaluateDocument, loadScenario } from '$lib/server/workbench/evaluation';
+import { validateDocument } from '$lib/server/workbench/api-route';
+import { buildExport, csvTables, exportFormats, type CsvTableName, type ExportFormat } from '$lib/server/workbench/export';
+import type { RequestHandler } from './$types';
+
+/**
+ * The saved scenario's results as a file: `?format=xlsx` (every table, a
+ * sheet each, cautions on their own sheet) or `?format=csv` (the cash-flow
+ * table, or `&table=metrics`, the cautions after a blank line).
+ */
+export const GET: RequestHandler = apiRoute(async (event) => {
+	const { project, scenarioId } = await requireScenarioRole(event, event.params.scenarioId, 'viewer');
+	const format = event.url.searchParams.get('format') ?? 'xlsx';
+	const table = event.url.searchParams.get('table') ?? 'cash-flow';
+	if (!(exportFormats as readonly string[]).includes(format)) {
+		throw new ApiProblem(422, 'Choose an export format.', [{ path: 'format', message: `format must be ${exportFormats.join(' or ')}` }]);
+	}
+	if (!(csvTables as readonly string[]).includes(table)) {
+		throw new ApiProblem(422, 'Choose a table to export.', [{ path: 'table', message: `table must be ${csvTables.join(' or ')}` }]);
+	}
+	const scenario = await loadScenario(scenarioId);
+	const result = evaluateDocument(validateDocument(scenario.document, project));
+	const file = await buildExport(
+		result,
+		{ projectName: project.name, scenarioName: scenario.name, revision: scenario.revision, generatedAt: new Date() },
+		format as ExportFormat,
+		table as CsvTableName
+	);
+	return new Response(file.body, {
+		headers: {
+			'content-type': file.contentType,
+			'content-disposition': `attachment; filename="${file.fileName}"`,
+			'content-length': String(file.body.byteLength)
+		}
+	});
+});

@@ -1,0 +1,20 @@
+import { json } from '@sveltejs/kit';
+import { defaultDrivers, tornado } from '$lib/server/engine/sensitivity';
+import { requireScenarioRole } from '$lib/server/workbench/access';
+import { apiRoute, readJsonBody, validateBody } from '$lib/server/workbench/api-route';
+import { documentToEvaluate, runEngine } from '$lib/server/workbench/evaluation';
+import { tornadoBody } from '$lib/server/workbench/sensitivity-body';
+import type { RequestHandler } from './$types';
+
+/**
+ * Tornado rows for one metric: `{ metric, drivers: [{ driver, low, high }] }`;
+ * without drivers, the usual screening ranges. A draft `document` needs the analyst role.
+ */
+export const POST: RequestHandler = apiRoute(async (event) => {
+	const access = await requireScenarioRole(event, event.params.scenarioId, 'viewer');
+	const body = validateBody(tornadoBody, await readJsonBody(event.request, { optional: true }));
+	const { document, source, scenario } = await documentToEvaluate(access, body.document);
+	const drivers = body.drivers ?? defaultDrivers(document);
+	const result = runEngine(() => tornado(document, drivers, body.metric));
+	return json({ scenarioId: scenario.id, revision: scenario.revision, source, drivers, tornado: result });
+});
