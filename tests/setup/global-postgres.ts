@@ -4,22 +4,10 @@
  * Each integration test file then makes its own database (tests/helpers/db.ts).
  */
 import { mkdtempSync, mkdirSync } from 'node:fs';
-import { createServer } from 'node:net';
+import { freePort } from '../helpers/free-port';
 import type {} from 'vitest';
 import type { TestProject } from 'vitest/node';
 import { removeCluster, startCluster, type ClusterSettings } from '../../docker-local/postgres';
-
-async function freePort(): Promise<number> {
-	return new Promise((resolve, reject) => {
-		const server = createServer();
-		server.once('error', reject);
-		server.listen(0, '127.0.0.1', () => {
-			const address = server.address();
-			const port = typeof address === 'object' && address ? address.port : 0;
-			server.close(() => resolve(port));
-		});
-	});
-}
 
 declare module 'vitest' {
 	export interface ProvidedContext {
