@@ -93,5 +93,6 @@ export function powerCurveKW(points: PowerCurveSpec['points'], speedMPerS: Decim
 /** Rated power per device (kW): given, or the curve's maximum. */
 export function flowDeviceRatedPowerKW(device: RotorSpec | PowerCurveSpec): Decimal {
 	if (device.ratedPowerKW !== undefined) return dec(device.ratedPowerKW);
+	if (device.kind === 'rotor') return dec(device.ratedPowerKW);
 	return dec(Math.max(...device.points.map((p) => p.powerKW)));
 }

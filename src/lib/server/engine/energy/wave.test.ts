@@ -44,7 +44,7 @@ describe('powerMatrixKW', () => {
 		expect(powerMatrixKW(matrix, te, 2.4, 8.5)!.toString()).toBe('90');
 		expect(powerMatrixKW(matrix, te, 2.6, 7)).toBeNull();
 		expect(powerMatrixKW(matrix, te, 1.5, 4.9)).toBeNull();
-		expect(powerMatrixRatedPowerKW({ kind: 'power-matrix', periodType: 'energy-period', teOverTp: 0.9, hsM: [1, 2], periodS: te, ...matrix }).toString()).toBe('90');
+		expect(powerMatrixRatedPowerKW({ kind: 'power-matrix', periodType: 'energy-period', teOverTp: 0.9, periodS: te, ...matrix }).toString()).toBe('90');
 	});
 });
 

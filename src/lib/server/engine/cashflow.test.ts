@@ -1,0 +1,54 @@
+import { describe, expect, it } from 'vitest';
+import { sum } from './decimal';
+import { atbCase } from './testing/fixtures';
+import { evaluateDetailed } from './evaluate';
+
+describe('financeCase and the cash-flow identities', () => {
+	const s = atbCase({
+		timeline: { constructionYears: 2, operatingYears: 20 },
+		decommissioning: { basis: 'lump-sum', amount: 3_000_000 },
+		revenue: { tariffPerMWh: 200, grants: [{ name: 'g', basis: 'percent-of-capex', amount: 0.2 }] },
+		finance: {
+			inflation: 0.02,
+			taxRate: 0.25,
+			depreciation: { method: 'straight-line', lifeYears: 15 },
+			debt: { sizing: 'target-dscr', targetDscr: 1.4, maxGearing: 0.75, interestRate: 0.065, tenorYears: 14, graceYears: 1, upfrontFee: 0.015, repayment: 'sculpted' }
+		}
+	});
+	const d = evaluateDetailed(s);
+	const { prep, operating: op, financing: fin } = d;
+
+	it('keeps CFADS = EBITDA - decommissioning - tax and equity = CFADS - debt service', () => {
+		op.ebitda.forEach((e, k) => {
+			expect(fin.cfads[k].eq(e.minus(op.decommissioning[k]).minus(fin.tax[k]))).toBe(true);
+			expect(fin.equity.operation[k].eq(fin.cfads[k].minus(fin.debtService[k]))).toBe(true);
+		});
+	});
+
+	it('charges tax on EBITDA less depreciation, decommissioning and the interest actually paid', () => {
+		op.ebitda.forEach((e, k) => {
+			const taxable = e.minus(prep.depreciation[k]).minus(op.decommissioning[k]).minus(fin.interest[k]);
+			expect(fin.taxableIncome[k].eq(taxable)).toBe(true);
+		});
+		// Depreciation writes off capex net of grants over 15 years (SLN).
+		expect(sum(prep.depreciation).minus(sum(prep.fundingNeed)).abs().toNumber()).toBeLessThan(1e-12);
+		expect(prep.depreciation[15].toString()).toBe('0');
+	});
+
+	it('funds construction with debt draws and equity, the fee paid at financial close', () => {
+		const debt = fin.debt!;
+		prep.fundingNeed.forEach((f, j) => {
+			const fee = j === 0 ? debt.upfrontFee : 0;
+			expect(fin.equity.construction[j].plus(f).minus(debt.draws[j]).plus(fee).abs().toNumber()).toBeLessThan(1e-12);
+		});
+		expect(debt.upfrontFee.eq(debt.balanceAtCod.times(0.015))).toBe(true);
+	});
+
+	it('settles the tax-interest circle: interest is the loan rows, DSCR is the target after grace', () => {
+		expect(fin.debt!.sizedBy).toBe('target-dscr');
+		fin.interest.forEach((i, k) => expect(i.eq(fin.debt!.rows[k].interest)).toBe(true));
+		for (let k = 1; k < 14; k++) expect(d.dscr[k]!.minus(1.4).abs().toNumber()).toBeLessThan(1e-9);
+		expect(op.decommissioning[19].toNumber()).toBeCloseTo(3_000_000 * 1.02 ** 20, 4);
+		expect(d.warnings).toEqual([]);
+	});
+});
