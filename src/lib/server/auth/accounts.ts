@@ -51,6 +51,8 @@ export async function signUp(
 
 	const passwordHash = await hashPassword(input.password);
 	let userId: string;
+	// The address as stored (lower case): the verification token must carry the same one.
+	let email: string;
 	try {
 		const user = await createUser({
 			email: input.email,
@@ -59,6 +61,7 @@ export async function signUp(
 			emailVerified: options.emailAlreadyVerified
 		});
 		userId = user.id;
+		email = user.email;
 	} catch (error) {
 		if (isUniqueViolation(error)) {
 			return { ok: false, errors: { email: 'An account with this e-mail already exists. Sign in, or reset its password.' } };
@@ -70,8 +73,8 @@ export async function signUp(
 		const workspace = await createWorkspaceWithOwner(input.workspaceName?.trim() || `${input.name.trim()}’s workspace`, userId);
 		workspaceId = workspace.id;
 	}
-	await recordAuditEvent({ event: 'sign-up', actorUserId: userId, actorEmail: input.email, ip: context.ip, workspaceId });
-	if (!options.emailAlreadyVerified) await sendVerificationMail(userId, input.email, input.name, context.origin);
+	await recordAuditEvent({ event: 'sign-up', actorUserId: userId, actorEmail: email, ip: context.ip, workspaceId });
+	if (!options.emailAlreadyVerified) await sendVerificationMail(userId, email, input.name, context.origin);
 
 	const sessionToken = generateSessionToken();
 	const session = await createSession(sessionToken, userId, { ...context, workspaceId });
