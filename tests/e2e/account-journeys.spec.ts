@@ -1,3 +1,4 @@
+import { openPage } from './helpers/page';
 import { expect, test } from '@playwright/test';
 import { firstLinkIn, latestMailTo } from './helpers/mail';
 import { signInPage } from './helpers/session';
@@ -10,7 +11,7 @@ test('sign up, verify from the mail, sign out, forget the password, reset it fro
 	const firstPassword = 'brine shrimp lantern 42';
 	const secondPassword = 'copper kettle drift 77';
 
-	await page.goto('/signup');
+	await openPage(page, '/signup');
 	await page.getByLabel('Your name').fill('Nerys Alder');
 	await page.getByLabel('E-mail').fill(email);
 	await page.getByLabel('Password').fill('short');
@@ -27,10 +28,10 @@ test('sign up, verify from the mail, sign out, forget the password, reset it fro
 	await expect(page.getByText('Confirm your e-mail address')).toBeVisible();
 
 	const verification = await latestMailTo(email, 'Confirm your e-mail');
-	await page.goto(firstLinkIn(verification.text, '/verify-email/'));
+	await openPage(page, firstLinkIn(verification.text, '/verify-email/'));
 	await page.getByRole('button', { name: 'Confirm my address' }).click();
 	await expect(page.getByText('your address is confirmed')).toBeVisible();
-	await page.goto('/app');
+	await openPage(page, '/app');
 	await expect(page.getByText('Confirm your e-mail address')).toHaveCount(0);
 
 	await page.getByRole('button', { name: 'Sign out' }).click();
@@ -43,16 +44,16 @@ test('sign up, verify from the mail, sign out, forget the password, reset it fro
 
 	const reset = await latestMailTo(email, 'new Tidewright password');
 	const resetLink = firstLinkIn(reset.text, '/reset-password/');
-	await page.goto(resetLink);
+	await openPage(page, resetLink);
 	await page.getByLabel('New password').fill(secondPassword);
 	await page.getByRole('button', { name: 'Save the new password' }).click();
 	await expect(page.getByText('Your password is changed.')).toBeVisible();
 
 	// The link works once.
-	await page.goto(resetLink);
+	await openPage(page, resetLink);
 	await expect(page.getByRole('alert')).toContainText('already been used');
 
-	await page.goto('/signin');
+	await openPage(page, '/signin');
 	await page.getByLabel('E-mail').fill(email);
 	await page.getByLabel('Password').fill(firstPassword);
 	await page.getByRole('button', { name: 'Sign in' }).click();
@@ -64,7 +65,7 @@ test('sign up, verify from the mail, sign out, forget the password, reset it fro
 });
 
 test('sign-in answers the same words for an unknown address and a wrong password', async ({ page }) => {
-	await page.goto('/signin');
+	await openPage(page, '/signin');
 	await page.getByLabel('E-mail').fill(uniqueEmail('nobody'));
 	await page.getByLabel('Password').fill('whatever it may be 123');
 	await page.getByRole('button', { name: 'Sign in' }).click();
@@ -90,7 +91,7 @@ test('an owner invites an analyst, who accepts with a new account and sees the w
 	const mail = await latestMailTo(invitee, 'invited you to Halvard Marine Energy');
 	const inviteeContext = await browser.newContext();
 	const guest = await inviteeContext.newPage();
-	await guest.goto(firstLinkIn(mail.text, '/invite/'));
+	await openPage(guest, firstLinkIn(mail.text, '/invite/'));
 	await expect(guest.getByText('as an analyst')).toBeVisible();
 	await guest.getByLabel('Your name').fill('Petra Lune');
 	await guest.getByLabel('Password').fill('harbour seal morning 9');

@@ -5,6 +5,7 @@
 import { expect, type APIRequestContext, type Browser, type Page } from '@playwright/test';
 import { request as playwrightRequest } from '@playwright/test';
 import { demoUsers, type DemoPersona } from '../../../seeds/02_demo_users';
+import { openPage } from './page';
 
 export type Persona = DemoPersona | 'anonymous';
 
@@ -27,7 +28,7 @@ export async function signedInRequest(
 
 export async function signInPage(page: Page, persona: DemoPersona) {
 	const user = demoUsers[persona];
-	await page.goto('/signin');
+	await openPage(page, '/signin');
 	await page.getByLabel('E-mail').fill(user.email);
 	await page.getByLabel('Password').fill(user.password);
 	await page.getByRole('button', { name: 'Sign in' }).click();
