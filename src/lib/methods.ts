@@ -73,3 +73,10 @@ export function methodHref(metricKey: string): string {
 export function isMethodSlug(value: string): value is MethodSlug {
 	return METHOD_NOTES.some((note) => note.slug === value);
 }
+
+/** The metric keys whose figures a note explains, in the engine's order. */
+export function metricKeysOfNote(slug: string): string[] {
+	return Object.entries(METRIC_METHODS)
+		.filter(([, noteSlug]) => noteSlug === slug)
+		.map(([key]) => key);
+}

@@ -1,0 +1,8 @@
+import { requireUser } from '$lib/server/auth/authorize';
+import { listMethodNotes } from '$lib/server/methods/notes';
+import type { PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	requireUser(event);
+	return { notes: listMethodNotes() };
+};
