@@ -21,7 +21,7 @@ const siblingNote = /^(?:\.\/)?([a-z0-9]+(?:-[a-z0-9]+)*)\.md(#[\w-]*)?$/;
 const defaultLinkOpen = markdown.renderer.rules.link_open ?? ((tokens, idx, options, _env, self) => self.renderToken(tokens, idx, options));
 markdown.renderer.rules.link_open = (tokens, idx, options, env, self) => {
 	const token = tokens[idx];
-	const href = token.attrGet('href') ?? '';
+	const href = String(token.attrGet('href') ?? '');
 	const sibling = siblingNote.exec(href);
 	if (sibling) token.attrSet('href', methodNoteHref(sibling[1]) + (sibling[2] ?? ''));
 	else if (/^https?:\/\//i.test(href)) token.attrSet('rel', 'noopener noreferrer');
