@@ -31,7 +31,10 @@ export const updateProjectBody = z
 		siteDescription: z.string().trim().max(4000).optional(),
 		currency: currency.optional()
 	})
-	.refine((body) => Object.values(body).some((v) => v !== undefined), { message: 'nothing to change: give at least one field' });
+	.refine((body) => Object.values(body).some((v) => v !== undefined), {
+		message: 'nothing to change: give at least one field',
+		when: (payload) => payload.issues.length === 0
+	});
 export type UpdateProjectBody = z.output<typeof updateProjectBody>;
 
 const scenarioName = z.string().trim().min(1, 'give the scenario a name').max(200);
@@ -56,7 +59,8 @@ export const updateScenarioBody = z
 		document: z.unknown().optional()
 	})
 	.refine((body) => body.name !== undefined || body.notes !== undefined || body.document !== undefined, {
-		message: 'nothing to save: give name, notes or document'
+		message: 'nothing to save: give name, notes or document',
+		when: (payload) => payload.issues.length === 0
 	});
 
 export const duplicateScenarioBody = z.strictObject({

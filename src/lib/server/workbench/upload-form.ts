@@ -38,9 +38,8 @@ export async function readUploadForm(request: Request): Promise<UploadForm> {
 
 	if (file.size > MAX_UPLOAD_BYTES) {
 		const mb = (n: number) => `${(n / (1024 * 1024)).toFixed(1)} MB`;
-		throw new ApiProblem(413, `The file is ${mb(file.size)}, over the ${mb(MAX_UPLOAD_BYTES)} limit for uploads. Split it into smaller files or average it to a longer interval.`, [
-			{ path: 'file', message: 'too large' }
-		]);
+		const message = `The file is ${mb(file.size)}, over the ${mb(MAX_UPLOAD_BYTES)} limit for uploads. Split it into smaller files or average it to a longer interval.`;
+		throw new ApiProblem(413, message, [{ path: 'file', message }]);
 	}
 	const fileName = (file.name || 'upload.csv').replace(/[\u0000-\u001f\u007f]/g, '').slice(0, MAX_FILE_NAME);
 	return { kind: kind.data, fileName, contentType: file.type.slice(0, 200), bytes: new Uint8Array(await file.arrayBuffer()) };
