@@ -5,6 +5,7 @@ import { estimateEnergy } from './energy/yield';
 import { operate, prepareCase } from './cashflow';
 import { flatRealPricePath } from './revenue';
 import { solveBreakevenTariff } from './breakeven';
+import { Decimal } from './decimal';
 
 describe('solveBreakevenTariff', () => {
 	it('finds the flat real tariff with zero post-tax NPV, also with inflation', () => {
@@ -25,5 +26,23 @@ describe('solveBreakevenTariff', () => {
 		const s = atbCase({ array: { availability: 0 } });
 		const solved = solveBreakevenTariff(prepareCase(s, estimateEnergy(s)));
 		expect(solved.tariffPerMWh).toBeNull();
+	});
+});
+
+describe('flatTariffNpv', () => {
+	it('gives the NPV of the full cash-flow pass at any flat tariff', async () => {
+		const { flatTariffNpv } = await import('./breakeven');
+		const s = atbCase({
+			opex: { lines: [{ name: 'lease', basis: 'percent-of-revenue', fraction: 0.04 }, { name: 'om', basis: 'per-MWh', amount: 20 }] },
+			decommissioning: { basis: 'lump-sum', amount: 5e6 },
+			timeline: { constructionYears: 2 },
+			finance: { inflation: 0.02, taxRate: 0.3, depreciation: { method: 'declining-balance', lifeYears: 10 } }
+		});
+		const prep = prepareCase(s, estimateEnergy(s));
+		const fast = flatTariffNpv(prep);
+		for (const p of [0, 120, 250, 400]) {
+			const full = operate(prep, flatRealPricePath(new Decimal(p), prep.priceIndex.operation)).npv;
+			expect(fast(new Decimal(p)).minus(full).abs().toNumber()).toBeLessThan(1e-15);
+		}
 	});
 });

@@ -3,10 +3,42 @@
  * (indexed to inflation), at which the project's post-tax NPV at the discount
  * rate is zero.
  */
-import { dec, Decimal } from './decimal';
+import { dec, Decimal, ONE, ZERO } from './decimal';
 import { solveRoot } from './finance/roots';
-import { operate, type CasePreparation } from './cashflow';
-import { flatRealPricePath } from './revenue';
+import type { CasePreparation } from './cashflow';
+import { corporateTax } from './tax';
+
+/**
+ * Post-tax project NPV at COD as a function of a flat real tariff p: the
+ * numbers of cashflow.operate, with everything that does not move with p
+ * computed once.
+ *
+ *     EBITDA_k(p) = p x E_k x (1 + i)^k x (1 - revenue-share opex) - other opex_k
+ *     NPV(p) = -sum_j F_j DF_j + sum_k DF_k (EBITDA_k(p) - decommissioning_k - tax_k(p))
+ */
+export function flatTariffNpv(prep: CasePreparation): (pricePerMWh: Decimal) => Decimal {
+	const { finance } = prep.scenario;
+	const df = prep.nominalDiscountFactors;
+	const n = prep.timeline.operatingYears;
+	const keep = ONE.minus(prep.opex.revenueShare);
+	const netRevenuePerUnitPrice = prep.energyMWh.map((e, k) => e.times(prep.priceIndex.operation[k]).times(keep));
+	const decommissioning = Array.from({ length: n }, (_, k) => (k === n - 1 ? prep.decommissioning : ZERO));
+	const cashCosts = prep.opex.revenueIndependent.map((o, k) => o.plus(decommissioning[k]));
+	const deductions = cashCosts.map((c, k) => c.plus(prep.depreciation[k]));
+	let constructionValue = ZERO;
+	prep.fundingNeed.forEach((f, j) => (constructionValue = constructionValue.minus(f.times(df.construction[j]))));
+	return (price) => {
+		const revenue = netRevenuePerUnitPrice.map((u) => u.times(price));
+		const tax = corporateTax(
+			revenue.map((r, k) => r.minus(deductions[k])),
+			finance.taxRate,
+			finance.taxLossCarryForward
+		).tax;
+		let value = constructionValue;
+		revenue.forEach((r, k) => (value = value.plus(r.minus(cashCosts[k]).minus(tax[k]).times(df.operation[k]))));
+		return value;
+	};
+}
 
 export type BreakevenResult = { tariffPerMWh: Decimal; evaluations: number } | { tariffPerMWh: null; evaluations: number; reason: string };
 
@@ -25,9 +57,10 @@ const MAX_SECANT_STEPS = 12;
  */
 export function solveBreakevenTariff(prep: CasePreparation, guessPerMWh: Decimal | null = null): BreakevenResult {
 	let evaluations = 0;
+	const npv = flatTariffNpv(prep);
 	const npvAt = (p: Decimal) => {
 		evaluations++;
-		return operate(prep, flatRealPricePath(p, prep.priceIndex.operation)).npv;
+		return npv(p);
 	};
 	if (prep.energy.netAepMWh.isZero()) return { tariffPerMWh: null, evaluations, reason: 'no energy is produced, so no tariff can pay for the project' };
 

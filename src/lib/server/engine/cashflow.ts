@@ -168,26 +168,31 @@ const MAX_TAX_ITERATIONS = 40;
  *     equity_k  = CFADS_k - debt service_k                                   (t = k)
  *
  * Interest lowers tax, which raises CFADS, which (for DSCR sizing or sculpting)
- * changes the debt: the circle is closed by fixed-point iteration until the
- * interest moves by less than 1e-9 currency units (it contracts by roughly
- * tax rate x interest rate per round). Source: common practice.
+ * changes the debt: the circle is closed by fixed-point iteration, with an
+ * Aitken-style jump once the steps shrink geometrically, until the interest
+ * moves by less than 1e-10 of the debt amount (it contracts by roughly
+ * tax rate x interest rate per round). Only the loan's years take part: tax
+ * losses carry forward, never back, so later years cannot change the debt.
+ * Source: common practice.
  */
 export function financeCase(prep: CasePreparation, op: OperatingResult): FinancingResult {
 	const { finance } = prep.scenario;
 	const n = prep.timeline.operatingYears;
 	const warnings: string[] = [];
 	const preInterest = op.ebitda.map((e, k) => e.minus(prep.depreciation[k]).minus(op.decommissioning[k]));
+	const cashBeforeTax = op.ebitda.map((e, k) => e.minus(op.decommissioning[k]));
+	/** Tax with the given interest over the first interest.length years. */
 	const taxFor = (interest: readonly Decimal[]) => {
-		const taxableIncome = preInterest.map((v, k) => v.minus(interest[k]));
+		const taxableIncome = interest.map((i, k) => preInterest[k].minus(i));
 		return { taxableIncome, ...corporateTax(taxableIncome, finance.taxRate, finance.taxLossCarryForward) };
 	};
-	const cfadsFor = (tax: readonly Decimal[]) => op.ebitda.map((e, k) => e.minus(op.decommissioning[k]).minus(tax[k]));
+	const cfadsFor = (tax: readonly Decimal[]) => tax.map((t, k) => cashBeforeTax[k].minus(t));
 
 	const terms = finance.debt;
 	if (terms.sizing === 'none') {
-		const taxed = taxFor(op.ebitda.map(() => ZERO));
+		const zeros = op.ebitda.map(() => ZERO);
+		const taxed = taxFor(zeros);
 		const cfads = cfadsFor(taxed.tax);
-		const zeros = cfads.map(() => ZERO);
 		return {
 			debt: null,
 			interest: zeros,
@@ -201,31 +206,34 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 		};
 	}
 
-	let interest: Decimal[] = op.ebitda.map(() => ZERO);
-	let taxed = taxFor(interest);
-	let cfads = cfadsFor(taxed.tax);
+	const span = terms.tenorYears;
+	let interest: Decimal[] = Array.from({ length: span }, () => ZERO);
+	let cfads = cfadsFor(taxFor(interest).tax);
 	let debt = structureDebt({ terms, fundingNeed: prep.fundingNeed, cfads, operatingYears: n });
-	let converged = false;
+	// Gearing-sized annuity or straight-line debt does not depend on CFADS: one pass settles it.
+	const dependsOnCfads = terms.sizing === 'target-dscr' || terms.repayment === 'sculpted';
+	let converged = !dependsOnCfads;
 	let previousMove: Decimal | null = null;
-	for (let round = 0; round < MAX_TAX_ITERATIONS; round++) {
-		const implied = debt.rows.map((r) => r.interest);
-		const move = implied.reduce((m, v, k) => Decimal.max(m, v.minus(interest[k]).abs()), ZERO);
-		const tolerance = Decimal.max(1e-6, debt.balanceAtCod.times(1e-10));
-		if (move.lt(tolerance)) {
-			interest = implied;
+	for (let round = 0; !converged && round < MAX_TAX_ITERATIONS; round++) {
+		const implied = debt.rows.slice(0, span).map((r) => r.interest);
+		let move = ZERO;
+		implied.forEach((v, k) => (move = Decimal.max(move, v.minus(interest[k]).abs())));
+		if (move.lt(Decimal.max(1e-6, debt.balanceAtCod.times(1e-10)))) {
 			converged = true;
-		} else if (previousMove && previousMove.gt(0) && move.div(previousMove).lt(0.5)) {
+			break;
+		}
+		if (previousMove && previousMove.gt(0) && move.div(previousMove).lt(0.5)) {
 			// Geometric convergence at ratio q: jump ahead by q / (1 - q) of the last step (Aitken-style).
 			const q = move.div(previousMove);
 			const ahead = q.div(ONE.minus(q));
 			interest = implied.map((v, k) => v.plus(v.minus(interest[k]).times(ahead)));
 		} else interest = implied;
 		previousMove = move;
-		taxed = taxFor(interest);
-		cfads = cfadsFor(taxed.tax);
-		if (converged) break;
+		cfads = cfadsFor(taxFor(interest).tax);
 		debt = structureDebt({ terms, fundingNeed: prep.fundingNeed, cfads, operatingYears: n });
 	}
+	const taxed = taxFor(debt.rows.map((r) => r.interest));
+	cfads = cfadsFor(taxed.tax);
 	if (!converged) warnings.push('The debt and tax calculation did not settle; debt figures may be slightly off.');
 	warnings.push(...debt.warnings);
 
@@ -235,7 +243,7 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 	});
 	return {
 		debt,
-		interest,
+		interest: debt.rows.map((r) => r.interest),
 		principal: debt.rows.map((r) => r.principal),
 		debtService: debt.debtService,
 		closingBalance: debt.rows.map((r) => r.closing),

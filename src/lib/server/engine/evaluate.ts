@@ -73,43 +73,58 @@ export type EvaluateOptions = {
 	breakeven?: boolean;
 };
 
-/** The evaluation with decimals, for the engine's own callers (sensitivity, tests). */
-export function evaluateDetailed(scenario: Scenario, options: EvaluateOptions = {}): DetailedEvaluation {
+/** Metrics that need the debt and levered-tax pass. */
+const FINANCING_METRICS = new Set<MetricKey>(['equityIrr', 'minDscr', 'avgDscr', 'llcr', 'debtAmount']);
+
+type Computed = Omit<DetailedEvaluation, 'financing'> & { financing: FinancingResult | null };
+
+/** Runs the stages the wanted metrics need; metrics not wanted are null without a warning. */
+function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlySet<MetricKey>): Computed {
 	const energy = options.energy ?? estimateEnergy(scenario);
 	const prep = prepareCase(scenario, energy);
 	const prices = nominalPricePath(scenario.revenue, scenario.finance.inflation, prep.priceIndex.operation);
 	const operating = operate(prep, prices);
-	const financing = financeCase(prep, operating);
-	const warnings = [...energy.warnings, ...prep.warnings, ...financing.warnings];
+	const needsFinancing = [...wanted].some((m) => FINANCING_METRICS.has(m));
+	const financing = needsFinancing ? financeCase(prep, operating) : null;
+	const warnings = [...energy.warnings, ...prep.warnings, ...(financing?.warnings ?? [])];
 	const note = (metric: MetricKey, reason: string) => warnings.push(`${metric} is not available: ${reason}.`);
+	const want = (m: MetricKey) => wanted.has(m);
 
 	const lcoe = discountedLcoe(prep, operating);
-	const lcoeFcr = fixedChargeRateLcoe(prep, operating);
-	if (lcoe.real === null) note('lcoeReal', 'no energy is produced');
+	if (lcoe.real === null && want('lcoeReal')) note('lcoeReal', 'no energy is produced');
 
 	const times = prep.timeline.constructionTimes;
 	const irrOf = (metric: MetricKey, series: typeof operating.projectPreTax) => {
+		if (!want(metric)) return null;
 		const result = internalRate(series, times);
 		if (result.rate === null) note(metric, result.reason);
 		return result.rate;
 	};
-	const projectIrrPreTax = irrOf('projectIrrPreTax', operating.projectPreTax);
-	const projectIrrPostTax = irrOf('projectIrrPostTax', operating.projectPostTax);
-	const equityIrr = irrOf('equityIrr', financing.equity);
 
-	const payback = paybackYears(operating.projectPostTax);
-	if (payback === null) note('paybackYears', 'the cumulative post-tax cash flow never turns positive');
+	let payback: Decimal | null = null;
+	if (want('paybackYears')) {
+		payback = paybackYears(operating.projectPostTax);
+		if (payback === null) note('paybackYears', 'the cumulative post-tax cash flow never turns positive');
+	}
 
-	const cover = coverRatios(financing.cfads, financing.debtService);
-	const debt = financing.debt;
-	const terms = scenario.finance.debt;
-	const llcr = debt && terms.sizing !== 'none' ? loanLifeCoverRatio(financing.cfads, debt.balanceAtCod, terms.interestRate, terms.tenorYears) : null;
-	if (cover.min === null) note('minDscr', 'there is no debt service');
-	if (llcr === null) note('llcr', 'there is no debt');
+	let cover: ReturnType<typeof coverRatios> = { perYear: [], min: null, average: null };
+	let llcr: Decimal | null = null;
+	const debt = financing?.debt ?? null;
+	if (financing) {
+		cover = coverRatios(financing.cfads, financing.debtService);
+		const terms = scenario.finance.debt;
+		if (debt && terms.sizing !== 'none') llcr = loanLifeCoverRatio(financing.cfads, debt.balanceAtCod, terms.interestRate, terms.tenorYears);
+		if (cover.min === null) note('minDscr', 'there is no debt service');
+		else if (cover.min.lt(1)) {
+			const year = cover.perYear.findIndex((d) => d !== null && d.eq(cover.min!)) + 1;
+			warnings.push(`CFADS does not cover debt service in operating year ${year} (DSCR ${cover.min.toFixed(2)}).`);
+		}
+		if (llcr === null) note('llcr', 'there is no debt');
+	}
 
 	let breakevenTariff: Decimal | null = null;
 	let breakevenEvaluations = 0;
-	if (options.breakeven !== false) {
+	if (want('breakevenTariff') && options.breakeven !== false) {
 		const solved = solveBreakevenTariff(prep, lcoe.real);
 		breakevenEvaluations = solved.evaluations;
 		breakevenTariff = solved.tariffPerMWh;
@@ -123,19 +138,35 @@ export function evaluateDetailed(scenario: Scenario, options: EvaluateOptions = 
 		capacityFactor: energy.capacityFactor,
 		lcoeReal: lcoe.real,
 		lcoeNominal: lcoe.nominal,
-		lcoeFcr,
-		projectIrrPreTax,
-		projectIrrPostTax,
-		equityIrr,
+		lcoeFcr: want('lcoeFcr') ? fixedChargeRateLcoe(prep, operating) : null,
+		projectIrrPreTax: irrOf('projectIrrPreTax', operating.projectPreTax),
+		projectIrrPostTax: irrOf('projectIrrPostTax', operating.projectPostTax),
+		equityIrr: financing ? irrOf('equityIrr', financing.equity) : null,
 		npv: operating.npv,
 		paybackYears: payback,
 		minDscr: cover.min,
 		avgDscr: cover.average,
 		llcr,
-		debtAmount: debt ? debt.balanceAtCod : new Decimal(0),
+		debtAmount: financing ? (debt ? debt.balanceAtCod : new Decimal(0)) : null,
 		breakevenTariff
 	};
 	return { prep, operating, financing, dscr: cover.perYear, metrics, breakevenEvaluations, warnings };
+}
+
+const ALL_METRICS: ReadonlySet<MetricKey> = new Set(METRIC_KEYS);
+
+/** The evaluation with decimals, for the engine's own callers (sensitivity, tests). */
+export function evaluateDetailed(scenario: Scenario, options: EvaluateOptions = {}): DetailedEvaluation {
+	const computed = compute(scenario, options, ALL_METRICS);
+	return { ...computed, financing: computed.financing! };
+}
+
+/**
+ * One metric, running only the stages it needs (no debt pass for LCOE, no
+ * breakeven solve unless asked): what sensitivity runs call many times.
+ */
+export function evaluateMetric(scenario: Scenario, metric: MetricKey, energy?: EnergyEstimate): Decimal | null {
+	return compute(scenario, { energy }, new Set([metric])).metrics[metric];
 }
 
 // ---------------------------------------------------------------- plain-data result

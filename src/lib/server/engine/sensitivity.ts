@@ -6,7 +6,7 @@
 import type { Decimal } from './decimal';
 import type { Scenario } from '../../schemas/scenario';
 import { estimateEnergy, type EnergyEstimate } from './energy/yield';
-import { decimalString, evaluateDetailed, METRIC_UNITS, type DecimalString, type MetricKey } from './evaluate';
+import { decimalString, evaluateMetric, METRIC_UNITS, type DecimalString, type MetricKey } from './evaluate';
 
 export const DRIVER_IDS = [
 	'capex',
@@ -250,10 +250,7 @@ export type TornadoResult = { metric: MetricKey; unit: string; baseOutput: Decim
 /** Evaluates scenarios for one metric, reusing the base energy estimate where a driver leaves it alone. */
 function metricEvaluator(metric: MetricKey, base: Scenario) {
 	const baseEnergy: EnergyEstimate = estimateEnergy(base);
-	return (s: Scenario, changesEnergy: boolean): Decimal | null => {
-		const detailed = evaluateDetailed(s, { energy: changesEnergy ? undefined : baseEnergy, breakeven: metric === 'breakevenTariff' });
-		return detailed.metrics[metric];
-	};
+	return (s: Scenario, changesEnergy: boolean): Decimal | null => evaluateMetric(s, metric, changesEnergy ? undefined : baseEnergy);
 }
 
 /**

@@ -2,7 +2,7 @@
  * Wave energy flux and the power of a wave energy converter in a sea state.
  * Heights in m, periods in s, density kg/m^3, g m/s^2, flux kW/m, power kW.
  */
-import { dec, Decimal, ZERO, type DecimalInput } from '../decimal';
+import { dec, Decimal, ONE, ZERO, type DecimalInput } from '../decimal';
 import { PI } from './current';
 import type { DeviceSpec } from '../../../schemas/scenario';
 
@@ -50,23 +50,37 @@ export function captureWidthPowerKW(device: CaptureWidthSpec, fluxKWPerM: Decima
 /** Where a coordinate falls on a matrix axis. `null` means outside the matrix's cells. */
 type AxisPosition = { lower: number; upper: number; weightUpper: Decimal; nearest: number } | null;
 
+/** An ascending axis of cell centres, with the decimal values and inverse spacings the weights need. */
+type Axis = { values: number[]; decimals: Decimal[]; inverseSpacing: Decimal[] };
+
+function axisOf(decimals: Decimal[]): Axis {
+	return {
+		values: decimals.map((d) => d.toNumber()),
+		decimals,
+		inverseSpacing: decimals.slice(1).map((d, i) => ONE.div(d.minus(decimals[i])))
+	};
+}
+
 /**
- * Locate x on an ascending axis of cell centres. The matrix covers its cells,
- * which reach half a spacing beyond the first and last centres; inside that
- * margin the coordinate is clamped to the edge centre.
+ * Locate x on an axis of cell centres. The matrix covers its cells, which
+ * reach half a spacing beyond the first and last centres; inside that margin
+ * the coordinate is clamped to the edge centre. The weight is exact decimal
+ * arithmetic: (x - a_i) / (a_{i+1} - a_i).
  */
-function locate(axis: readonly number[], x: number): AxisPosition {
-	const n = axis.length;
-	const firstMargin = n > 1 ? (axis[1] - axis[0]) / 2 : 0;
-	const lastMargin = n > 1 ? (axis[n - 1] - axis[n - 2]) / 2 : 0;
-	if (x < axis[0] - firstMargin - 1e-12 || x > axis[n - 1] + lastMargin + 1e-12) return null;
-	if (x <= axis[0]) return { lower: 0, upper: 0, weightUpper: ZERO, nearest: 0 };
-	if (x >= axis[n - 1]) return { lower: n - 1, upper: n - 1, weightUpper: ZERO, nearest: n - 1 };
+function locate(axis: Axis, x: Decimal, wantNearest: boolean): AxisPosition {
+	const a = axis.values;
+	const n = a.length;
+	const xf = x.toNumber();
+	const firstMargin = n > 1 ? (a[1] - a[0]) / 2 : 0;
+	const lastMargin = n > 1 ? (a[n - 1] - a[n - 2]) / 2 : 0;
+	if (xf < a[0] - firstMargin - 1e-12 || xf > a[n - 1] + lastMargin + 1e-12) return null;
+	if (xf <= a[0]) return { lower: 0, upper: 0, weightUpper: ZERO, nearest: 0 };
+	if (xf >= a[n - 1]) return { lower: n - 1, upper: n - 1, weightUpper: ZERO, nearest: n - 1 };
 	let i = 0;
-	while (axis[i + 1] < x) i++;
-	const weightUpper = dec(x - axis[i]).div(axis[i + 1] - axis[i]);
+	while (a[i + 1] < xf) i++;
+	const weightUpper = x.minus(axis.decimals[i]).times(axis.inverseSpacing[i]);
 	// Ties go to the upper cell, as the IEC bin [centre - w/2, centre + w/2) does.
-	const nearest = x - axis[i] < axis[i + 1] - x ? i : i + 1;
+	const nearest = wantNearest && !weightUpper.lt(0.5) ? i + 1 : i;
 	return { lower: i, upper: i + 1, weightUpper, nearest };
 }
 
@@ -77,30 +91,33 @@ function locate(axis: readonly number[], x: number): AxisPosition {
  * a (1 - b), (1 - a) b, a b, where a, b are the fractional positions along Hs
  * and the period axis. nearest: the value of the nearest cell. Sea states
  * outside the matrix's cells give zero (the device is not rated for them).
- * Axes must already be in energy period when the sea state is (see teAxis).
- * Source: IEC TS 62600-100 (power matrix x occurrence matrix); the lookup is
- * common practice.
+ * teAxisS is the period axis in energy period (converted from Tp when the
+ * matrix is in peak periods). Source: IEC TS 62600-100 (power matrix x
+ * occurrence matrix); the lookup is common practice.
  */
 export function powerMatrixKW(
 	matrix: Pick<PowerMatrixSpec, 'hsM' | 'powerKW' | 'lookup'>,
-	teAxisS: readonly number[],
-	hsM: number,
-	teS: number
+	teAxisS: readonly DecimalInput[],
+	hsM: DecimalInput,
+	teS: DecimalInput
 ): Decimal | null {
-	return powerMatrixFunction(matrix, teAxisS)(hsM, teS);
+	return powerMatrixFunction(matrix, teAxisS)(dec(hsM), dec(teS));
 }
 
-/** The lookup of powerMatrixKW with the matrix converted to decimals once, for many sea states. */
+/** The lookup of powerMatrixKW with the matrix and axes prepared once, for many sea states. */
 export function powerMatrixFunction(
 	matrix: Pick<PowerMatrixSpec, 'hsM' | 'powerKW' | 'lookup'>,
-	teAxisS: readonly number[]
-): (hsM: number, teS: number) => Decimal | null {
+	teAxisS: readonly DecimalInput[]
+): (hsM: Decimal, teS: Decimal) => Decimal | null {
 	const m = matrix.powerKW.map((row) => row.map((v) => new Decimal(v)));
+	const hsAxis = axisOf(matrix.hsM.map(dec));
+	const teAxis = axisOf(teAxisS.map(dec));
 	return (hsM, teS) => {
-		const row = locate(matrix.hsM, hsM);
-		const col = locate(teAxisS, teS);
+		const nearestMode = matrix.lookup === 'nearest';
+		const row = locate(hsAxis, hsM, nearestMode);
+		const col = locate(teAxis, teS, nearestMode);
 		if (!row || !col) return null;
-		if (matrix.lookup === 'nearest') return m[row.nearest][col.nearest];
+		if (nearestMode) return m[row.nearest][col.nearest];
 		const a = row.weightUpper;
 		const b = col.weightUpper;
 		const lowRow = m[row.lower];

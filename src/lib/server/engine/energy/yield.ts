@@ -104,11 +104,11 @@ function binsWithPower(scenario: Scenario, warnings: string[]): { bins: EnergyBi
 		return { bins, ratedKW: flowDeviceRatedPowerKW(device) };
 	}
 	const teAxis =
-		device.kind === 'power-matrix' && device.periodType === 'peak-period'
-			? device.periodS.map((p) => p * device.teOverTp)
-			: device.kind === 'power-matrix'
-				? device.periodS
-				: [];
+		device.kind !== 'power-matrix'
+			? []
+			: device.periodType === 'peak-period'
+				? device.periodS.map((p) => energyPeriodFromPeakPeriod(p, device.teOverTp))
+				: device.periodS;
 	let outside = ZERO;
 	const fluxOf = waveFluxFunction(site.waterDensityKgPerM3, site.gravityMPerS2);
 	const lookup = device.kind === 'power-matrix' ? powerMatrixFunction(device, teAxis) : null;
@@ -117,7 +117,7 @@ function binsWithPower(scenario: Scenario, warnings: string[]): { bins: EnergyBi
 		let powerKW: Decimal;
 		if (device.kind === 'capture-width') powerKW = captureWidthPowerKW(device, flux);
 		else {
-			const looked = lookup ? lookup(s.hsM.toNumber(), s.teS.toNumber()) : null;
+			const looked = lookup ? lookup(s.hsM, s.teS) : null;
 			if (looked === null) outside = outside.plus(s.probability);
 			powerKW = looked ?? ZERO;
 		}
