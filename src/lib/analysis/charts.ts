@@ -1,0 +1,169 @@
+/**
+ * Chart.js configurations of the analysis pages, built from the API's
+ * answers. Decimal strings become floats here, for drawing only.
+ */
+import type { ChartConfiguration, Plugin } from 'chart.js';
+import { chartColours, seriesColours } from '../components/charts/palette';
+import { chartNumber } from './metric-display';
+
+const axisTitle = (text: string) => ({ display: true, text, color: chartColours.abyss });
+const grid = { color: 'rgba(29, 67, 87, 0.08)' };
+
+export interface LcoeBar {
+	name: string;
+	lcoeReal: string | null;
+	lcoeNominal: string | null;
+	lcoeFcr: string | null;
+}
+
+/** LCOE of each scenario: real, nominal and the fixed-charge-rate form side by side. */
+export function lcoeBarChart(scenarios: readonly LcoeBar[], currency: string): ChartConfiguration<'bar'> {
+	const series = [
+		{ label: 'LCOE, real', key: 'lcoeReal', colour: chartColours.kelp },
+		{ label: 'LCOE, nominal', key: 'lcoeNominal', colour: chartColours.copper },
+		{ label: 'LCOE, fixed charge rate', key: 'lcoeFcr', colour: chartColours.sand }
+	] as const;
+	return {
+		type: 'bar',
+		data: {
+			labels: scenarios.map((s) => s.name),
+			datasets: series.map((s) => ({
+				label: s.label,
+				data: scenarios.map((scenario) => chartNumber(scenario[s.key])),
+				backgroundColor: s.colour,
+				borderRadius: 3
+			}))
+		},
+		options: {
+			plugins: { legend: { position: 'bottom' } },
+			scales: {
+				x: { grid: { display: false } },
+				y: { beginAtZero: true, grid, title: axisTitle(`${currency}/MWh`) }
+			}
+		}
+	};
+}
+
+export interface TornadoBar {
+	label: string;
+	lowOutput: string | null;
+	highOutput: string | null;
+}
+
+/** Options of the base-value line drawn across a tornado chart. */
+export interface BaseLineOptions {
+	value: number | null;
+	label: string;
+}
+
+/** Draws a dashed vertical line at the base value across the chart area, labelled at the top. */
+export const baseLinePlugin: Plugin<'bar', BaseLineOptions> = {
+	id: 'baseLine',
+	afterDatasetsDraw(chart, _args, options) {
+		if (options.value === null || options.value === undefined) return;
+		const x = chart.scales.x.getPixelForValue(options.value);
+		const { top, bottom } = chart.chartArea;
+		const ctx = chart.ctx;
+		ctx.save();
+		ctx.strokeStyle = chartColours.abyss;
+		ctx.lineWidth = 1.5;
+		ctx.setLineDash([5, 4]);
+		ctx.beginPath();
+		ctx.moveTo(x, top);
+		ctx.lineTo(x, bottom);
+		ctx.stroke();
+		ctx.setLineDash([]);
+		ctx.fillStyle = chartColours.abyss;
+		ctx.font = '12px "IBM Plex Sans", system-ui, sans-serif';
+		ctx.textAlign = 'center';
+		ctx.textBaseline = 'bottom';
+		ctx.fillText(options.label, x, top - 4);
+		ctx.restore();
+	}
+};
+
+/**
+ * Tornado: for each driver (largest swing on top) a floating bar from the
+ * base output to the output at the driver's low input, and one to the output
+ * at its high input, in the same band, with the base value as a line.
+ */
+export function tornadoChart(rows: readonly TornadoBar[], base: string | null, axisLabel: string, baseLabel: string): ChartConfiguration<'bar'> {
+	const baseValue = chartNumber(base);
+	const from = baseValue ?? 0;
+	const bar = (value: string | null): [number, number] | null => {
+		const v = chartNumber(value);
+		return v === null ? null : [from, v];
+	};
+	return {
+		type: 'bar',
+		data: {
+			labels: rows.map((r) => r.label),
+			datasets: [
+				{
+					label: 'At the low input',
+					data: rows.map((r) => bar(r.lowOutput)) as unknown as number[],
+					backgroundColor: chartColours.abyssLight,
+					borderColor: chartColours.abyss,
+					borderWidth: 1,
+					barPercentage: 0.9,
+					categoryPercentage: 0.8
+				},
+				{
+					label: 'At the high input',
+					data: rows.map((r) => bar(r.highOutput)) as unknown as number[],
+					backgroundColor: chartColours.copperLight,
+					borderColor: chartColours.copper,
+					borderWidth: 1,
+					barPercentage: 0.9,
+					categoryPercentage: 0.8
+				}
+			]
+		},
+		plugins: [baseLinePlugin],
+		options: {
+			indexAxis: 'y',
+			layout: { padding: { top: 18 } },
+			plugins: {
+				legend: { position: 'bottom' },
+				baseLine: { value: baseValue, label: baseLabel }
+			} as Record<string, unknown>,
+			scales: {
+				x: { grid, title: axisTitle(axisLabel) },
+				y: { stacked: true, grid: { display: false } }
+			}
+		}
+	};
+}
+
+export interface SpiderLine {
+	label: string;
+	points: { change: number; output: string | null }[];
+}
+
+/** Spider: the output against the same relative change of each driver, one line a driver. */
+export function spiderChart(series: readonly SpiderLine[], axisLabel: string): ChartConfiguration<'line'> {
+	const changes = series[0]?.points.map((p) => p.change) ?? [];
+	return {
+		type: 'line',
+		data: {
+			labels: changes.map((c) => `${c > 0 ? '+' : c < 0 ? '−' : ''}${Math.round(Math.abs(c) * 1000) / 10} %`),
+			datasets: series.map((s, i) => ({
+				label: s.label,
+				data: s.points.map((p) => chartNumber(p.output)),
+				borderColor: seriesColours[i % seriesColours.length],
+				backgroundColor: seriesColours[i % seriesColours.length],
+				borderDash: i >= seriesColours.length ? [6, 3] : undefined,
+				pointRadius: 3,
+				tension: 0,
+				spanGaps: false
+			}))
+		},
+		options: {
+			plugins: { legend: { position: 'bottom' } },
+			scales: {
+				x: { grid, title: axisTitle('Change of each driver from its base value') },
+				y: { grid, title: axisTitle(axisLabel) }
+			}
+		}
+	};
+}
