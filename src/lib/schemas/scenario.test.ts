@@ -84,3 +84,13 @@ describe('JSON Schema export', () => {
 		expect(schema).toContain('Betz limit');
 	});
 });
+
+describe('docs/scenario.schema.json', () => {
+	it('is the current export of the schema (regenerate with scripts/export-schema.ts)', async () => {
+		const { readFileSync } = await import('node:fs');
+		const committed = JSON.parse(readFileSync('docs/scenario.schema.json', 'utf8'));
+		delete committed.$id;
+		delete committed.title;
+		expect(committed).toEqual(JSON.parse(JSON.stringify(z.toJSONSchema(scenarioSchema, { io: 'input', target: 'draft-2020-12' }))));
+	});
+});
