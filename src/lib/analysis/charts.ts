@@ -2,7 +2,7 @@
  * Chart.js configurations of the analysis pages, built from the API's
  * answers. Decimal strings become floats here, for drawing only.
  */
-import type { ChartConfiguration, Plugin } from 'chart.js';
+import type { ChartConfiguration, Plugin, TooltipItem } from 'chart.js';
 import { chartColours, seriesColours } from '../components/charts/palette';
 import { chartNumber } from './metric-display';
 
@@ -46,8 +46,9 @@ export function lcoeBarChart(scenarios: readonly LcoeBar[], currency: string): C
 
 export interface TornadoBar {
 	label: string;
-	lowOutput: string | null;
-	highOutput: string | null;
+	/** Outputs at the driver's low and high input, as chart numbers in the display unit. */
+	low: number | null;
+	high: number | null;
 }
 
 /** Options of the base-value line drawn across a tornado chart. */
@@ -87,36 +88,30 @@ export const baseLinePlugin: Plugin<'bar', BaseLineOptions> = {
  * base output to the output at the driver's low input, and one to the output
  * at its high input, in the same band, with the base value as a line.
  */
-export function tornadoChart(rows: readonly TornadoBar[], base: string | null, axisLabel: string, baseLabel: string): ChartConfiguration<'bar'> {
-	const baseValue = chartNumber(base);
-	const from = baseValue ?? 0;
-	const bar = (value: string | null): [number, number] | null => {
-		const v = chartNumber(value);
-		return v === null ? null : [from, v];
-	};
+export function tornadoChart(
+	rows: readonly TornadoBar[],
+	base: number | null,
+	labels: { axis: string; baseLine: string },
+	format: (value: number) => string
+): ChartConfiguration<'bar'> {
+	const from = base ?? 0;
+	const bar = (value: number | null): [number, number] | null => (value === null ? null : [from, value]);
+	const dataset = (label: string, values: (number | null)[], fill: string, border: string) => ({
+		label,
+		data: values.map(bar) as unknown as number[],
+		backgroundColor: fill,
+		borderColor: border,
+		borderWidth: 1,
+		barPercentage: 0.9,
+		categoryPercentage: 0.8
+	});
 	return {
 		type: 'bar',
 		data: {
 			labels: rows.map((r) => r.label),
 			datasets: [
-				{
-					label: 'At the low input',
-					data: rows.map((r) => bar(r.lowOutput)) as unknown as number[],
-					backgroundColor: chartColours.abyssLight,
-					borderColor: chartColours.abyss,
-					borderWidth: 1,
-					barPercentage: 0.9,
-					categoryPercentage: 0.8
-				},
-				{
-					label: 'At the high input',
-					data: rows.map((r) => bar(r.highOutput)) as unknown as number[],
-					backgroundColor: chartColours.copperLight,
-					borderColor: chartColours.copper,
-					borderWidth: 1,
-					barPercentage: 0.9,
-					categoryPercentage: 0.8
-				}
+				dataset('At the low input', rows.map((r) => r.low), chartColours.abyssLight, chartColours.abyss),
+				dataset('At the high input', rows.map((r) => r.high), chartColours.copperLight, chartColours.copper)
 			]
 		},
 		plugins: [baseLinePlugin],
@@ -125,10 +120,18 @@ export function tornadoChart(rows: readonly TornadoBar[], base: string | null, a
 			layout: { padding: { top: 18 } },
 			plugins: {
 				legend: { position: 'bottom' },
-				baseLine: { value: baseValue, label: baseLabel }
+				tooltip: {
+					callbacks: {
+						label: (item: TooltipItem<'bar'>) => {
+							const span = item.raw as [number, number] | null;
+							return span ? `${item.dataset.label}: ${format(span[1])}` : `${item.dataset.label}: not defined`;
+						}
+					}
+				},
+				baseLine: { value: base, label: labels.baseLine }
 			} as Record<string, unknown>,
 			scales: {
-				x: { grid, title: axisTitle(axisLabel) },
+				x: { beginAtZero: false, grace: '5%', grid, title: axisTitle(labels.axis) },
 				y: { stacked: true, grid: { display: false } }
 			}
 		}
@@ -137,19 +140,26 @@ export function tornadoChart(rows: readonly TornadoBar[], base: string | null, a
 
 export interface SpiderLine {
 	label: string;
-	points: { change: number; output: string | null }[];
+	/** change: relative change of the driver (0.1 = +10 %); value: the output as a chart number. */
+	points: { change: number; value: number | null }[];
+}
+
+/** "+10 %", "−20 %", "0 %". */
+export function changeLabel(change: number): string {
+	const percent = Math.round(Math.abs(change) * 1000) / 10;
+	return `${change > 0 ? '+' : change < 0 ? '−' : ''}${percent} %`;
 }
 
 /** Spider: the output against the same relative change of each driver, one line a driver. */
-export function spiderChart(series: readonly SpiderLine[], axisLabel: string): ChartConfiguration<'line'> {
+export function spiderChart(series: readonly SpiderLine[], axisLabel: string, format: (value: number) => string): ChartConfiguration<'line'> {
 	const changes = series[0]?.points.map((p) => p.change) ?? [];
 	return {
 		type: 'line',
 		data: {
-			labels: changes.map((c) => `${c > 0 ? '+' : c < 0 ? '−' : ''}${Math.round(Math.abs(c) * 1000) / 10} %`),
+			labels: changes.map(changeLabel),
 			datasets: series.map((s, i) => ({
 				label: s.label,
-				data: s.points.map((p) => chartNumber(p.output)),
+				data: s.points.map((p) => p.value),
 				borderColor: seriesColours[i % seriesColours.length],
 				backgroundColor: seriesColours[i % seriesColours.length],
 				borderDash: i >= seriesColours.length ? [6, 3] : undefined,
@@ -159,7 +169,10 @@ export function spiderChart(series: readonly SpiderLine[], axisLabel: string): C
 			}))
 		},
 		options: {
-			plugins: { legend: { position: 'bottom' } },
+			plugins: {
+				legend: { position: 'bottom' },
+				tooltip: { callbacks: { label: (item) => `${item.dataset.label}: ${item.raw === null ? 'not defined' : format(item.raw as number)}` } }
+			},
 			scales: {
 				x: { grid, title: axisTitle('Change of each driver from its base value') },
 				y: { grid, title: axisTitle(axisLabel) }

@@ -115,3 +115,29 @@ export function verdictOf(key: string, absolute: string): Verdict {
 export function chartNumber(value: string | null): number | null {
 	return value === null ? null : Number(value);
 }
+
+/** A metric value as a chart number in its display unit (rates and fractions in per cent). Floats, for charts only. */
+export function chartValue(key: string, value: string | null): number | null {
+	if (value === null) return null;
+	const { kind } = metricDisplay(key);
+	return kind === 'fraction' || kind === 'rate' ? Number(value) * 100 : Number(value);
+}
+
+/** A chart number (from chartValue) as text with its unit, for tooltips. */
+export function formatChartValue(key: string, value: number, currency: string): string {
+	const { kind } = metricDisplay(key);
+	const unit = displayUnit(kind, currency);
+	const text = value.toLocaleString('en-GB', { minimumFractionDigits: places[kind], maximumFractionDigits: places[kind] }).replace('-', '−');
+	return `${text} ${unit}`;
+}
+
+/** Whether `value` is better or worse than `base` for this metric; neutral when either is missing. */
+export function verdictAgainst(key: string, value: string | null, base: string | null): Verdict {
+	if (value === null || base === null) return 'neutral';
+	return verdictOf(key, new Decimal(value).minus(new Decimal(base)).toFixed());
+}
+
+/** The unit of a change of the metric: percentage points for rates and fractions. */
+export function differenceUnit(kind: MetricKind, currency: string): string {
+	return kind === 'fraction' || kind === 'rate' ? 'pp' : displayUnit(kind, currency);
+}
