@@ -17,7 +17,10 @@ export async function signedInRequest(
 	const context = await playwright.request.newContext({ baseURL, extraHTTPHeaders: { origin: baseURL } });
 	if (persona === 'anonymous') return context;
 	const user = demoUsers[persona];
+	// Asked with Playwright's default `accept: */*`, SvelteKit answers a form action as JSON (status 200);
+	// a browser's form post asks for HTML and gets the 303.
 	const response = await context.post('/signin', {
+		headers: { accept: 'text/html' },
 		form: { email: user.email, password: user.password, next: '/app' },
 		maxRedirects: 0
 	});

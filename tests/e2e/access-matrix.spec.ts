@@ -1,0 +1,420 @@
+/**
+ * Every page, form action and API route against every kind of visitor:
+ * anonymous, the viewer, analyst and owner of workspace A (Halvard Marine
+ * Energy), and the owner of workspace B (Corvane Advisory), who must see
+ * nothing of A. One table row per route and method; the meta-test at the end
+ * fails for any route under src/routes that has no row, so a new route costs
+ * one line here.
+ *
+ * Writes are harmless: most send a bad body, so a permitted role gets 400/415/422
+ * and a forbidden one 401/403/404 (the permission check must come first); the
+ * few that change something act on a probe project made for this spec and are
+ * undone by the row's `after`.
+ */
+import { readdirSync, readFileSync } from 'node:fs';
+import { join, relative, sep } from 'node:path';
+import { expect, test, type APIRequestContext, type APIResponse, type request as playwrightRequest } from '@playwright/test';
+import { baseURL, mailSinkHttpPort } from '../../playwright.config';
+import { demoUsers } from '../../seeds/02_demo_users';
+import { METHOD_NOTES } from '../../src/lib/methods';
+import { signedInRequest, workspaceIdOf, type Persona } from './helpers/session';
+
+const personas = ['anonymous', 'viewer', 'analyst', 'owner', 'outsider'] as const satisfies readonly Persona[];
+type Role = 'viewer' | 'analyst' | 'owner';
+const rank: Record<Role, number> = { viewer: 1, analyst: 2, owner: 3 };
+
+const WORKSPACE_A = 'Halvard Marine Energy';
+const WORKSPACE_B = 'Corvane Advisory';
+
+/** A status, or `303 <prefix>`: a redirect whose location starts with the prefix. */
+type Answer = number | `303 ${string}`;
+type Answers = Record<(typeof personas)[number], Answer>;
+
+const toSignIn: Answer = '303 /signin?next=';
+
+/** Workbench pages inside workspace A: anonymous to sign-in, outsider 404, too low a role 403. */
+function page(minimum: Role): Answers {
+	const member = (role: Role): Answer => (rank[role] >= rank[minimum] ? 200 : 403);
+	return { anonymous: toSignIn, viewer: member('viewer'), analyst: member('analyst'), owner: member('owner'), outsider: 404 };
+}
+
+/** A form action inside workspace A whose permitted answer is `allowed` (a bad body's 400, say). */
+function action(minimum: Role, allowed: Answer): Answers {
+	const member = (role: Role): Answer => (rank[role] >= rank[minimum] ? allowed : 403);
+	return { anonymous: toSignIn, viewer: member('viewer'), analyst: member('analyst'), owner: member('owner'), outsider: 404 };
+}
+
+/** API routes on workspace A's resources: anonymous 401, outsider 404, too low a role 403. */
+function api(minimum: Role, allowed: Answer = 200): Answers {
+	const member = (role: Role): Answer => (rank[role] >= rank[minimum] ? allowed : 403);
+	return { anonymous: 401, viewer: member('viewer'), analyst: member('analyst'), owner: member('owner'), outsider: 404 };
+}
+
+/** Needs only a signed-in user, of any workspace. */
+function signedIn(allowed: Answer, anonymous: Answer = toSignIn): Answers {
+	return { anonymous, viewer: allowed, analyst: allowed, owner: allowed, outsider: allowed };
+}
+
+function everyone(answer: Answer): Answers {
+	return { anonymous: answer, viewer: answer, analyst: answer, owner: answer, outsider: answer };
+}
+
+type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+type Body = { json: unknown } | { form: Record<string, string> };
+
+interface Ids {
+	workspaceId: string;
+	workspaceB: string;
+	projectId: string;
+	scenarioId: string;
+	uploadId: string;
+	revision: string;
+	slug: string;
+	token: string;
+}
+
+interface Row {
+	/** The route as its folder names it under src/routes, route groups left out. */
+	route: string;
+	method: Method;
+	/** A form action's name (`default` for the default action). */
+	action?: string;
+	query?: string;
+	body?: Body;
+	expect: Answers;
+	/** Undoes what a permitted persona changed; runs after each persona's request. */
+	after?: (persona: Persona, response: APIResponse) => Promise<void>;
+	/** The request ends the persona's session(s): sign in again afterwards. */
+	endsSessions?: boolean;
+}
+
+const badJson = { json: { notAField: true } };
+
+const matrix: Row[] = [
+	// Public pages
+	{ route: '/', method: 'GET', expect: everyone(200) },
+	{ route: '/signin', method: 'GET', expect: { ...signedIn('303 /app'), anonymous: 200 } },
+	// A signed-in user's failed post re-renders the page, whose load sends them on to the workbench.
+	{ route: '/signin', method: 'POST', action: 'default', body: { form: { email: '', password: '' } }, expect: { ...signedIn('303 /app'), anonymous: 400 } },
+	{ route: '/signup', method: 'GET', expect: { ...signedIn('303 /app'), anonymous: 200 } },
+	{ route: '/signup', method: 'POST', action: 'default', body: { form: { email: 'not-an-address' } }, expect: { ...signedIn('303 /app'), anonymous: 400 } },
+	{ route: '/signout', method: 'GET', expect: everyone('303 /signin') },
+	{ route: '/signout', method: 'POST', action: 'default', expect: everyone('303 /signin?notice=signed-out'), endsSessions: true },
+	{ route: '/forgot-password', method: 'GET', expect: everyone(200) },
+	{ route: '/forgot-password', method: 'POST', action: 'default', body: { form: { email: 'not-an-address' } }, expect: everyone(400) },
+	{ route: '/reset-password/[token]', method: 'GET', expect: everyone(200) },
+	{ route: '/reset-password/[token]', method: 'POST', action: 'default', body: { form: { password: '' } }, expect: everyone(400) },
+	{ route: '/verify-email/[token]', method: 'GET', expect: everyone(200) },
+	{ route: '/verify-email/[token]', method: 'POST', action: 'default', expect: everyone(400) },
+	{ route: '/invite/[token]', method: 'GET', expect: everyone(200) },
+	{ route: '/invite/[token]', method: 'POST', action: 'accept', expect: { ...signedIn(400), anonymous: '303 /signin?next=' } },
+	{ route: '/invite/[token]', method: 'POST', action: 'join', body: { form: { name: '', password: '' } }, expect: everyone(400) },
+	// Dev-only inbox: present beside the local mail sink the browser tests run (absent without it).
+	{ route: '/dev/mail', method: 'GET', expect: everyone(200) },
+
+	// Workbench pages
+	{ route: '/app', method: 'GET', expect: signedIn('303 /app/w/') },
+	// The outsider's refused switch re-renders /app, whose load sends them to their own workspace: nothing switched.
+	{
+		route: '/app',
+		method: 'POST',
+		action: 'switch',
+		body: { form: { workspaceId: '{workspaceId}' } },
+		expect: { ...signedIn('303 /app/w/{workspaceId}'), outsider: '303 /app/w/{workspaceB}' }
+	},
+	{ route: '/app/account', method: 'GET', expect: signedIn(200) },
+	{ route: '/app/account', method: 'POST', action: 'rename', body: { form: { name: '' } }, expect: signedIn(400) },
+	{ route: '/app/account', method: 'POST', action: 'password', body: { form: {} }, expect: signedIn(400) },
+	{ route: '/app/account', method: 'POST', action: 'endSession', body: { form: { handle: 'zzzzzzzzzz' } }, expect: signedIn(404) },
+	{ route: '/app/account', method: 'POST', action: 'signOutEverywhere', expect: signedIn('303 /signin?notice=signed-out-everywhere'), endsSessions: true },
+	{ route: '/app/account', method: 'POST', action: 'resendVerification', expect: signedIn(200) },
+	{ route: '/app/methods', method: 'GET', expect: signedIn(200) },
+	{ route: '/app/methods/[slug]', method: 'GET', expect: signedIn(200) },
+	{ route: '/app/w/[workspaceId]', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/audit', method: 'GET', expect: page('owner') },
+	{ route: '/app/w/[workspaceId]/members', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/projects/[projectId]/compare', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/projects/[projectId]/scenarios/[scenarioId]', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/projects/[projectId]/scenarios/[scenarioId]/sensitivity', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/members', method: 'POST', action: 'invite', body: { form: { email: 'not-an-address', role: 'analyst' } }, expect: action('owner', 400) },
+	{ route: '/app/w/[workspaceId]/members', method: 'POST', action: 'changeRole', body: { form: { userId: 'nobody', role: 'boss' } }, expect: action('owner', 400) },
+	{ route: '/app/w/[workspaceId]/members', method: 'POST', action: 'remove', body: { form: { userId: 'nobody' } }, expect: action('owner', 400) },
+	{ route: '/app/w/[workspaceId]/members', method: 'POST', action: 'revoke', body: { form: { invitationId: 'nobody' } }, expect: action('owner', 404) },
+	// Leaving works for viewer and analyst (and is undone by a fresh invitation); the one owner may not leave.
+	{ route: '/app/w/[workspaceId]/members', method: 'POST', action: 'leave', expect: { ...action('viewer', '303 /app'), owner: 409 }, after: rejoinAfterLeaving },
+
+	// API
+	{ route: '/api/v1/health', method: 'GET', expect: everyone(200) },
+	{ route: '/api/v1/workspaces', method: 'GET', expect: signedIn(200, 401) },
+	{ route: '/api/v1/workspaces/[workspaceId]/projects', method: 'GET', expect: api('viewer') },
+	{ route: '/api/v1/workspaces/[workspaceId]/projects', method: 'POST', body: badJson, expect: api('analyst', 422) },
+	{ route: '/api/v1/projects/[projectId]', method: 'GET', expect: api('viewer') },
+	{ route: '/api/v1/projects/[projectId]', method: 'PATCH', body: badJson, expect: api('analyst', 422) },
+	{ route: '/api/v1/projects/[projectId]', method: 'DELETE', expect: api('owner'), after: restoreProbeProject },
+	{ route: '/api/v1/projects/[projectId]/compare', method: 'GET', query: 'ids=not-an-id', expect: api('viewer', 422) },
+	{ route: '/api/v1/projects/[projectId]/restore', method: 'POST', expect: api('owner') },
+	{ route: '/api/v1/projects/[projectId]/scenarios', method: 'GET', expect: api('viewer') },
+	{ route: '/api/v1/projects/[projectId]/scenarios', method: 'POST', body: badJson, expect: api('analyst', 422) },
+	{ route: '/api/v1/projects/[projectId]/uploads', method: 'GET', expect: api('viewer') },
+	{ route: '/api/v1/projects/[projectId]/uploads', method: 'POST', body: badJson, expect: api('analyst', 415) },
+	{ route: '/api/v1/scenarios/[scenarioId]', method: 'GET', expect: api('viewer') },
+	{ route: '/api/v1/scenarios/[scenarioId]', method: 'PUT', body: badJson, expect: api('analyst', 422) },
+	// Deleting for good needs an archived scenario: the live probe answers 409 to the owner.
+	{ route: '/api/v1/scenarios/[scenarioId]', method: 'DELETE', expect: api('owner', 409) },
+	{ route: '/api/v1/scenarios/[scenarioId]/archive', method: 'POST', expect: api('analyst'), after: restoreProbeScenario },
+	{ route: '/api/v1/scenarios/[scenarioId]/base-case', method: 'POST', expect: api('analyst') },
+	{ route: '/api/v1/scenarios/[scenarioId]/duplicate', method: 'POST', body: badJson, expect: api('analyst', 422) },
+	{ route: '/api/v1/scenarios/[scenarioId]/evaluate', method: 'POST', body: badJson, expect: api('viewer', 422) },
+	{ route: '/api/v1/scenarios/[scenarioId]/export', method: 'GET', query: 'format=not-a-format', expect: api('viewer', 422) },
+	{ route: '/api/v1/scenarios/[scenarioId]/restore', method: 'POST', expect: api('analyst') },
+	{ route: '/api/v1/scenarios/[scenarioId]/revisions', method: 'GET', expect: api('viewer') },
+	{ route: '/api/v1/scenarios/[scenarioId]/revisions/[revision]', method: 'GET', expect: api('viewer') },
+	{ route: '/api/v1/scenarios/[scenarioId]/spider', method: 'POST', body: badJson, expect: api('viewer', 422) },
+	{ route: '/api/v1/scenarios/[scenarioId]/tornado', method: 'POST', body: badJson, expect: api('viewer', 422) },
+	{ route: '/api/v1/uploads/[uploadId]', method: 'GET', expect: api('viewer') },
+	{ route: '/api/v1/uploads/[uploadId]/apply', method: 'POST', body: { json: { revision: 'not-a-number' } }, expect: api('analyst', 422) },
+	{ route: '/api/v1/uploads/[uploadId]/file', method: 'GET', expect: api('viewer') }
+];
+
+const clients = {} as Record<Persona, APIRequestContext>;
+const ids = {} as Ids;
+
+let requestFactory: typeof playwrightRequest;
+
+async function signIn(persona: Persona) {
+	clients[persona] = await signedInRequest({ request: requestFactory }, baseURL, persona);
+}
+
+function fill(template: string): string {
+	return template.replace(/\[(\w+)\]|\{(\w+)\}/g, (_, a: string | undefined, b: string | undefined) => {
+		const key = (a ?? b) as keyof Ids;
+		if (!(key in ids)) throw new Error(`no id for ${key} in ${template}`);
+		return ids[key];
+	});
+}
+
+function urlOf(row: Row): string {
+	const search = [row.action && row.action !== 'default' ? `/${row.action}` : '', row.query ?? ''].filter((part) => part !== '');
+	return search.length > 0 ? `${fill(row.route)}?${search.join('&')}` : fill(row.route);
+}
+
+function bodyOf(row: Row) {
+	// A form without fields still posts as a form, as a browser's does (SvelteKit refuses other types with 415).
+	if (!row.body) return row.action ? { form: {} } : {};
+	if ('json' in row.body) return { data: row.body.json };
+	return { form: Object.fromEntries(Object.entries(row.body.form).map(([k, v]) => [k, fill(v)])) };
+}
+
+async function send(persona: Persona, row: Row): Promise<APIResponse> {
+	const isApi = row.route.startsWith('/api/');
+	// A form post asks for HTML as a browser's does: asked with */*, SvelteKit answers actions as JSON with status 200.
+	const accept = isApi ? 'application/json' : 'text/html';
+	return clients[persona].fetch(urlOf(row), {
+		method: row.method,
+		headers: { accept },
+		maxRedirects: 0,
+		failOnStatusCode: false,
+		...bodyOf(row)
+	});
+}
+
+function answerOf(response: APIResponse, expected: Answer): Answer {
+	const status = response.status();
+	if (status !== 303) return status;
+	const location = response.headers()['location'] ?? '';
+	const prefix = typeof expected === 'string' ? fill(expected.slice(4)) : '';
+	// Report the expected prefix when it matches, so equal answers compare equal.
+	return location.startsWith(prefix) && prefix !== '' ? expected : `303 ${location}`;
+}
+
+async function restoreProbeProject() {
+	const response = await clients.owner.post(`/api/v1/projects/${ids.projectId}/restore`);
+	expect(response.status(), 'restore the probe project').toBe(200);
+}
+
+async function restoreProbeScenario() {
+	const response = await clients.analyst.post(`/api/v1/scenarios/${ids.scenarioId}/restore`);
+	expect(response.status(), 'restore the probe scenario').toBe(200);
+}
+
+async function rejoinAfterLeaving(persona: Persona, response: APIResponse) {
+	if ((persona !== 'viewer' && persona !== 'analyst') || response.status() !== 303) return;
+	const { email, role } = demoUsers[persona];
+	const invited = await clients.owner.post(`/app/w/${ids.workspaceId}/members?/invite`, {
+		headers: { accept: 'text/html' },
+		form: { email, role },
+		maxRedirects: 0
+	});
+	expect(invited.status(), `re-invite ${persona}`).toBe(200);
+	const token = await invitationTokenFor(email);
+	const accepted = await clients[persona].post(`/invite/${token}?/accept`, { headers: { accept: 'text/html' }, form: {}, maxRedirects: 0 });
+	expect(accepted.status(), `${persona} accepts the new invitation`).toBe(303);
+	expect(accepted.headers()['location']).toBe(`/app/w/${ids.workspaceId}`);
+	expect(await workspaceIdOf(clients[persona], WORKSPACE_A)).toBe(ids.workspaceId);
+}
+
+async function invitationTokenFor(email: string): Promise<string> {
+	const response = await fetch(`http://127.0.0.1:${mailSinkHttpPort}/messages?to=${encodeURIComponent(email)}`);
+	const messages = (await response.json()) as { subject: string; text: string }[];
+	const invitation = messages.find((m) => m.subject.includes('invited you to'));
+	const token = invitation && /\/invite\/([a-z0-9]+)/.exec(invitation.text)?.[1];
+	if (!token) throw new Error(`no invitation mail to ${email}`);
+	return token;
+}
+
+test.describe('role x route matrix', () => {
+	test.beforeAll(async ({ playwright }) => {
+		requestFactory = playwright.request;
+		for (const persona of personas) await signIn(persona);
+
+		ids.workspaceId = await workspaceIdOf(clients.owner, WORKSPACE_A);
+		ids.workspaceB = await workspaceIdOf(clients.outsider, WORKSPACE_B);
+		expect(ids.workspaceB).not.toBe(ids.workspaceId);
+		ids.token = 'not-a-token-anyone-was-sent';
+		ids.revision = '1';
+
+		// A probe project and scenario in workspace A, so the matrix never touches the demo data.
+		const project = await clients.owner.post(`/api/v1/workspaces/${ids.workspaceId}/projects`, {
+			data: { name: `Access probe ${Date.now().toString(36)}`, technology: 'tidal-stream', siteName: 'Probe Sound' }
+		});
+		expect(project.status(), await project.text()).toBe(201);
+		ids.projectId = (await project.json()).project.id;
+		const scenario = await clients.owner.post(`/api/v1/projects/${ids.projectId}/scenarios`, { data: { name: 'Access probe case' } });
+		expect(scenario.status(), await scenario.text()).toBe(201);
+		ids.scenarioId = (await scenario.json()).scenario.id;
+		const upload = await clients.owner.post(`/api/v1/projects/${ids.projectId}/uploads`, {
+			multipart: {
+				kind: 'power-curve',
+				file: { name: 'power-curve.csv', mimeType: 'text/csv', buffer: readFileSync('static/templates/power-curve.csv') }
+			}
+		});
+		expect(upload.status(), await upload.text()).toBe(201);
+		ids.uploadId = (await upload.json()).upload.id;
+
+		ids.slug = METHOD_NOTES[0].slug;
+	});
+
+	test.afterAll(async () => {
+		// Archived, the probe leaves the demo workspace's project list as it was.
+		if (ids.projectId) await clients.owner.delete(`/api/v1/projects/${ids.projectId}`);
+		await Promise.all(Object.values(clients).map((c) => c.dispose()));
+	});
+
+	for (const row of matrix) {
+		const name = `${row.method} ${row.route}${row.action ? ` ?/${row.action}` : ''}${row.query ? ` ?${row.query}` : ''}`;
+		test(name, async () => {
+			const actual = {} as Answers;
+			for (const persona of personas) {
+				const response = await send(persona, row);
+				actual[persona] = answerOf(response, row.expect[persona]);
+				if (row.after) await row.after(persona, response);
+				if (row.endsSessions) {
+					await clients[persona].dispose();
+					await signIn(persona);
+				}
+			}
+			expect(actual).toEqual(row.expect);
+		});
+	}
+
+	test('ids that name nothing answer 404 to every signed-in persona and 401 to anonymous', async () => {
+		const nowhere = '00000000-0000-4000-8000-000000000000';
+		const paths = [
+			`/api/v1/workspaces/${nowhere}/projects`,
+			`/api/v1/projects/${nowhere}`,
+			`/api/v1/scenarios/${nowhere}`,
+			`/api/v1/uploads/${nowhere}`,
+			'/api/v1/projects/not-a-uuid',
+			'/api/v1/scenarios/not-a-uuid'
+		];
+		for (const path of paths) {
+			const actual = {} as Answers;
+			for (const persona of personas) actual[persona] = (await clients[persona].get(path, { maxRedirects: 0 })).status();
+			expect(actual, path).toEqual({ ...signedIn(404, 401) });
+		}
+		const actual = {} as Answers;
+		for (const persona of personas) actual[persona] = answerOf(await clients[persona].get(`/app/w/${nowhere}`, { maxRedirects: 0 }), toSignIn);
+		expect(actual, '/app/w/<no such workspace>').toEqual(signedIn(404));
+	});
+
+	test('the outsider\u2019s own workspace stays closed to workspace A\u2019s members', async () => {
+		const workspaceB = ids.workspaceB;
+		for (const persona of ['viewer', 'analyst', 'owner'] as const) {
+			expect((await clients[persona].get(`/api/v1/workspaces/${workspaceB}/projects`)).status(), persona).toBe(404);
+			expect((await clients[persona].get(`/app/w/${workspaceB}`, { maxRedirects: 0 })).status(), persona).toBe(404);
+		}
+		expect((await clients.outsider.get(`/api/v1/workspaces/${workspaceB}/projects`)).status()).toBe(200);
+		// A's project under B's address is no way in for B's owner.
+		const crossed = await clients.outsider.get(`/app/w/${workspaceB}/projects/${ids.projectId}/compare`, { maxRedirects: 0 });
+		expect(crossed.status()).toBe(404);
+	});
+
+	test('a page address whose ids do not nest (scenario under another project) answers 404', async () => {
+		const listed = await clients.viewer.get(`/api/v1/workspaces/${ids.workspaceId}/projects`);
+		const otherProject = ((await listed.json()).projects as { id: string }[]).find((p) => p.id !== ids.projectId);
+		if (!otherProject) throw new Error('workspace A has no project besides the probe');
+		const misnested = `/app/w/${ids.workspaceId}/projects/${otherProject.id}/scenarios/${ids.scenarioId}/sensitivity`;
+		expect((await clients.viewer.get(misnested, { maxRedirects: 0 })).status()).toBe(404);
+		const proper = `/app/w/${ids.workspaceId}/projects/${ids.projectId}/scenarios/${ids.scenarioId}/sensitivity`;
+		expect((await clients.viewer.get(proper, { maxRedirects: 0 })).status()).toBe(200);
+	});
+});
+
+/** Every route under src/routes, as route id, methods and form actions. */
+function routesOnDisk(): { route: string; method: Method; action?: string }[] {
+	const root = 'src/routes';
+	const found: { route: string; method: Method; action?: string }[] = [];
+	const walk = (dir: string) => {
+		for (const entry of readdirSync(dir, { withFileTypes: true })) {
+			const full = join(dir, entry.name);
+			if (entry.isDirectory()) {
+				walk(full);
+				continue;
+			}
+			const route =
+				'/' +
+				relative(root, dir)
+					.split(sep)
+					.filter((segment) => segment !== '' && !/^\(.+\)$/.test(segment))
+					.join('/');
+			if (entry.name === '+page.svelte' || entry.name === '+page.server.ts') {
+				found.push({ route, method: 'GET' });
+			}
+			if (entry.name === '+page.server.ts') {
+				const source = readFileSync(full, 'utf8');
+				const actions = source.split(/export const actions\b/)[1];
+				if (actions) for (const match of actions.matchAll(/^\t(\w+): async\b/gm)) found.push({ route, method: 'POST', action: match[1] });
+			}
+			if (entry.name === '+server.ts') {
+				const source = readFileSync(full, 'utf8');
+				for (const match of source.matchAll(/export (?:const|async function) (GET|POST|PUT|PATCH|DELETE)\b/g)) {
+					found.push({ route, method: match[1] as Method });
+				}
+			}
+		}
+	};
+	walk(root);
+	const keys = new Set<string>();
+	return found.filter((r) => {
+		const key = `${r.method} ${r.route} ${r.action ?? ''}`;
+		if (keys.has(key)) return false;
+		keys.add(key);
+		return true;
+	});
+}
+
+test.describe('the matrix covers every route', () => {
+	const key = (r: { route: string; method: Method; action?: string }) => `${r.method} ${r.route}${r.action ? ` ?/${r.action}` : ''}`;
+
+	test('every page, form action and API method under src/routes has a row', () => {
+		const rows = new Set(matrix.map(key));
+		const missing = routesOnDisk().map(key).filter((k) => !rows.has(k));
+		expect(missing, 'routes without a row in tests/e2e/access-matrix.spec.ts').toEqual([]);
+	});
+
+	test('every row names a route that exists', () => {
+		const onDisk = new Set(routesOnDisk().map(key));
+		const stale = matrix.map(key).filter((k) => !onDisk.has(k));
+		expect(stale, 'rows for routes that are gone').toEqual([]);
+	});
+});
