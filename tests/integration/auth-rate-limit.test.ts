@@ -133,6 +133,22 @@ describe('sign-in rate limit per account', () => {
 	});
 });
 
+describe('sign-in rate limit under a burst', () => {
+	it('checks no more than five passwords when twenty guesses arrive at once', async () => {
+		const { email } = await newAccount();
+		const context = contextFrom('10.0.0.10');
+		const outcomes = await Promise.all(
+			Array.from({ length: 20 }, (_, i) => signIn({ email, password: `burst-guess-${i}-xyz` }, context))
+		);
+		const refused = outcomes.filter((o) => !o.ok && o.message === SIGN_IN_REFUSED);
+		const blocked = outcomes.filter((o) => !o.ok && BLOCKED.test(o.message));
+		expect(refused.length).toBeLessThanOrEqual(5);
+		expect(refused.length + blocked.length).toBe(20);
+		const failures = await database.knex('audit_events').where({ actor_email: email, event: 'sign-in-failed' });
+		expect(failures.length).toBeLessThanOrEqual(5);
+	});
+});
+
 describe('sign-in rate limit per IP', () => {
 	it('blocks an address after fifty failures across many accounts, and only that address', async () => {
 		const { email } = await newAccount();
@@ -144,5 +160,14 @@ describe('sign-in rate limit per IP', () => {
 		const fromSprayer = await signIn({ email, password: PASSWORD }, sprayer);
 		expect(!fromSprayer.ok && fromSprayer.message).toMatch(BLOCKED);
 		expect((await signIn({ email, password: PASSWORD }, contextFrom('10.1.0.2'))).ok).toBe(true);
+	});
+
+	it('does not count successful sign-ins against the address', async () => {
+		const { email } = await newAccount();
+		const office = contextFrom('10.1.0.3');
+		for (let i = 0; i < 45; i += 1) await signIn({ email: `typo-${i}@test.example`, password: 'wrong-password-xyz' }, office);
+		// Ten colleagues' successes behind one office address: 55 attempts, but only 45 failures.
+		for (let i = 0; i < 10; i += 1) expect((await signIn({ email, password: PASSWORD }, office)).ok, `success ${i + 1}`).toBe(true);
+		expect((await signIn({ email, password: PASSWORD }, office)).ok).toBe(true);
 	});
 });

@@ -20,7 +20,7 @@ import { sendMail } from '../mail/mailer';
 import { passwordResetMessage, verifyEmailMessage } from '../mail/templates';
 import { consumeEmailToken, createEmailToken, peekEmailToken, tokenLifetimesMs, tokenProblemWords } from './email-tokens';
 import { decoyPasswordHash, hashPassword, passwordProblem, verifyPasswordHash } from './password';
-import { clearSignInFailures, mayRequestResetMail, recordFailedSignIn, signInBlocked } from './rate-limit';
+import { clearSignInFailures, mayRequestResetMail, reserveSignInAttempt, signInSucceeded } from './rate-limit';
 import { createSession, generateSessionToken, invalidateUserSessions, type Session } from './session';
 
 export interface RequestContext {
@@ -87,7 +87,7 @@ export type SignInOutcome =
 
 export async function signIn(input: { email: string; password: string }, context: RequestContext): Promise<SignInOutcome> {
 	const email = input.email.trim().toLowerCase();
-	const limit = await signInBlocked(email, context.ip);
+	const limit = await reserveSignInAttempt(email, context.ip);
 	if (limit.blocked) {
 		await recordAuditEvent({ event: 'sign-in-blocked', actorEmail: email, ip: context.ip });
 		const minutes = Math.max(1, Math.ceil(limit.retryAfterSeconds / 60));
@@ -97,11 +97,10 @@ export async function signIn(input: { email: string; password: string }, context
 	// Verify against a decoy when the address is unknown so both answers take as long.
 	const valid = await verifyPasswordHash(credentials?.password_hash ?? (await decoyPasswordHash()), input.password);
 	if (!credentials || !valid) {
-		await recordFailedSignIn(email, context.ip);
 		await recordAuditEvent({ event: 'sign-in-failed', actorUserId: credentials?.id ?? null, actorEmail: email, ip: context.ip });
 		return { ok: false, message: SIGN_IN_REFUSED };
 	}
-	await clearSignInFailures(email);
+	await signInSucceeded(email, context.ip);
 	const sessionToken = generateSessionToken();
 	const session = await createSession(sessionToken, credentials.id, context);
 	await recordAuditEvent({ event: 'sign-in', actorUserId: credentials.id, actorEmail: credentials.email, ip: context.ip });

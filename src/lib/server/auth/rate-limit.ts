@@ -1,8 +1,11 @@
 /**
  * Brute-force limits on sign-in, kept in PostgreSQL so every app process
- * shares them (rate-limiter-flexible's Postgres store). Only failures count;
- * a success clears the account's counter. The key is the e-mail as typed, so
- * unknown and known addresses behave alike.
+ * shares them (rate-limiter-flexible's Postgres store). Each attempt takes its
+ * point before the password is checked, so a burst of parallel guesses cannot
+ * all pass a check made before any of them is counted; a success clears the
+ * account's counter and hands the address's point back, so in effect only
+ * failures count. The key is the e-mail as typed, so unknown and known
+ * addresses behave alike.
  */
 import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
 import { db } from '../db/knex';
@@ -38,31 +41,34 @@ export interface LimitState {
 	retryAfterSeconds: number;
 }
 
-function stateOf(res: RateLimiterRes | null, points: number): LimitState {
-	if (!res) return { blocked: false, retryAfterSeconds: 0 };
-	return { blocked: res.consumedPoints >= points, retryAfterSeconds: Math.ceil(res.msBeforeNext / 1000) };
+function refusal(outcome: PromiseSettledResult<RateLimiterRes>): RateLimiterRes | null {
+	if (outcome.status === 'fulfilled') return null;
+	if (outcome.reason instanceof RateLimiterRes) return outcome.reason;
+	throw outcome.reason;
 }
 
-export async function signInBlocked(email: string, ip: string): Promise<LimitState> {
+/**
+ * Counts one sign-in attempt against the account and the address; blocked
+ * once the account has used its 5 attempts or the address its 50. A blocked
+ * attempt leaves the other counter as it was.
+ */
+export async function reserveSignInAttempt(email: string, ip: string): Promise<LimitState> {
 	const { account, ip: byIp } = get();
-	const [a, i] = await Promise.all([account.get(email.toLowerCase()), byIp.get(ip)]);
-	const accountState = stateOf(a, 5);
-	const ipState = stateOf(i, 50);
-	if (accountState.blocked) return accountState;
-	return ipState;
+	const key = email.toLowerCase();
+	const [a, i] = await Promise.allSettled([account.consume(key), byIp.consume(ip)]);
+	const accountRefusal = refusal(a);
+	const ipRefusal = refusal(i);
+	const refused = accountRefusal ?? ipRefusal;
+	if (!refused) return { blocked: false, retryAfterSeconds: 0 };
+	if (!accountRefusal) await account.reward(key, 1);
+	if (!ipRefusal) await byIp.reward(ip, 1);
+	return { blocked: true, retryAfterSeconds: Math.ceil(refused.msBeforeNext / 1000) };
 }
 
-async function consumeQuietly(limiter: RateLimiterPostgres, key: string) {
-	try {
-		await limiter.consume(key);
-	} catch (rejection) {
-		if (!(rejection instanceof RateLimiterRes)) throw rejection;
-	}
-}
-
-export async function recordFailedSignIn(email: string, ip: string): Promise<void> {
+/** A right password: the account starts afresh and the attempt no longer counts against the address. */
+export async function signInSucceeded(email: string, ip: string): Promise<void> {
 	const { account, ip: byIp } = get();
-	await Promise.all([consumeQuietly(account, email.toLowerCase()), consumeQuietly(byIp, ip)]);
+	await Promise.all([account.delete(email.toLowerCase()), byIp.reward(ip, 1)]);
 }
 
 export async function clearSignInFailures(email: string): Promise<void> {
