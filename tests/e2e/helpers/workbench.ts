@@ -5,35 +5,16 @@
  */
 import { expect, type APIRequestContext, type APIResponse } from '@playwright/test';
 import { request as playwrightRequest } from '@playwright/test';
-import { demoUsers } from '../../../seeds/02_demo_users';
-import { workspaceIdOf, type Persona } from './session';
+import { signedInRequest, workspaceIdOf, type Persona } from './session';
 import { tidalInput } from '../../fixtures/scenario-documents';
 
 export const DEMO_WORKSPACE = 'Halvard Marine Energy';
 
 export type Clients = Record<Persona, APIRequestContext>;
 
-/**
- * A client signed in through the real sign-in form. It asks for HTML, as a
- * browser's form post does: asked with the default `accept: *\/*`, SvelteKit
- * answers a form action with a JSON result (status 200) instead of the 303.
- */
-async function signedInClient(playwright: { request: typeof playwrightRequest }, baseURL: string, persona: Persona): Promise<APIRequestContext> {
-	const context = await playwright.request.newContext({ baseURL, extraHTTPHeaders: { origin: baseURL } });
-	if (persona === 'anonymous') return context;
-	const user = demoUsers[persona];
-	const response = await context.post('/signin', {
-		headers: { accept: 'text/html' },
-		form: { email: user.email, password: user.password, next: '/app' },
-		maxRedirects: 0
-	});
-	expect(response.status(), `sign-in of ${persona}`).toBe(303);
-	return context;
-}
-
 export async function signInEveryone(playwright: { request: typeof playwrightRequest }, baseURL: string): Promise<Clients> {
 	const personas: Persona[] = ['owner', 'analyst', 'viewer', 'outsider', 'anonymous'];
-	const contexts = await Promise.all(personas.map((p) => signedInClient(playwright, baseURL, p)));
+	const contexts = await Promise.all(personas.map((p) => signedInRequest(playwright, baseURL, p)));
 	return Object.fromEntries(personas.map((p, i) => [p, contexts[i]])) as Clients;
 }
 
