@@ -75,7 +75,8 @@ async function main() {
 	services.push(await startPostgres());
 	for (const startService of extraServices) services.push(await startService());
 	const serviceEnv = Object.assign({}, ...services.map((s) => s.env)) as Record<string, string>;
-	const env = { ...process.env, ...serviceEnv, HOST: host, PORT: port, ORIGIN: origin };
+	// adapter-node refuses bodies over 512 KB by default; uploads may be up to 20 MB (src/lib/server/uploads).
+	const env = { BODY_SIZE_LIMIT: '26M', ...process.env, ...serviceEnv, HOST: host, PORT: port, ORIGIN: origin };
 
 	if (dev) {
 		app = spawn('npx', ['vite', 'dev', '--host', host, '--port', port, '--strictPort'], {
