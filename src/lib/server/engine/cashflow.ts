@@ -22,6 +22,7 @@ import { capexSchedule, decommissioningCost, opexSchedule, totalOpex, type Capex
 import { grantSchedule, revenueByYear } from './revenue';
 import { corporateTax } from './tax';
 import { structureDebt, type DebtStructure } from './debt';
+import { sculptedLoan } from './finance/loans';
 
 export type CasePreparation = {
 	scenario: Scenario;
@@ -160,6 +161,30 @@ export type FinancingResult = {
 const MAX_TAX_ITERATIONS = 40;
 
 /**
+ * Starting interest for a loan sculpted to a target DSCR, with the tax shield.
+ * If every loan year pays tax at rate tau, CFADS_k = A_k + tau I_k (A: CFADS
+ * with no interest) and DS_k = CFADS_k / T, so the balance recursion
+ * B_{k-1} (1 + r) = DS_k + B_k becomes
+ *
+ *     B_{k-1} (1 + r (1 - tau / T)) = A_k / T + B_k
+ *
+ * a sculpted loan on A at the effective rate r (1 - tau / T): its opening
+ * balances are the true ones, and r x opening is the interest. Exact in that
+ * regime (the iteration then stops at once); a close start otherwise (years
+ * with losses have no shield).
+ */
+function shieldedSculptingGuess(
+	cfadsWithoutInterest: readonly Decimal[],
+	terms: Extract<Scenario['finance']['debt'], { sizing: 'target-dscr' }>,
+	taxRate: number
+): Decimal[] {
+	const rate = dec(terms.interestRate);
+	const effectiveRate = rate.times(ONE.minus(dec(taxRate).div(terms.targetDscr)));
+	const rows = sculptedLoan(cfadsWithoutInterest, terms.targetDscr, effectiveRate, terms.tenorYears, terms.graceYears).rows;
+	return rows.map((row) => row.opening.times(rate));
+}
+
+/**
  * Debt, levered tax, CFADS and equity cash flows.
  *
  *     taxable_k = EBITDA_k - depreciation_k - decommissioning_k - interest_k
@@ -209,6 +234,10 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 	const span = terms.tenorYears;
 	let interest: Decimal[] = Array.from({ length: span }, () => ZERO);
 	let cfads = cfadsFor(taxFor(interest).tax);
+	if (terms.sizing === 'target-dscr' && terms.repayment === 'sculpted' && finance.taxRate > 0) {
+		interest = shieldedSculptingGuess(cfads, terms, finance.taxRate);
+		cfads = cfadsFor(taxFor(interest).tax);
+	}
 	let debt = structureDebt({ terms, fundingNeed: prep.fundingNeed, cfads, operatingYears: n });
 	// Gearing-sized annuity or straight-line debt does not depend on CFADS: one pass settles it.
 	const dependsOnCfads = terms.sizing === 'target-dscr' || terms.repayment === 'sculpted';

@@ -5,6 +5,7 @@
  */
 import { dec, Decimal, ONE, ZERO } from './decimal';
 import { annuityLoan, sculptedLoan, straightLineLoan, type LoanRow } from './finance/loans';
+import { npv } from './finance/discounting';
 import type { DebtSpec } from '../../schemas/scenario';
 
 export type DebtTerms = Exclude<DebtSpec, { sizing: 'none' }>;
@@ -106,8 +107,10 @@ function dscrSizedBalance(
 function repaymentRows(terms: DebtTerms, balance: Decimal, cfads: readonly Decimal[], warnings: string[]): LoanRow[] {
 	if (balance.isZero()) return [];
 	if (terms.repayment !== 'sculpted') return scheduleFor(terms.repayment, balance, terms);
-	// Sculpting is linear in CFADS / DSCR: sculpt at DSCR 1, then scale the CFADS so the loan is this balance.
-	const perUnitCover = sculptedLoan(cfads, ONE, terms.interestRate, terms.tenorYears, terms.graceYears).principal;
+	// Sculpting is linear in CFADS / DSCR. At DSCR 1 the loan would be the present value, at the end of
+	// grace, of the repayment years' CFADS; scaling CFADS by balance / that value sculpts exactly this balance.
+	const repaymentCfads = cfads.slice(terms.graceYears, terms.tenorYears).map((c) => Decimal.max(c, ZERO));
+	const perUnitCover = npv(terms.interestRate, [ZERO, ...repaymentCfads]);
 	if (perUnitCover.lte(0)) {
 		warnings.push('Repayment cannot be sculpted: CFADS is not positive over the tenor; an annuity is used instead.');
 		return scheduleFor('annuity', balance, terms);
