@@ -11,6 +11,7 @@ import { generateRandomToken, hashToken } from './tokens';
 export const SESSION_COOKIE = 'tw_session';
 const DAY_MS = 24 * 60 * 60 * 1000;
 export const SESSION_LIFETIME_MS = 30 * DAY_MS;
+const LAST_SEEN_RESOLUTION_MS = 60 * 60 * 1000;
 
 export interface Session {
 	id: string;
@@ -64,6 +65,7 @@ export async function validateSessionToken(token: string, knex: Knex = db(), now
 			'sessions.user_id',
 			'sessions.expires_at',
 			'sessions.workspace_id',
+			'sessions.last_seen_at',
 			'users.email',
 			'users.name',
 			'users.email_verified_at'
@@ -81,6 +83,9 @@ export async function validateSessionToken(token: string, knex: Knex = db(), now
 	if (now.getTime() >= expiresAt.getTime() - SESSION_LIFETIME_MS / 2) {
 		session.expiresAt = new Date(now.getTime() + SESSION_LIFETIME_MS);
 		await knex('sessions').where({ id }).update({ expires_at: session.expiresAt, last_seen_at: now });
+	} else if (now.getTime() - new Date(row.last_seen_at).getTime() >= LAST_SEEN_RESOLUTION_MS) {
+		// Keeps "where you are signed in" honest without a write on every request.
+		await knex('sessions').where({ id }).update({ last_seen_at: now });
 	}
 	return {
 		session,
