@@ -46,7 +46,7 @@ const occurrenceBasis = z
 
 const speedHistogramSchema = z
 	.object({
-		kind: z.literal('speed-histogram'),
+		kind: z.literal('speed-histogram').describe('Resource kind'),
 		occurrenceBasis: occurrenceBasis.default('probability'),
 		bins: z
 			.array(
@@ -64,7 +64,7 @@ const binWidth = positive('Width of the speed bins the distribution is turned in
 
 const weibullSchema = z
 	.object({
-		kind: z.literal('weibull'),
+		kind: z.literal('weibull').describe('Resource kind'),
 		scaleMPerS: positive('Weibull scale parameter c, m/s'),
 		shape: positive('Weibull shape parameter k (dimensionless)'),
 		binWidthMPerS: binWidth
@@ -73,7 +73,7 @@ const weibullSchema = z
 
 const rayleighSchema = z
 	.object({
-		kind: z.literal('rayleigh'),
+		kind: z.literal('rayleigh').describe('Resource kind'),
 		meanSpeedMPerS: positive('Mean flow speed, m/s'),
 		binWidthMPerS: binWidth
 	})
@@ -95,7 +95,7 @@ const teOverTp = z
 
 const seaStateTableSchema = z
 	.object({
-		kind: z.literal('sea-state-table'),
+		kind: z.literal('sea-state-table').describe('Resource kind'),
 		periodType,
 		teOverTp,
 		occurrenceBasis: occurrenceBasis.default('probability'),
@@ -114,7 +114,7 @@ const seaStateTableSchema = z
 
 const seaStateSchema = z
 	.object({
-		kind: z.literal('sea-state'),
+		kind: z.literal('sea-state').describe('Resource kind'),
 		periodType,
 		teOverTp,
 		hsM: positive('Significant wave height Hs, m'),
@@ -136,7 +136,7 @@ export const resourceSchema = z
 
 const rotorSchema = z
 	.object({
-		kind: z.literal('rotor'),
+		kind: z.literal('rotor').describe('Device kind'),
 		rotorDiameterM: positive('Rotor diameter, m (give this or sweptAreaM2)').optional(),
 		sweptAreaM2: positive('Swept area per device, m^2 (overrides rotorDiameterM)').optional(),
 		powerCoefficient: z
@@ -160,7 +160,7 @@ const rotorSchema = z
 
 const powerCurveSchema = z
 	.object({
-		kind: z.literal('power-curve'),
+		kind: z.literal('power-curve').describe('Device kind'),
 		ratedPowerKW: positive('Rated power per device, kW (defaults to the curve maximum)').optional(),
 		points: z
 			.array(
@@ -176,7 +176,7 @@ const powerCurveSchema = z
 
 const powerMatrixSchema = z
 	.object({
-		kind: z.literal('power-matrix'),
+		kind: z.literal('power-matrix').describe('Device kind'),
 		ratedPowerKW: positive('Rated power per device, kW (defaults to the matrix maximum)').optional(),
 		periodType,
 		teOverTp,
@@ -195,7 +195,7 @@ const powerMatrixSchema = z
 
 const captureWidthSchema = z
 	.object({
-		kind: z.literal('capture-width'),
+		kind: z.literal('capture-width').describe('Device kind'),
 		captureWidthRatio: positive('Wave-to-wire capture width ratio (fraction of the flux across the characteristic width)'),
 		characteristicWidthM: positive('Characteristic width of the device, m'),
 		ratedPowerKW: positive('Rated electrical power per device, kW (cap)')
@@ -277,36 +277,36 @@ const escalation = z
 const opexLineSchema = z.discriminatedUnion('basis', [
 	z.object({
 		name: lineName,
-		basis: z.literal('fixed-per-year'),
+		basis: z.literal('fixed-per-year').describe('How the line is priced'),
 		amount: nonNegative('Cost per year, currency units, real'),
 		escalation
 	}),
 	z.object({
 		name: lineName,
-		basis: z.literal('per-kW-year'),
+		basis: z.literal('per-kW-year').describe('How the line is priced'),
 		amount: nonNegative('Cost per kW installed per year, currency units, real'),
 		escalation
 	}),
 	z.object({
 		name: lineName,
-		basis: z.literal('per-MWh'),
+		basis: z.literal('per-MWh').describe('How the line is priced'),
 		amount: nonNegative('Cost per MWh delivered, currency units, real'),
 		escalation
 	}),
 	z.object({
 		name: lineName,
-		basis: z.literal('percent-of-capex'),
+		basis: z.literal('percent-of-capex').describe('How the line is priced'),
 		fraction: fraction('Share of total capex (with contingency) per year, e.g. insurance'),
 		escalation
 	}),
 	z.object({
 		name: lineName,
-		basis: z.literal('percent-of-revenue'),
+		basis: z.literal('percent-of-revenue').describe('How the line is priced'),
 		fraction: fraction('Share of revenue in the same year, e.g. a seabed lease')
 	}),
 	z.object({
 		name: lineName,
-		basis: z.literal('periodic-overhaul'),
+		basis: z.literal('periodic-overhaul').describe('How the line is priced'),
 		amount: nonNegative('Cost of one overhaul, currency units, real (per device when perDevice)'),
 		perDevice: z.boolean().describe('Amount is per device rather than for the whole array').default(true),
 		intervalYears: wholeYears('An overhaul every this many operating years (not in the final year)', 1),
@@ -320,7 +320,10 @@ const opexSchema = z
 
 const decommissioningSchema = z
 	.object({
-		basis: z.enum(['lump-sum', 'per-device', 'per-kW', 'percent-of-capex']).default('lump-sum'),
+		basis: z
+			.enum(['lump-sum', 'per-device', 'per-kW', 'percent-of-capex'])
+			.describe('lump-sum for the project, per device, per kW installed, or a share of capex')
+			.default('lump-sum'),
 		amount: nonNegative(
 			'Decommissioning cost, real (currency units; per device or per kW by basis; a fraction for percent-of-capex)'
 		).default(0)
@@ -367,14 +370,14 @@ const loanTerms = {
 
 const debtSchema = z
 	.discriminatedUnion('sizing', [
-		z.object({ sizing: z.literal('none') }),
+		z.object({ sizing: z.literal('none').describe('How the debt is sized') }),
 		z.object({
-			sizing: z.literal('gearing'),
+			sizing: z.literal('gearing').describe('How the debt is sized'),
 			gearing: fraction('Share of construction spend (capex net of grants) funded by debt'),
 			...loanTerms
 		}),
 		z.object({
-			sizing: z.literal('target-dscr'),
+			sizing: z.literal('target-dscr').describe('How the debt is sized'),
 			targetDscr: z.number().min(1).max(5).describe('Target debt service cover ratio in every repayment year'),
 			maxGearing: fraction('Cap on the share of construction spend funded by debt').default(0.8),
 			...loanTerms
@@ -389,7 +392,10 @@ const financeSchema = z
 		taxRate: fraction('Corporate tax rate').default(0),
 		depreciation: z
 			.object({
-				method: z.enum(['straight-line', 'declining-balance']).default('straight-line'),
+				method: z
+					.enum(['straight-line', 'declining-balance'])
+					.describe('Straight line, or declining balance switching to straight line when that is larger')
+					.default('straight-line'),
 				lifeYears: wholeYears('Tax depreciation life, years (defaults to the operating life)', 1).optional(),
 				decliningBalanceFactor: positive('Declining-balance factor (2 = double declining)').default(2)
 			})
@@ -454,6 +460,10 @@ export const scenarioSchema = scenarioObject.superRefine(
 type RefineCtx = z.core.$RefinementCtx<unknown>;
 type Device = z.output<typeof deviceSchema>;
 
+function flag(ctx: RefineCtx, path: (string | number)[], message: string) {
+	ctx.addIssue({ code: 'custom', path, message });
+}
+
 function checkTechnologyFit(s: z.output<typeof scenarioObject>, ctx: RefineCtx) {
 	const flow = s.technology !== 'wave';
 	if (flow !== speedResources.has(s.resource.kind)) {
@@ -483,24 +493,24 @@ function ascending(values: readonly number[]): boolean {
 function checkDevice(device: Device, ctx: RefineCtx) {
 	if (device.kind === 'rotor') {
 		if (device.rotorDiameterM === undefined && device.sweptAreaM2 === undefined) {
-			ctx.addIssue({ code: 'custom', path: ['device', 'rotorDiameterM'], message: 'give rotorDiameterM or sweptAreaM2' });
+			flag(ctx, ['device', 'rotorDiameterM'], 'give rotorDiameterM or sweptAreaM2');
 		}
 		if (device.cutOutSpeedMPerS <= device.cutInSpeedMPerS) {
-			ctx.addIssue({ code: 'custom', path: ['device', 'cutOutSpeedMPerS'], message: 'cut-out speed must be above cut-in speed' });
+			flag(ctx, ['device', 'cutOutSpeedMPerS'], 'cut-out speed must be above cut-in speed');
 		}
 	}
 	if (device.kind === 'power-curve' && !ascending(device.points.map((p) => p.speedMPerS))) {
-		ctx.addIssue({ code: 'custom', path: ['device', 'points'], message: 'power curve speeds must be strictly ascending' });
+		flag(ctx, ['device', 'points'], 'power curve speeds must be strictly ascending');
 	}
 	if (device.kind === 'power-matrix') {
-		if (!ascending(device.hsM)) ctx.addIssue({ code: 'custom', path: ['device', 'hsM'], message: 'Hs values must be strictly ascending' });
-		if (!ascending(device.periodS)) ctx.addIssue({ code: 'custom', path: ['device', 'periodS'], message: 'periods must be strictly ascending' });
+		if (!ascending(device.hsM)) flag(ctx, ['device', 'hsM'], 'Hs values must be strictly ascending');
+		if (!ascending(device.periodS)) flag(ctx, ['device', 'periodS'], 'periods must be strictly ascending');
 		if (device.powerKW.length !== device.hsM.length) {
-			ctx.addIssue({ code: 'custom', path: ['device', 'powerKW'], message: `power matrix needs ${device.hsM.length} rows (one per hsM value), has ${device.powerKW.length}` });
+			flag(ctx, ['device', 'powerKW'], `power matrix needs ${device.hsM.length} rows (one per hsM value), has ${device.powerKW.length}`);
 		}
 		device.powerKW.forEach((row, i) => {
 			if (row.length !== device.periodS.length) {
-				ctx.addIssue({ code: 'custom', path: ['device', 'powerKW', i], message: `row needs ${device.periodS.length} values (one per periodS value), has ${row.length}` });
+				flag(ctx, ['device', 'powerKW', i], `row needs ${device.periodS.length} values (one per periodS value), has ${row.length}`);
 			}
 		});
 	}
@@ -511,11 +521,11 @@ function checkPhasing(s: z.output<typeof scenarioObject>, ctx: RefineCtx) {
 	const check = (values: number[] | undefined, path: (string | number)[]) => {
 		if (!values) return;
 		if (values.length !== years) {
-			ctx.addIssue({ code: 'custom', path, message: `phasing needs ${years} entries (one per construction year), has ${values.length}` });
+			flag(ctx, path, `phasing needs ${years} entries (one per construction year), has ${values.length}`);
 			return;
 		}
 		const total = values.reduce((a, b) => a + b, 0);
-		if (Math.abs(total - 1) > 1e-6) ctx.addIssue({ code: 'custom', path, message: `phasing must sum to 1, sums to ${total}` });
+		if (Math.abs(total - 1) > 1e-6) flag(ctx, path, `phasing must sum to 1, sums to ${total}`);
 	};
 	check(s.capex.phasing, ['capex', 'phasing']);
 	s.capex.lines.forEach((line, i) => check(line.phasing, ['capex', 'lines', i, 'phasing']));
@@ -525,10 +535,10 @@ function checkFinance(s: z.output<typeof scenarioObject>, ctx: RefineCtx) {
 	const debt = s.finance.debt;
 	if (debt.sizing === 'none') return;
 	if (debt.tenorYears > s.timeline.operatingYears) {
-		ctx.addIssue({ code: 'custom', path: ['finance', 'debt', 'tenorYears'], message: `tenor (${debt.tenorYears} years) must not exceed the operating life (${s.timeline.operatingYears} years)` });
+		flag(ctx, ['finance', 'debt', 'tenorYears'], `tenor (${debt.tenorYears} years) must not exceed the operating life (${s.timeline.operatingYears} years)`);
 	}
 	if (debt.graceYears >= debt.tenorYears) {
-		ctx.addIssue({ code: 'custom', path: ['finance', 'debt', 'graceYears'], message: 'grace years must be fewer than the tenor' });
+		flag(ctx, ['finance', 'debt', 'graceYears'], 'grace years must be fewer than the tenor');
 	}
 }
 

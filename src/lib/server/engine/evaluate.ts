@@ -11,7 +11,7 @@ import type { Scenario } from '../../schemas/scenario';
 import { estimateEnergy, type EnergyEstimate } from './energy/yield';
 import { financeCase, operate, prepareCase, type CasePreparation, type FinancingResult, type OperatingResult } from './cashflow';
 import { nominalPricePath } from './revenue';
-import { coverRatios, discountedLcoe, fixedChargeRateLcoe, internalRate, loanLifeCoverRatio, paybackYears } from './metrics';
+import { coverRatios, discountedLcoe, type CoverRatios, fixedChargeRateLcoe, internalRate, loanLifeCoverRatio, paybackYears } from './metrics';
 import { solveBreakevenTariff } from './breakeven';
 
 export const METRIC_KEYS = [
@@ -107,7 +107,7 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 		if (payback === null) note('paybackYears', 'the cumulative post-tax cash flow never turns positive');
 	}
 
-	let cover: ReturnType<typeof coverRatios> = { perYear: [], min: null, average: null };
+	let cover: CoverRatios = { perYear: [], min: null, average: null };
 	let llcr: Decimal | null = null;
 	const debt = financing?.debt ?? null;
 	if (financing) {
@@ -260,8 +260,11 @@ export function decimalString(d: Decimal): DecimalString {
 }
 const maybe = (d: Decimal | null | undefined) => (d === null || d === undefined ? null : decimalString(d));
 
-const TIME_CONVENTION =
-	't = 0 is the commercial operation date (COD); capex of the last construction year is at t = 0 and earlier years at t = -1, -2, ...; operating year k is at t = k (end of year). Amounts are nominal; NPV is valued at COD.';
+const TIME_CONVENTION = [
+	't = 0 is the commercial operation date (COD);',
+	'capex of the last construction year is at t = 0 and earlier years at t = -1, -2, ...;',
+	'operating year k is at t = k (end of year). Amounts are nominal; NPV is valued at COD.'
+].join(' ');
 
 function cashFlowRows(d: DetailedEvaluation): CashFlowRow[] {
 	const { prep, operating: op, financing: fin } = d;

@@ -100,7 +100,9 @@ export function paybackYears(series: TimeSeries): Decimal | null {
  * minimum and the (arithmetic) average. Null when there is no debt service.
  * Source: common practice in project finance.
  */
-export function coverRatios(cfads: readonly Decimal[], debtService: readonly Decimal[]): { perYear: (Decimal | null)[]; min: Decimal | null; average: Decimal | null } {
+export type CoverRatios = { perYear: (Decimal | null)[]; min: Decimal | null; average: Decimal | null };
+
+export function coverRatios(cfads: readonly Decimal[], debtService: readonly Decimal[]): CoverRatios {
 	const perYear = debtService.map((ds, k) => (ds.gt(0) ? cfads[k].div(ds) : null));
 	const present = perYear.filter((d): d is Decimal => d !== null);
 	if (present.length === 0) return { perYear, min: null, average: null };
