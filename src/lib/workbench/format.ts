@@ -1,0 +1,51 @@
+/**
+ * Display formatting of the engine's decimal strings. The engine's exact
+ * values stay in the API answer and the exports; these are for reading.
+ */
+
+const grouped = (digits: number) => new Intl.NumberFormat('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+
+function toNumber(value: string | number | null | undefined): number | null {
+	if (value === null || value === undefined || value === '') return null;
+	const n = typeof value === 'number' ? value : Number(value);
+	return Number.isFinite(n) ? n : null;
+}
+
+/** 1234567.8 -> "1,234,568" (digits 0), with a true minus sign. */
+export function formatNumber(value: string | number | null | undefined, digits = 0): string {
+	const n = toNumber(value);
+	if (n === null) return '—';
+	const text = grouped(digits).format(Math.abs(n) < 0.5 * 10 ** -digits ? 0 : n);
+	return text.replace('-', '−');
+}
+
+/** A fraction as a percentage: 0.0691 -> "6.91 %". */
+export function formatPercent(value: string | number | null | undefined, digits = 2): string {
+	const n = toNumber(value);
+	return n === null ? '—' : `${formatNumber(n * 100, digits)} %`;
+}
+
+/** Money in millions when large: 46491574 -> "46.49 M". */
+export function formatMoneyShort(value: string | number | null | undefined): string {
+	const n = toNumber(value);
+	if (n === null) return '—';
+	if (Math.abs(n) >= 1e6) return `${formatNumber(n / 1e6, 2)} M`;
+	if (Math.abs(n) >= 1e3) return `${formatNumber(n / 1e3, 1)} k`;
+	return formatNumber(n, 0);
+}
+
+/** A number for a chart axis (floats are fine there). */
+export function chartNumber(value: string | null | undefined): number | null {
+	return toNumber(value);
+}
+
+export function formatDateTime(iso: string | Date): string {
+	const date = typeof iso === 'string' ? new Date(iso) : iso;
+	return date.toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+}
+
+export function formatBytes(bytes: number): string {
+	if (bytes >= 1024 * 1024) return `${formatNumber(bytes / (1024 * 1024), 1)} MB`;
+	if (bytes >= 1024) return `${formatNumber(bytes / 1024, 1)} kB`;
+	return `${bytes} B`;
+}
