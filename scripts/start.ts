@@ -36,7 +36,8 @@ function buildIsStale(): boolean {
 	const built = join(projectRoot, 'build', 'index.js');
 	if (!existsSync(built)) return true;
 	const builtAt = statSync(built).mtimeMs;
-	const inputs = ['src', 'static', 'svelte.config.js', 'vite.config.ts', 'tailwind.config.ts', 'package-lock.json'];
+	// docs/methods and examples/ are bundled into the build too.
+	const inputs = ['src', 'static', 'docs', 'examples', 'svelte.config.js', 'vite.config.ts', 'tailwind.config.ts', 'package-lock.json'];
 	return inputs.some((input) => newestMtime(join(projectRoot, input)) > builtAt);
 }
 
