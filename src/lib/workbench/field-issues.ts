@@ -25,12 +25,29 @@ export function fieldIdOfKey(key: string): string {
 
 export type IssueIndex = Map<string, string[]>;
 
+const plainWords: [RegExp, string][] = [
+	[/^Too big: expected number to be <=(.+)$/, 'At most $1.'],
+	[/^Too big: expected number to be <(.+)$/, 'Less than $1.'],
+	[/^Too small: expected number to be >=(.+)$/, 'At least $1.'],
+	[/^Too small: expected number to be >(.+)$/, 'More than $1.'],
+	[/^Too small: expected array to have >=(\d+) items?$/, 'Needs at least $1 entries.'],
+	[/^Invalid input: expected int, received number$/, 'Enter a whole number.'],
+	[/^Invalid input: expected number, received (undefined|null|NaN)$/, 'Enter a number.'],
+	[/^Invalid input: expected string, received undefined$/, 'Fill this in.']
+];
+
+/** zod's own words for a bound ("Too big: expected number to be <=1") said the way the page speaks ("At most 1."). */
+export function plainIssue(message: string): string {
+	for (const [pattern, words] of plainWords) if (pattern.test(message)) return message.replace(pattern, words);
+	return message;
+}
+
 /** Problems by field key; `document.` and `document` prefixes dropped. */
 export function indexIssues(issues: readonly ApiIssue[]): IssueIndex {
 	const index: IssueIndex = new Map();
 	for (const issue of issues) {
 		const key = issue.path === 'document' ? '(document)' : issue.path.replace(/^document\./, '');
-		index.set(key, [...(index.get(key) ?? []), issue.message]);
+		index.set(key, [...(index.get(key) ?? []), plainIssue(issue.message)]);
 	}
 	return index;
 }

@@ -88,7 +88,7 @@ export function describeUpload(upload: UploadJson): UploadFacts {
 				],
 				shape: {
 					type: 'histogram',
-					columns: ['Speed (m/s)', 'Samples', 'Hours (h/yr)', 'Probability'],
+					columns: ['Speed (m/s)', 'Samples', 'Hours', 'Probability'],
 					cells: bins.map((b) => [formatNumber(b.speedMS, 2), formatNumber(b.samples), formatNumber(b.hours, 1), formatNumber(b.probability, 4)]),
 					rows: bins.map((b) => ({ speed: Number(b.speedMS), occurrence: Number(b.hours) })),
 					occurrenceLabel: 'Hours in the record'

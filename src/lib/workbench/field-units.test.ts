@@ -1,0 +1,55 @@
+import { describe, expect, it } from 'vitest';
+import { unitOf } from './field-units';
+
+// The schema's own conventions (src/lib/schemas/scenario.ts header): speeds m/s,
+// power kW, lengths m, money in the document's currency, shares as fractions.
+const tidal = {
+	currency: 'EUR',
+	resource: { kind: 'speed-histogram', occurrenceBasis: 'hours', bins: [{ speedMPerS: 1, occurrence: 10 }] },
+	capex: { lines: [{ name: 'Turbines', basis: 'per-device', amount: 1 }, { name: 'PM', basis: 'per-kW', amount: 1 }] },
+	opex: {
+		lines: [
+			{ name: 'O&M', basis: 'per-kW-year', amount: 1 },
+			{ name: 'Overhaul', basis: 'periodic-overhaul', amount: 1, perDevice: false, intervalYears: 5 }
+		]
+	}
+};
+
+describe('unitOf', () => {
+	it('reads the unit from the field name', () => {
+		expect(unitOf(['site', 'waterDensityKgPerM3'], tidal, 'EUR')).toBe('kg/m³');
+		expect(unitOf(['device', 'cutInSpeedMPerS'], tidal, 'EUR')).toBe('m/s');
+		expect(unitOf(['device', 'ratedPowerKW'], tidal, 'EUR')).toBe('kW');
+		expect(unitOf(['device', 'sweptAreaM2'], tidal, 'EUR')).toBe('m²');
+		expect(unitOf(['device', 'rotorDiameterM'], tidal, 'EUR')).toBe('m');
+		expect(unitOf(['timeline', 'operatingYears'], tidal, 'EUR')).toBe('years');
+	});
+
+	it('gives a cell of a number list the unit of its list', () => {
+		expect(unitOf(['device', 'hsM', 2], {}, 'EUR')).toBe('m');
+		expect(unitOf(['device', 'periodS', 0], {}, 'EUR')).toBe('s');
+		expect(unitOf(['device', 'powerKW', 1, 3], {}, 'EUR')).toBe('kW');
+	});
+
+	it('takes a money amount’s unit from its line’s basis and the currency', () => {
+		expect(unitOf(['capex', 'lines', 0, 'amount'], tidal, 'GBP')).toBe('GBP/device');
+		expect(unitOf(['capex', 'lines', 1, 'amount'], tidal, 'GBP')).toBe('GBP/kW');
+		expect(unitOf(['opex', 'lines', 0, 'amount'], tidal, 'EUR')).toBe('EUR/kW·yr');
+		expect(unitOf(['opex', 'lines', 1, 'amount'], tidal, 'EUR')).toBe('EUR');
+		expect(unitOf(['revenue', 'tariffPerMWh'], tidal, 'USD')).toBe('USD/MWh');
+	});
+
+	it('names occurrences as hours or probabilities by the histogram’s basis', () => {
+		expect(unitOf(['resource', 'bins', 0, 'occurrence'], tidal, 'EUR')).toBe('h/yr');
+		const byProbability = { resource: { ...tidal.resource, occurrenceBasis: 'probability' } };
+		expect(unitOf(['resource', 'bins', 0, 'occurrence'], byProbability, 'EUR')).toBe('probability');
+	});
+
+	it('marks shares as fractions', () => {
+		expect(unitOf(['array', 'availability'], tidal, 'EUR')).toBe('fraction');
+		expect(unitOf(['array', 'arrayLoss'], tidal, 'EUR')).toBe('fraction');
+		expect(unitOf(['array', 'degradationPerYear'], tidal, 'EUR')).toBe('fraction/yr');
+		expect(unitOf(['capex', 'phasing', 1], tidal, 'EUR')).toBe('share');
+		expect(unitOf(['uncertainty', 'exceedanceLevels', 0], tidal, 'EUR')).toBe('%');
+	});
+});
