@@ -137,6 +137,17 @@ test('an analyst creates a project, uploads a time series into a new scenario, e
 	await expect(list.getByRole('link', { name: 'Downside case' })).toBeVisible();
 	await expect(list.getByRole('link', { name: 'Base case' })).toBeVisible();
 	await shot(page, '6-project', true);
+
+	// Archive the copy, find it among the archived, bring it back.
+	await page.getByRole('button', { name: 'Archive Downside case' }).click();
+	await expect(page.getByRole('status').filter({ hasText: '"Downside case" is archived.' })).toBeVisible();
+	await expect(list.getByRole('link', { name: 'Downside case' })).toHaveCount(0);
+	await page.getByRole('button', { name: 'Show archived scenarios' }).click();
+	const archivedList = page.getByRole('list', { name: 'Archived scenarios' });
+	await expect(archivedList.getByRole('link', { name: 'Downside case' })).toBeVisible();
+	await archivedList.getByRole('button', { name: 'Restore' }).click();
+	await expect(list.getByRole('link', { name: 'Downside case' })).toBeVisible();
+	await expect(page.getByText('No archived scenarios.')).toBeVisible();
 });
 
 test('a viewer reads a scenario and cannot change it', async ({ page }) => {
