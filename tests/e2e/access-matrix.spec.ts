@@ -133,6 +133,7 @@ const matrix: Row[] = [
 	{ route: '/app/w/[workspaceId]', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/audit', method: 'GET', expect: page('owner') },
 	{ route: '/app/w/[workspaceId]/members', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/projects/[projectId]', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/projects/[projectId]/compare', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/projects/[projectId]/scenarios/[scenarioId]', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/projects/[projectId]/scenarios/[scenarioId]/sensitivity', method: 'GET', expect: page('viewer') },
