@@ -19,7 +19,7 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 export const POST: RequestHandler = apiRoute(async (event) => {
 	const { project, user } = await requireProjectRole(event, event.params.projectId, 'analyst');
 	const body = validateBody(createScenarioBody, await readJsonBody(event.request));
-	const candidate = body.document !== undefined ? body.document : starterDocument(project.technology, { name: body.name, currency: project.currency });
+	const candidate = body.document !== undefined ? body.document : starterDocument(project.technology, { name: body.name, currency: project.currency, siteName: project.site_name });
 	if (candidate === undefined) {
 		throw new ApiProblem(422, 'Send a scenario document: there is no starter document for this technology.', [
 			{ path: 'document', message: 'required' }
