@@ -171,4 +171,18 @@ describe('acceptInvitation', () => {
 		const memberships = await database.knex('memberships').where({ workspace_id: workspace.id, user_id: invitee.id });
 		expect(memberships).toHaveLength(1);
 	});
+
+	it('raises an existing member to a higher invited role and never lowers one', async () => {
+		const { owner, workspace } = await newWorkspace();
+		const member = await newUser();
+		await database.knex('memberships').insert({ workspace_id: workspace.id, user_id: member.id, role: 'viewer' });
+
+		const up = await invite(workspace.id, owner.id, member.email, 'analyst');
+		await acceptInvitation(up.token, member.id, database.knex);
+		expect((await getMembership(workspace.id, member.id, database.knex))?.role).toBe('analyst');
+
+		const down = await invite(workspace.id, owner.id, member.email, 'viewer');
+		await acceptInvitation(down.token, member.id, database.knex);
+		expect((await getMembership(workspace.id, member.id, database.knex))?.role).toBe('analyst');
+	});
 });

@@ -131,10 +131,16 @@ export async function acceptInvitation(token: string, userId: string, knex: Knex
 			.update({ accepted_at: trx.fn.now(), accepted_by: userId })
 			.returning(['id', 'workspace_id', 'role']);
 		if (!row) return null;
-		await trx('memberships')
-			.insert({ workspace_id: row.workspace_id, user_id: userId, role: row.role })
-			.onConflict(['workspace_id', 'user_id'])
-			.ignore();
+		// A member who accepts keeps the higher of the present and the invited role:
+		// an invitation never demotes anyone.
+		await trx.raw(
+			`INSERT INTO memberships (workspace_id, user_id, role) VALUES (?, ?, ?)
+			 ON CONFLICT (workspace_id, user_id) DO UPDATE SET role = CASE
+			   WHEN array_position(ARRAY['viewer', 'analyst', 'owner'], EXCLUDED.role)
+			      > array_position(ARRAY['viewer', 'analyst', 'owner'], memberships.role)
+			   THEN EXCLUDED.role ELSE memberships.role END`,
+			[row.workspace_id, userId, row.role]
+		);
 		const view = await getInvitationByToken(token, trx);
 		return view ?? null;
 	});
