@@ -48,6 +48,24 @@ export async function getProjectById(id: string, knex: Knex = db()): Promise<Pro
 	return knex('projects').select(projectColumns).where({ id }).first();
 }
 
+/** The project a scenario belongs to, in one query (for access checks on scenario routes). */
+export async function getProjectOfScenario(scenarioId: string, knex: Knex = db()): Promise<ProjectRow | undefined> {
+	return knex('projects')
+		.join('scenarios', 'scenarios.project_id', 'projects.id')
+		.select(projectColumns.map((c) => `projects.${c}`))
+		.where('scenarios.id', scenarioId)
+		.first();
+}
+
+/** The project an upload belongs to, in one query. */
+export async function getProjectOfUpload(uploadId: string, knex: Knex = db()): Promise<ProjectRow | undefined> {
+	return knex('projects')
+		.join('uploads', 'uploads.project_id', 'projects.id')
+		.select(projectColumns.map((c) => `projects.${c}`))
+		.where('uploads.id', uploadId)
+		.first();
+}
+
 export interface NewProject {
 	workspaceId: string;
 	name: string;

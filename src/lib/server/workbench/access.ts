@@ -6,9 +6,7 @@
 import { error, isHttpError, type RequestEvent } from '@sveltejs/kit';
 import { isUuid, requireUser, requireWorkspaceRole, type WorkspaceAccess } from '../auth/authorize';
 import type { WorkspaceRole } from '../auth/roles';
-import { getProjectById, type ProjectRow } from '../db/projects';
-import { getScenarioPlace } from '../db/scenarios';
-import { getUploadPlace } from '../db/uploads';
+import { getProjectById, getProjectOfScenario, getProjectOfUpload, type ProjectRow } from '../db/projects';
 
 type AccessEvent = Pick<RequestEvent, 'locals' | 'url'>;
 
@@ -48,10 +46,9 @@ export interface ScenarioAccess extends ProjectAccess {
 
 export async function requireScenarioRole(event: AccessEvent, scenarioId: string, minimum: WorkspaceRole): Promise<ScenarioAccess> {
 	requireUser(event);
-	const place = isUuid(scenarioId) ? await getScenarioPlace(scenarioId) : undefined;
-	if (!place) error(404, noSuchScenario);
-	const access = await requireRoleHidingOthers(event, place.workspaceId, minimum, noSuchScenario);
-	const project = (await getProjectById(place.projectId))!;
+	const project = isUuid(scenarioId) ? await getProjectOfScenario(scenarioId) : undefined;
+	if (!project) error(404, noSuchScenario);
+	const access = await requireRoleHidingOthers(event, project.workspace_id, minimum, noSuchScenario);
 	return { ...access, project, scenarioId };
 }
 
@@ -61,9 +58,8 @@ export interface UploadAccess extends ProjectAccess {
 
 export async function requireUploadRole(event: AccessEvent, uploadId: string, minimum: WorkspaceRole): Promise<UploadAccess> {
 	requireUser(event);
-	const place = isUuid(uploadId) ? await getUploadPlace(uploadId) : undefined;
-	if (!place) error(404, noSuchUpload);
-	const access = await requireRoleHidingOthers(event, place.workspaceId, minimum, noSuchUpload);
-	const project = (await getProjectById(place.projectId))!;
+	const project = isUuid(uploadId) ? await getProjectOfUpload(uploadId) : undefined;
+	if (!project) error(404, noSuchUpload);
+	const access = await requireRoleHidingOthers(event, project.workspace_id, minimum, noSuchUpload);
 	return { ...access, project, uploadId };
 }
