@@ -5,7 +5,7 @@ export interface ApiIssue {
 	message: string;
 }
 
-/** The JSON error shape every /api/v1 route answers with. */
-export function apiError(status: number, message: string, issues: ApiIssue[] = []) {
-	return json({ error: { message, issues } }, { status, headers: { 'cache-control': 'no-store' } });
+/** The JSON error shape every /api/v1 route answers with: `{ error: { message, issues, ...details } }`. */
+export function apiError(status: number, message: string, issues: ApiIssue[] = [], details: Record<string, unknown> = {}) {
+	return json({ error: { message, issues, ...details } }, { status, headers: { 'cache-control': 'no-store' } });
 }

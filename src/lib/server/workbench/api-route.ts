@@ -1,11 +1,11 @@
 /**
  * The frame of every workbench API route: read and validate the body, and
  * turn every refusal into the one JSON error shape
- * `{ error: { message, issues: [{ path, message }] } }` (src/lib/server/api.ts).
+ * `{ error: { message, issues: [{ path, message }] } }` (apiError in src/lib/server/api.ts).
  */
-import { isHttpError, isRedirect, json, type RequestEvent } from '@sveltejs/kit';
+import { isHttpError, isRedirect, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
-import type { ApiIssue } from '../api';
+import { apiError, type ApiIssue } from '../api';
 import { ArchivedScenarioError, StaleRevisionError } from '../db/scenarios';
 import { parseScenario, type Scenario } from '../../schemas/scenario';
 
@@ -22,19 +22,15 @@ export class ApiProblem extends Error {
 	}
 }
 
-export function problemResponse(status: number, message: string, issues: ApiIssue[] = [], details: Record<string, unknown> = {}) {
-	return json({ error: { message, issues, ...details } }, { status, headers: { 'cache-control': 'no-store' } });
-}
-
 function responseFor(e: unknown): Response | null {
-	if (e instanceof ApiProblem) return problemResponse(e.status, e.message, e.issues, e.details);
+	if (e instanceof ApiProblem) return apiError(e.status, e.message, e.issues, e.details);
 	if (e instanceof StaleRevisionError) {
-		return problemResponse(409, e.message, [{ path: 'revision', message: `the scenario is now at revision ${e.currentRevision}` }], {
+		return apiError(409, e.message, [{ path: 'revision', message: `the scenario is now at revision ${e.currentRevision}` }], {
 			currentRevision: e.currentRevision
 		});
 	}
-	if (e instanceof ArchivedScenarioError) return problemResponse(409, e.message);
-	if (isHttpError(e)) return problemResponse(e.status, e.body.message);
+	if (e instanceof ArchivedScenarioError) return apiError(409, e.message);
+	if (isHttpError(e)) return apiError(e.status, e.body.message);
 	return null;
 }
 

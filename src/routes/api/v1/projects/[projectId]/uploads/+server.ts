@@ -1,7 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { listUploadsInProject } from '$lib/server/db/uploads';
 import { requireProjectRole } from '$lib/server/workbench/access';
-import { apiRoute, problemResponse } from '$lib/server/workbench/api-route';
+import { apiError } from '$lib/server/api';
+import { apiRoute } from '$lib/server/workbench/api-route';
 import { receiveUpload } from '$lib/server/workbench/receive-upload';
 import { readUploadForm } from '$lib/server/workbench/upload-form';
 import { uploadJson, uploadSummaryJson } from '$lib/server/workbench/serialize';
@@ -23,7 +24,7 @@ export const POST: RequestHandler = apiRoute(async (event) => {
 	const received = await receiveUpload({ projectId: project.id, userId: user.id, ...form });
 	if (!received.ok) {
 		const count = received.errors.length;
-		return problemResponse(
+		return apiError(
 			422,
 			`The file was not saved: ${count === 1 ? 'it has a problem' : `it has ${count} problems`}. Fix ${count === 1 ? 'it' : 'them'} and upload it again.`,
 			received.errors.map((e) => ({ path: 'file', message: e.message, row: e.row, column: e.column }))
