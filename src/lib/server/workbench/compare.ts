@@ -3,7 +3,7 @@
  * the base case, in decimal arithmetic on the engine's decimal strings.
  */
 import { Decimal } from '../engine/decimal';
-import { METRIC_KEYS, METRIC_UNITS, type EngineResult, type MetricKey } from '../engine/evaluate';
+import { METRIC_KEYS, METRIC_UNITS, decimalString, type EngineResult, type MetricKey } from '../engine/evaluate';
 
 export interface CompareEntry {
 	id: string;
@@ -37,17 +37,12 @@ export interface Comparison {
 	scenarios: ComparedScenario[];
 }
 
-/** Rounded to 10 decimal places, plain notation, like the engine's own strings. */
-function text(d: Decimal): string {
-	return d.toDecimalPlaces(10).toFixed();
-}
-
 export function metricDifference(value: string | null, base: string | null): MetricDifference | null {
 	if (value === null || base === null) return null;
 	const v = new Decimal(value);
 	const b = new Decimal(base);
 	const absolute = v.minus(b);
-	return { absolute: text(absolute), relative: b.isZero() ? null : text(absolute.div(b.abs())) };
+	return { absolute: decimalString(absolute), relative: b.isZero() ? null : decimalString(absolute.div(b.abs())) };
 }
 
 export function compareScenarios(entries: readonly CompareEntry[], baseCase: CompareEntry | null): Comparison {
