@@ -1,11 +1,12 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import { inviteForm } from '$lib/schemas/account';
-import { requireWorkspaceRole } from '$lib/server/auth/authorize';
+import type { RequestEvent } from '@sveltejs/kit';
+import { requireWorkspaceRole, type WorkspaceAccess } from '$lib/server/auth/authorize';
 import { isWorkspaceRole, roleDescriptions } from '$lib/server/auth/roles';
 import { LastOwnerError, changeMemberRole, listMembers, removeMember } from '$lib/server/db/memberships';
 import { INVITATION_DAYS, createInvitation, listOpenInvitations, revokeInvitation } from '$lib/server/db/invitations';
-import { recordAuditEvent } from '$lib/server/db/audit';
+import { recordAuditEvent, type AuditEventName } from '$lib/server/db/audit';
 import { getUserById } from '$lib/server/db/users';
 import { sendMail } from '$lib/server/mail/mailer';
 import { invitationMessage } from '$lib/server/mail/templates';
@@ -30,6 +31,18 @@ export const load: PageServerLoad = async (event) => {
 
 const memberTarget = z.object({ userId: z.string().uuid('Choose a member.') });
 
+/** Records a workspace event done by the signed-in owner or member. */
+function audit(event: RequestEvent, access: WorkspaceAccess, name: AuditEventName, detail?: Record<string, unknown>) {
+	return recordAuditEvent({
+		event: name,
+		workspaceId: access.membership.workspaceId,
+		actorUserId: access.user.id,
+		actorEmail: access.user.email,
+		ip: event.getClientAddress(),
+		detail
+	});
+}
+
 export const actions: Actions = {
 	invite: async (event) => {
 		const { user, membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'owner');
@@ -50,14 +63,7 @@ export const actions: Actions = {
 				daysValid: INVITATION_DAYS
 			})
 		);
-		await recordAuditEvent({
-			event: 'invitation-sent',
-			workspaceId: membership.workspaceId,
-			actorUserId: user.id,
-			actorEmail: user.email,
-			ip: event.getClientAddress(),
-			detail: { invitationId: id, email: parsed.data.email, role: parsed.data.role }
-		});
+		await audit(event, { user, membership }, 'invitation-sent', { invitationId: id, email: parsed.data.email, role: parsed.data.role });
 		return { action: 'invite', sentTo: parsed.data.email, email: '', role: 'analyst', errors: {} as Record<string, string> };
 	},
 
@@ -69,14 +75,7 @@ export const actions: Actions = {
 		try {
 			const previous = await changeMemberRole(membership.workspaceId, target.data.userId, fields.role);
 			if (!previous) return fail(404, { action: 'changeRole', tone: 'error' as const, message: 'That person is not a member.' });
-			await recordAuditEvent({
-				event: 'role-changed',
-				workspaceId: membership.workspaceId,
-				actorUserId: user.id,
-				actorEmail: user.email,
-				ip: event.getClientAddress(),
-				detail: { memberId: target.data.userId, from: previous, to: fields.role }
-			});
+			await audit(event, { user, membership }, 'role-changed', { memberId: target.data.userId, from: previous, to: fields.role });
 		} catch (error) {
 			if (error instanceof LastOwnerError) return fail(409, { action: 'changeRole', tone: 'error' as const, message: error.message });
 			throw error;
@@ -94,14 +93,7 @@ export const actions: Actions = {
 			if (error instanceof LastOwnerError) return fail(409, { action: 'remove', tone: 'error' as const, message: error.message });
 			throw error;
 		}
-		await recordAuditEvent({
-			event: 'member-removed',
-			workspaceId: membership.workspaceId,
-			actorUserId: user.id,
-			actorEmail: user.email,
-			ip: event.getClientAddress(),
-			detail: { memberId: target.data.userId }
-		});
+		await audit(event, { user, membership }, 'member-removed', { memberId: target.data.userId });
 		return { action: 'remove', tone: 'ok' as const, message: 'Member removed.' };
 	},
 
@@ -111,14 +103,7 @@ export const actions: Actions = {
 		if (!z.string().uuid().safeParse(invitationId).success || !(await revokeInvitation(membership.workspaceId, invitationId))) {
 			return fail(404, { action: 'revoke', tone: 'error' as const, message: 'That invitation is no longer open.' });
 		}
-		await recordAuditEvent({
-			event: 'invitation-revoked',
-			workspaceId: membership.workspaceId,
-			actorUserId: user.id,
-			actorEmail: user.email,
-			ip: event.getClientAddress(),
-			detail: { invitationId }
-		});
+		await audit(event, { user, membership }, 'invitation-revoked', { invitationId });
 		return { action: 'revoke', tone: 'ok' as const, message: 'Invitation withdrawn.' };
 	},
 
@@ -130,13 +115,7 @@ export const actions: Actions = {
 			if (error instanceof LastOwnerError) return fail(409, { action: 'leave', tone: 'error' as const, message: error.message });
 			throw error;
 		}
-		await recordAuditEvent({
-			event: 'member-left',
-			workspaceId: membership.workspaceId,
-			actorUserId: user.id,
-			actorEmail: user.email,
-			ip: event.getClientAddress()
-		});
+		await audit(event, { user, membership }, 'member-left');
 		redirect(303, '/app');
 	}
 };
