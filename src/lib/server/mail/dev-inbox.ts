@@ -1,18 +1,9 @@
 import { env } from '$env/dynamic/private';
+import type { StoredMessage as SinkMessage } from '../../../../docker-local/mail-sink';
 
 /** The dev inbox exists only when the local mail sink runs beside the app (never in production). */
 export function devInboxEnabled(): boolean {
 	return Boolean(env.MAIL_SINK_URL) && env.NODE_ENV !== 'production';
-}
-
-export interface SinkMessage {
-	id: string;
-	receivedAt: string;
-	from: string;
-	to: string[];
-	subject: string;
-	text: string;
-	html: string;
 }
 
 export async function listSinkMessages(): Promise<SinkMessage[]> {
