@@ -1,4 +1,5 @@
 // See https://svelte.dev/docs/kit/types#app.d.ts
+import type { Principal } from '$lib/server/auth/principal';
 import type { Session, SessionUser } from '$lib/server/auth/session';
 
 declare global {
@@ -8,6 +9,9 @@ declare global {
 			errorId?: string;
 		}
 		interface Locals {
+			/** Who is asking: resolved once in hooks.server.ts; the access module reads it. */
+			principal: Principal;
+			/** The member signed in with the session cookie (pages); null for API tokens and anonymous callers. */
 			user: SessionUser | null;
 			session: Session | null;
 		}

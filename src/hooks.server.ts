@@ -1,20 +1,65 @@
-import { redirect, type Handle, type HandleServerError } from '@sveltejs/kit';
+import { redirect, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { randomUUID } from 'node:crypto';
 import { SESSION_COOKIE, deleteSessionCookie, setSessionCookie, validateSessionToken } from '$lib/server/auth/session';
-import { cookiesAreSecure } from '$lib/server/auth/cookies';
+import { authenticateApiToken, bearerToken, recordTokenRequest, takeTokenRequest } from '$lib/server/auth/api-tokens';
+import { anonymous } from '$lib/server/auth/principal';
+import { apiError } from '$lib/server/api';
+import { checkSettings, cookiesAreSecure } from '$lib/server/settings';
 import { devInboxEnabled } from '$lib/server/mail/dev-inbox';
 
-/** Puts `user` and `session` on locals from the session cookie, sliding its expiry. */
+/** Stops the start when a setting is missing or malformed, naming it. */
+export const init: ServerInit = () => {
+	checkSettings();
+};
+
+function isApiPath(path: string) {
+	return path === '/api/v1' || path.startsWith('/api/v1/');
+}
+
+/**
+ * Resolves the principal. On /api/v1 a `Authorization: Bearer` token decides
+ * (the cookie is then ignored): a bad one answers 401, one over its allowance
+ * 429, and every call it makes goes to the audit log. Elsewhere the session
+ * cookie decides, sliding its expiry.
+ */
 const authenticate: Handle = async ({ event, resolve }) => {
+	event.locals.principal = anonymous;
 	event.locals.user = null;
 	event.locals.session = null;
+
+	const bearer = isApiPath(event.url.pathname) ? bearerToken(event.request) : null;
+	if (bearer !== null) {
+		const outcome = await authenticateApiToken(bearer);
+		if (!outcome.ok) {
+			const response = apiError(401, outcome.message);
+			response.headers.set('www-authenticate', 'Bearer error="invalid_token"');
+			return response;
+		}
+		const allowance = await takeTokenRequest(outcome.principal.token.id);
+		if (!allowance.allowed) {
+			const response = apiError(429, `This API token made too many requests; try again in ${allowance.retryAfterSeconds} s.`);
+			response.headers.set('retry-after', String(allowance.retryAfterSeconds));
+			return response;
+		}
+		event.locals.principal = outcome.principal;
+		const response = await resolve(event);
+		await recordTokenRequest(outcome.principal, {
+			method: event.request.method,
+			path: event.url.pathname,
+			status: response.status,
+			ip: event.getClientAddress()
+		});
+		return response;
+	}
+
 	const token = event.cookies.get(SESSION_COOKIE);
 	if (token) {
 		const { session, user } = await validateSessionToken(token);
 		const secure = cookiesAreSecure(event.url);
 		if (session) {
 			setSessionCookie(event.cookies, token, session.expiresAt, secure);
+			event.locals.principal = { kind: 'member', user, session };
 			event.locals.user = user;
 			event.locals.session = session;
 		} else {

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestDatabase, type TestDatabase } from '../helpers/db';
 import { setAppEnv } from '../helpers/app-env';
 import { isWorkspaceRole, roleAtLeast, workspaceRoles, type WorkspaceRole } from '../../src/lib/server/auth/roles';
-import { requireUser, requireWorkspaceRole } from '../../src/lib/server/auth/authorize';
+import { authorize, requireUser } from '../../src/lib/server/auth/access';
 import { createSession, generateSessionToken, type SessionUser } from '../../src/lib/server/auth/session';
 import {
 	LastOwnerError,
@@ -22,7 +22,7 @@ let counter = 0;
 
 beforeAll(async () => {
 	database = await createTestDatabase();
-	// requireWorkspaceRole reads memberships through the app's db() singleton.
+	// authorize reads memberships through the app's db() singleton.
 	setAppEnv({ DATABASE_URL: database.url });
 });
 afterAll(() => database.drop());
@@ -184,10 +184,13 @@ describe('members', () => {
 	});
 });
 
-describe('requireWorkspaceRole', () => {
+describe('authorize on a workspace', () => {
 	function eventFor(user: SessionUser | null, path = '/app/w/x') {
-		return { locals: { user, session: null }, url: new URL(`http://127.0.0.1${path}`) } as unknown as Pick<RequestEvent, 'locals' | 'url'>;
+		const principal = user ? { kind: 'member', user, session: { id: 'unused', userId: user.id, expiresAt: new Date(), workspaceId: null } } : { kind: 'anonymous' };
+		return { locals: { principal, user, session: null }, url: new URL(`http://127.0.0.1${path}`) } as unknown as Pick<RequestEvent, 'locals' | 'url'>;
 	}
+	const requireWorkspaceRole = (event: Pick<RequestEvent, 'locals' | 'url'>, workspaceId: string, minimum: WorkspaceRole) =>
+		authorize(event, { workspaceId }, minimum);
 
 	async function statusOf(promise: Promise<unknown>): Promise<number | string> {
 		try {

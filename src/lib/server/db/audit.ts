@@ -17,7 +17,10 @@ export type AuditEventName =
 	| 'member-left'
 	| 'invitation-sent'
 	| 'invitation-revoked'
-	| 'invitation-accepted';
+	| 'invitation-accepted'
+	| 'api-token-created'
+	| 'api-token-revoked'
+	| 'api-token-used';
 
 export interface AuditInput {
 	event: AuditEventName;

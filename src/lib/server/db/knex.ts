@@ -1,11 +1,13 @@
 import knexFactory, { type Knex } from 'knex';
-import { env } from '$env/dynamic/private';
+import { databaseSettings } from '../settings';
 import { knexConfig } from '../../../../knexfile';
 
-let instance: Knex | undefined;
+let instance: { url: string; knex: Knex } | undefined;
 
-/** The app's single Knex instance, created on first use from DATABASE_URL. */
+/** The app's single Knex instance, created on first use from the DATABASE_URL setting (no default). */
 export function db(): Knex {
-	instance ??= knexFactory(knexConfig(env.DATABASE_URL));
-	return instance;
+	const { url } = databaseSettings();
+	if (instance && instance.url !== url) void instance.knex.destroy();
+	if (!instance || instance.url !== url) instance = { url, knex: knexFactory(knexConfig(url)) };
+	return instance.knex;
 }

@@ -6,6 +6,8 @@ export interface WorkspaceMembership {
 	workspaceId: string;
 	workspaceName: string;
 	workspaceSlug: string;
+	/** The workspace's plan (free until billing sets another). */
+	plan: string;
 	role: WorkspaceRole;
 }
 
@@ -16,22 +18,23 @@ export async function getMembership(
 ): Promise<WorkspaceMembership | undefined> {
 	const row = await knex('memberships')
 		.join('workspaces', 'workspaces.id', 'memberships.workspace_id')
-		.select('memberships.workspace_id', 'workspaces.name', 'workspaces.slug', 'memberships.role')
+		.select('memberships.workspace_id', 'workspaces.name', 'workspaces.slug', 'workspaces.plan', 'memberships.role')
 		.where({ 'memberships.workspace_id': workspaceId, 'memberships.user_id': userId })
 		.first();
-	return row && { workspaceId: row.workspace_id, workspaceName: row.name, workspaceSlug: row.slug, role: row.role };
+	return row && { workspaceId: row.workspace_id, workspaceName: row.name, workspaceSlug: row.slug, plan: row.plan, role: row.role };
 }
 
 export async function listWorkspacesForUser(userId: string, knex: Knex = db()): Promise<WorkspaceMembership[]> {
 	const rows = await knex('memberships')
 		.join('workspaces', 'workspaces.id', 'memberships.workspace_id')
-		.select('memberships.workspace_id', 'workspaces.name', 'workspaces.slug', 'memberships.role')
+		.select('memberships.workspace_id', 'workspaces.name', 'workspaces.slug', 'workspaces.plan', 'memberships.role')
 		.where({ 'memberships.user_id': userId })
 		.orderBy('workspaces.name');
 	return rows.map((row) => ({
 		workspaceId: row.workspace_id,
 		workspaceName: row.name,
 		workspaceSlug: row.slug,
+		plan: row.plan,
 		role: row.role
 	}));
 }

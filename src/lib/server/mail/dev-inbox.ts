@@ -1,13 +1,13 @@
-import { env } from '$env/dynamic/private';
+import { mailSinkUrl, webSettings } from '../settings';
 import type { StoredMessage as SinkMessage } from '../../../../docker-local/mail-sink';
 
 /** The dev inbox exists only when the local mail sink runs beside the app (never in production). */
 export function devInboxEnabled(): boolean {
-	return Boolean(env.MAIL_SINK_URL) && env.NODE_ENV !== 'production';
+	return mailSinkUrl() !== null && !webSettings().production;
 }
 
 export async function listSinkMessages(): Promise<SinkMessage[]> {
-	const response = await fetch(`${env.MAIL_SINK_URL}/messages`);
+	const response = await fetch(`${mailSinkUrl()}/messages`);
 	if (!response.ok) throw new Error(`mail sink answered ${response.status}`);
 	return response.json();
 }

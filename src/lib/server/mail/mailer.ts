@@ -1,26 +1,30 @@
 import nodemailer, { type Transporter } from 'nodemailer';
-import { env } from '$env/dynamic/private';
+import { mailSettings, type MailSettings } from '../settings';
 import type { MailContent } from './templates';
 
-let transporter: Transporter | undefined;
+let transporter: { key: string; transport: Transporter } | undefined;
 
-function smtpTransport(): Transporter {
-	if (!env.SMTP_HOST) {
-		throw new Error('SMTP_HOST is not set: Tidewright cannot send mail. `npm start` sets it to the local mail sink.');
+function smtpTransport(settings: MailSettings): Transporter {
+	const key = JSON.stringify([settings.host, settings.port, settings.secure, settings.auth]);
+	if (transporter?.key !== key) {
+		transporter = {
+			key,
+			transport: nodemailer.createTransport({
+				host: settings.host,
+				port: settings.port,
+				secure: settings.secure,
+				ignoreTLS: settings.host === '127.0.0.1' || settings.host === 'localhost',
+				auth: settings.auth ?? undefined
+			})
+		};
 	}
-	transporter ??= nodemailer.createTransport({
-		host: env.SMTP_HOST,
-		port: Number(env.SMTP_PORT ?? 587),
-		secure: env.SMTP_SECURE === 'true',
-		ignoreTLS: env.SMTP_HOST === '127.0.0.1' || env.SMTP_HOST === 'localhost',
-		auth: env.SMTP_USER ? { user: env.SMTP_USER, pass: env.SMTP_PASSWORD ?? '' } : undefined
-	});
-	return transporter;
+	return transporter.transport;
 }
 
 export async function sendMail(to: string, content: MailContent): Promise<void> {
-	await smtpTransport().sendMail({
-		from: env.MAIL_FROM ?? 'Tidewright <no-reply@tidewright.example>',
+	const settings = mailSettings();
+	await smtpTransport(settings).sendMail({
+		from: settings.from,
 		to,
 		subject: content.subject,
 		text: content.text,

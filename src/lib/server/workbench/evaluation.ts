@@ -8,7 +8,7 @@ import { getScenarioById, type ScenarioRecord } from '../db/scenarios';
 import { evaluateScenario, type EngineResult } from '../engine/evaluate';
 import type { Scenario } from '../../schemas/scenario';
 import { ApiProblem, validateDocument } from './api-route';
-import type { ScenarioAccess } from './access';
+import type { ScenarioAccess } from '../auth/access';
 
 /** Runs an engine call, turning the engine's refusals of an input (RangeError) into a 422 answer. */
 export function runEngine<T>(compute: () => T): T {

@@ -1,4 +1,4 @@
-import { requireUser } from '$lib/server/auth/authorize';
+import { requireUser } from '$lib/server/auth/access';
 import { listWorkspacesForUser } from '$lib/server/db/memberships';
 import type { LayoutServerLoad } from './$types';
 

@@ -1,5 +1,5 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { requireUser } from '$lib/server/auth/authorize';
+import { requireUser } from '$lib/server/auth/access';
 import { getMembership, listWorkspacesForUser } from '$lib/server/db/memberships';
 import { setSessionWorkspace } from '$lib/server/auth/session';
 import type { Actions, PageServerLoad } from './$types';

@@ -1,6 +1,6 @@
 import { redirect } from '@sveltejs/kit';
 import { deleteSessionCookie, invalidateSession } from '$lib/server/auth/session';
-import { cookiesAreSecure } from '$lib/server/auth/cookies';
+import { cookiesAreSecure } from '$lib/server/settings';
 import { recordAuditEvent } from '$lib/server/db/audit';
 import type { Actions, PageServerLoad } from './$types';
 

@@ -2,7 +2,7 @@ import { fail, redirect } from '@sveltejs/kit';
 import { signUpForm } from '$lib/schemas/account';
 import { signUp } from '$lib/server/auth/accounts';
 import { setSessionCookie } from '$lib/server/auth/session';
-import { cookiesAreSecure } from '$lib/server/auth/cookies';
+import { cookiesAreSecure } from '$lib/server/settings';
 import { fieldErrors, readForm, requestContext } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
 

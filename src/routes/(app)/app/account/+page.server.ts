@@ -1,9 +1,9 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { changePasswordForm, renameForm } from '$lib/schemas/account';
-import { requireUser } from '$lib/server/auth/authorize';
+import { requireUser } from '$lib/server/auth/access';
 import { changePassword, resendVerification } from '$lib/server/auth/accounts';
 import { deleteSessionCookie, invalidateSession, invalidateUserSessions, listUserSessions } from '$lib/server/auth/session';
-import { cookiesAreSecure } from '$lib/server/auth/cookies';
+import { cookiesAreSecure } from '$lib/server/settings';
 import { recordAuditEvent } from '$lib/server/db/audit';
 import { updateUserName } from '$lib/server/db/users';
 import { fieldErrors, readForm } from '$lib/server/forms';

@@ -1,4 +1,4 @@
-import { requireUser } from '$lib/server/auth/authorize';
+import { requireUser } from '$lib/server/auth/access';
 import { listMethodNotes } from '$lib/server/methods/notes';
 import type { PageServerLoad } from './$types';
 

@@ -5,7 +5,7 @@ import { getInvitationByToken } from '$lib/server/db/invitations';
 import { acceptInvitationAs, invitationProblem } from '$lib/server/auth/invitations';
 import { signUp } from '$lib/server/auth/accounts';
 import { setSessionCookie } from '$lib/server/auth/session';
-import { cookiesAreSecure } from '$lib/server/auth/cookies';
+import { cookiesAreSecure } from '$lib/server/settings';
 import { getUserByEmail } from '$lib/server/db/users';
 import { fieldErrors, readForm, requestContext } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';

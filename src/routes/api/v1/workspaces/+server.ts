@@ -1,5 +1,5 @@
 import { json } from '@sveltejs/kit';
-import { requireUser } from '$lib/server/auth/authorize';
+import { requireUser } from '$lib/server/auth/access';
 import { listWorkspacesForUser } from '$lib/server/db/memberships';
 import type { RequestHandler } from './$types';
 

@@ -1,5 +1,5 @@
 import { error } from '@sveltejs/kit';
-import { requireUser } from '$lib/server/auth/authorize';
+import { requireUser } from '$lib/server/auth/access';
 import { getMethodNote, listMethodNotes } from '$lib/server/methods/notes';
 import type { PageServerLoad } from './$types';
 

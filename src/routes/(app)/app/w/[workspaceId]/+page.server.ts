@@ -1,7 +1,7 @@
-import { requireWorkspaceRole } from '$lib/server/auth/authorize';
+import { authorize } from '$lib/server/auth/access';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
-	await requireWorkspaceRole(event, event.params.workspaceId, 'viewer');
+	await authorize(event, event.params, 'viewer');
 	return { welcome: event.url.searchParams.has('welcome') };
 };

@@ -1,18 +1,18 @@
 import { json } from '@sveltejs/kit';
 import { archiveProject, updateProject } from '$lib/server/db/projects';
 import { updateProjectBody } from '$lib/schemas/workbench';
-import { requireProjectRole } from '$lib/server/workbench/access';
+import { authorize } from '$lib/server/auth/access';
 import { apiRoute, readJsonBody, validateBody } from '$lib/server/workbench/api-route';
 import { projectJson } from '$lib/server/workbench/serialize';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = apiRoute(async (event) => {
-	const { project, membership } = await requireProjectRole(event, event.params.projectId, 'viewer');
+	const { project, membership } = await authorize(event, event.params, 'viewer');
 	return json({ project: projectJson(project), role: membership.role });
 });
 
 export const PATCH: RequestHandler = apiRoute(async (event) => {
-	const { project } = await requireProjectRole(event, event.params.projectId, 'analyst');
+	const { project } = await authorize(event, event.params, 'analyst');
 	const changes = validateBody(updateProjectBody, await readJsonBody(event.request));
 	const updated = await updateProject(project.id, changes);
 	return json({ project: projectJson(updated!) });
@@ -20,7 +20,7 @@ export const PATCH: RequestHandler = apiRoute(async (event) => {
 
 /** Archives the project (its scenarios and uploads are kept); POST .../restore brings it back. */
 export const DELETE: RequestHandler = apiRoute(async (event) => {
-	const { project } = await requireProjectRole(event, event.params.projectId, 'owner');
+	const { project } = await authorize(event, event.params, 'owner');
 	const archived = await archiveProject(project.id);
 	return json({ project: projectJson(archived!) });
 });

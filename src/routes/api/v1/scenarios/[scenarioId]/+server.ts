@@ -1,14 +1,14 @@
 import { json } from '@sveltejs/kit';
 import { deleteArchivedScenario, saveScenario } from '$lib/server/db/scenarios';
 import { updateScenarioBody } from '$lib/schemas/workbench';
-import { requireScenarioRole } from '$lib/server/workbench/access';
+import { authorize } from '$lib/server/auth/access';
 import { ApiProblem, apiRoute, readJsonBody, validateBody, validateDocument, withName } from '$lib/server/workbench/api-route';
 import { loadScenario } from '$lib/server/workbench/evaluation';
 import { projectJson, scenarioJson } from '$lib/server/workbench/serialize';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = apiRoute(async (event) => {
-	const { project, membership } = await requireScenarioRole(event, event.params.scenarioId, 'viewer');
+	const { project, membership } = await authorize(event, event.params, 'viewer');
 	const scenario = await loadScenario(event.params.scenarioId);
 	return json({ scenario: scenarioJson(scenario), project: projectJson(project), role: membership.role });
 });
@@ -19,7 +19,7 @@ export const GET: RequestHandler = apiRoute(async (event) => {
  * nothing is written.
  */
 export const PUT: RequestHandler = apiRoute(async (event) => {
-	const { project, user, scenarioId } = await requireScenarioRole(event, event.params.scenarioId, 'analyst');
+	const { project, user, scenarioId } = await authorize(event, event.params, 'analyst');
 	const body = validateBody(updateScenarioBody, await readJsonBody(event.request));
 	const current = await loadScenario(scenarioId);
 	const name = body.name ?? current.name;
@@ -31,7 +31,7 @@ export const PUT: RequestHandler = apiRoute(async (event) => {
 
 /** Deletes for good, with its history: owners only, and only a scenario archived first. */
 export const DELETE: RequestHandler = apiRoute(async (event) => {
-	const { scenarioId } = await requireScenarioRole(event, event.params.scenarioId, 'owner');
+	const { scenarioId } = await authorize(event, event.params, 'owner');
 	const outcome = await deleteArchivedScenario(scenarioId);
 	if (outcome === 'not-archived') throw new ApiProblem(409, 'Archive the scenario before deleting it for good.');
 	if (outcome === 'missing') throw new ApiProblem(404, 'No such scenario, or it is not yours.');

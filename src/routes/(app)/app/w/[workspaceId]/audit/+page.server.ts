@@ -1,9 +1,9 @@
-import { requireWorkspaceRole } from '$lib/server/auth/authorize';
+import { authorize } from '$lib/server/auth/access';
 import { listAuditEventsForWorkspace } from '$lib/server/db/audit';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
-	const { membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'owner');
+	const { membership } = await authorize(event, event.params, 'owner');
 	const events = await listAuditEventsForWorkspace(membership.workspaceId);
 	return {
 		events: events.map((e) => ({

@@ -2,7 +2,7 @@ import { fail, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import { inviteForm } from '$lib/schemas/account';
 import type { RequestEvent } from '@sveltejs/kit';
-import { requireWorkspaceRole, type WorkspaceAccess } from '$lib/server/auth/authorize';
+import { authorize, type WorkspaceAccess } from '$lib/server/auth/access';
 import { isWorkspaceRole, roleDescriptions } from '$lib/server/auth/roles';
 import { LastOwnerError, changeMemberRole, listMembers, removeMember } from '$lib/server/db/memberships';
 import { INVITATION_DAYS, createInvitation, listOpenInvitations, revokeInvitation } from '$lib/server/db/invitations';
@@ -14,7 +14,7 @@ import { fieldErrors, readForm } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
-	const { user, membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'viewer');
+	const { user, membership } = await authorize(event, event.params, 'viewer');
 	const isOwner = membership.role === 'owner';
 	const [members, invitations] = await Promise.all([
 		listMembers(membership.workspaceId),
@@ -32,7 +32,7 @@ export const load: PageServerLoad = async (event) => {
 const memberTarget = z.object({ userId: z.string().uuid('Choose a member.') });
 
 /** Records a workspace event done by the signed-in owner or member. */
-function audit(event: RequestEvent, access: WorkspaceAccess, name: AuditEventName, detail?: Record<string, unknown>) {
+function audit(event: RequestEvent, access: Pick<WorkspaceAccess, 'user' | 'membership'>, name: AuditEventName, detail?: Record<string, unknown>) {
 	return recordAuditEvent({
 		event: name,
 		workspaceId: access.membership.workspaceId,
@@ -45,7 +45,7 @@ function audit(event: RequestEvent, access: WorkspaceAccess, name: AuditEventNam
 
 export const actions: Actions = {
 	invite: async (event) => {
-		const { user, membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'owner');
+		const { user, membership } = await authorize(event, event.params, 'owner');
 		const fields = await readForm(event.request);
 		const parsed = inviteForm.safeParse(fields);
 		if (!parsed.success) {
@@ -68,7 +68,7 @@ export const actions: Actions = {
 	},
 
 	changeRole: async (event) => {
-		const { user, membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'owner');
+		const { user, membership } = await authorize(event, event.params, 'owner');
 		const fields = await readForm(event.request);
 		const target = memberTarget.safeParse(fields);
 		if (!target.success || !isWorkspaceRole(fields.role)) return fail(400, { action: 'changeRole', tone: 'error' as const, message: 'Choose a member and a role.' });
@@ -84,7 +84,7 @@ export const actions: Actions = {
 	},
 
 	remove: async (event) => {
-		const { user, membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'owner');
+		const { user, membership } = await authorize(event, event.params, 'owner');
 		const target = memberTarget.safeParse(await readForm(event.request));
 		if (!target.success) return fail(400, { action: 'remove', tone: 'error' as const, message: 'Choose a member.' });
 		try {
@@ -98,7 +98,7 @@ export const actions: Actions = {
 	},
 
 	revoke: async (event) => {
-		const { user, membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'owner');
+		const { user, membership } = await authorize(event, event.params, 'owner');
 		const invitationId = (await readForm(event.request)).invitationId ?? '';
 		if (!z.string().uuid().safeParse(invitationId).success || !(await revokeInvitation(membership.workspaceId, invitationId))) {
 			return fail(404, { action: 'revoke', tone: 'error' as const, message: 'That invitation is no longer open.' });
@@ -108,7 +108,7 @@ export const actions: Actions = {
 	},
 
 	leave: async (event) => {
-		const { user, membership } = await requireWorkspaceRole(event, event.params.workspaceId, 'viewer');
+		const { user, membership } = await authorize(event, event.params, 'viewer');
 		try {
 			await removeMember(membership.workspaceId, user.id);
 		} catch (error) {

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
-import { isUuid } from '$lib/server/auth/authorize';
+import { isUuid } from '$lib/server/auth/access';
 import { getBaseCaseOfProject, getScenariosInProject, listScenariosInProject, type ScenarioRecord } from '$lib/server/db/scenarios';
-import { requireProjectRole } from '$lib/server/workbench/access';
+import { authorize } from '$lib/server/auth/access';
 import { ApiProblem, apiRoute, validateDocument } from '$lib/server/workbench/api-route';
 import { compareScenarios, type CompareEntry } from '$lib/server/workbench/compare';
 import { evaluateDocument } from '$lib/server/workbench/evaluation';
@@ -20,7 +20,7 @@ function entryOf(scenario: ScenarioRecord, project: ProjectRow): CompareEntry {
  * scenarios), each with its differences from the project's base case.
  */
 export const GET: RequestHandler = apiRoute(async (event) => {
-	const { project } = await requireProjectRole(event, event.params.projectId, 'viewer');
+	const { project } = await authorize(event, event.params, 'viewer');
 	const idsParam = event.url.searchParams.get('ids');
 	let ids: string[];
 	if (idsParam === null || idsParam.trim() === '') {

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { createScenario, listScenariosInProject } from '$lib/server/db/scenarios';
 import { createScenarioBody } from '$lib/schemas/workbench';
-import { requireProjectRole } from '$lib/server/workbench/access';
+import { authorize } from '$lib/server/auth/access';
 import { ApiProblem, apiRoute, readJsonBody, validateBody, validateDocument, withName } from '$lib/server/workbench/api-route';
 import { projectJson, scenarioJson, scenarioSummaryJson } from '$lib/server/workbench/serialize';
 import { starterDocument } from '$lib/server/workbench/starter-documents';
@@ -9,7 +9,7 @@ import type { RequestHandler } from './$types';
 
 /** The project's scenarios without their documents; `?archived=1` lists the archived ones. */
 export const GET: RequestHandler = apiRoute(async (event) => {
-	const { project } = await requireProjectRole(event, event.params.projectId, 'viewer');
+	const { project } = await authorize(event, event.params, 'viewer');
 	const archived = event.url.searchParams.get('archived') === '1';
 	const scenarios = await listScenariosInProject(project.id, { archived });
 	return json({ project: projectJson(project), scenarios: scenarios.map(scenarioSummaryJson) });
@@ -17,7 +17,7 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 
 /** A new scenario from the document sent, or from the starter document of the project's technology. */
 export const POST: RequestHandler = apiRoute(async (event) => {
-	const { project, user } = await requireProjectRole(event, event.params.projectId, 'analyst');
+	const { project, user } = await authorize(event, event.params, 'analyst');
 	const body = validateBody(createScenarioBody, await readJsonBody(event.request));
 	const candidate = body.document !== undefined ? body.document : starterDocument(project.technology, { name: body.name, currency: project.currency, siteName: project.site_name });
 	if (candidate === undefined) {

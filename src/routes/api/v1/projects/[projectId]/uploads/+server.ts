@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { listUploadsInProject } from '$lib/server/db/uploads';
-import { requireProjectRole } from '$lib/server/workbench/access';
+import { authorize } from '$lib/server/auth/access';
 import { apiError } from '$lib/server/api';
 import { apiRoute } from '$lib/server/workbench/api-route';
 import { receiveUpload } from '$lib/server/workbench/receive-upload';
@@ -9,7 +9,7 @@ import { uploadJson, uploadSummaryJson } from '$lib/server/workbench/serialize';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = apiRoute(async (event) => {
-	const { project } = await requireProjectRole(event, event.params.projectId, 'viewer');
+	const { project } = await authorize(event, event.params, 'viewer');
 	return json({ uploads: (await listUploadsInProject(project.id)).map(uploadSummaryJson) });
 });
 
@@ -19,7 +19,7 @@ export const GET: RequestHandler = apiRoute(async (event) => {
  * a good file is stored with its parsed data, answered as the preview.
  */
 export const POST: RequestHandler = apiRoute(async (event) => {
-	const { project, user } = await requireProjectRole(event, event.params.projectId, 'analyst');
+	const { project, user } = await authorize(event, event.params, 'analyst');
 	const form = await readUploadForm(event.request);
 	const received = await receiveUpload({ projectId: project.id, userId: user.id, ...form });
 	if (!received.ok) {

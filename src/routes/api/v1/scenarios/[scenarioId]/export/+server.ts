@@ -1,4 +1,4 @@
-import { requireScenarioRole } from '$lib/server/workbench/access';
+import { authorize } from '$lib/server/auth/access';
 import { ApiProblem, apiRoute } from '$lib/server/workbench/api-route';
 import { evaluateDocument, loadScenario } from '$lib/server/workbench/evaluation';
 import { validateDocument } from '$lib/server/workbench/api-route';
@@ -11,7 +11,7 @@ import type { RequestHandler } from './$types';
  * table, or `&table=metrics`, the cautions after a blank line).
  */
 export const GET: RequestHandler = apiRoute(async (event) => {
-	const { project, scenarioId } = await requireScenarioRole(event, event.params.scenarioId, 'viewer');
+	const { project, scenarioId } = await authorize(event, event.params, 'viewer');
 	const format = event.url.searchParams.get('format') ?? 'xlsx';
 	const table = event.url.searchParams.get('table') ?? 'cash-flow';
 	if (!(exportFormats as readonly string[]).includes(format)) {

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { defaultDrivers, spider } from '$lib/server/engine/sensitivity';
-import { requireScenarioRole } from '$lib/server/workbench/access';
+import { authorize } from '$lib/server/auth/access';
 import { apiRoute, readJsonBody, validateBody } from '$lib/server/workbench/api-route';
 import { documentToEvaluate, runEngine } from '$lib/server/workbench/evaluation';
 import { spiderBody } from '$lib/server/workbench/sensitivity-body';
@@ -8,7 +8,7 @@ import type { RequestHandler } from './$types';
 
 /** Spider series: each driver's base value moved by the same relative steps (default -20 % .. +20 %). */
 export const POST: RequestHandler = apiRoute(async (event) => {
-	const access = await requireScenarioRole(event, event.params.scenarioId, 'viewer');
+	const access = await authorize(event, event.params, 'viewer');
 	const body = validateBody(spiderBody, await readJsonBody(event.request, { optional: true }));
 	const { document, source, scenario } = await documentToEvaluate(access, body.document);
 	const drivers = body.drivers ?? defaultDrivers(document).map((d) => d.driver);

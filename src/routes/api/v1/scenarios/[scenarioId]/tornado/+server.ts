@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { defaultDrivers, tornado } from '$lib/server/engine/sensitivity';
-import { requireScenarioRole } from '$lib/server/workbench/access';
+import { authorize } from '$lib/server/auth/access';
 import { apiRoute, readJsonBody, validateBody } from '$lib/server/workbench/api-route';
 import { documentToEvaluate, runEngine } from '$lib/server/workbench/evaluation';
 import { tornadoBody } from '$lib/server/workbench/sensitivity-body';
@@ -11,7 +11,7 @@ import type { RequestHandler } from './$types';
  * without drivers, the usual screening ranges. A draft `document` needs the analyst role.
  */
 export const POST: RequestHandler = apiRoute(async (event) => {
-	const access = await requireScenarioRole(event, event.params.scenarioId, 'viewer');
+	const access = await authorize(event, event.params, 'viewer');
 	const body = validateBody(tornadoBody, await readJsonBody(event.request, { optional: true }));
 	const { document, source, scenario } = await documentToEvaluate(access, body.document);
 	const drivers = body.drivers ?? defaultDrivers(document);

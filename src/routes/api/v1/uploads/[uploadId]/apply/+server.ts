@@ -1,9 +1,9 @@
 import { json } from '@sveltejs/kit';
-import { isUuid } from '$lib/server/auth/authorize';
+import { isUuid } from '$lib/server/auth/access';
 import { getScenarioPlace, saveScenario } from '$lib/server/db/scenarios';
 import { getUploadById } from '$lib/server/db/uploads';
 import { applyUploadBody, uploadKindInfo } from '$lib/schemas/workbench';
-import { requireUploadRole } from '$lib/server/workbench/access';
+import { authorize } from '$lib/server/auth/access';
 import { ApiProblem, apiRoute, readJsonBody, validateBody, validateDocument } from '$lib/server/workbench/api-route';
 import { applyUploadToDocument } from '$lib/server/workbench/apply-upload';
 import { loadScenario } from '$lib/server/workbench/evaluation';
@@ -16,7 +16,7 @@ import type { RequestHandler } from './$types';
  * refuse the change when the scenario moved on since the user looked at it.
  */
 export const POST: RequestHandler = apiRoute(async (event) => {
-	const { project, user, uploadId } = await requireUploadRole(event, event.params.uploadId, 'analyst');
+	const { project, user, uploadId } = await authorize(event, event.params, 'analyst');
 	const body = validateBody(applyUploadBody, await readJsonBody(event.request, { optional: true }));
 	const scenarioId = event.url.searchParams.get('scenarioId') ?? '';
 	const place = isUuid(scenarioId) ? await getScenarioPlace(scenarioId) : undefined;

@@ -1,5 +1,5 @@
 import { roleAtLeast } from '$lib/server/auth/roles';
-import { requireProjectPage } from '$lib/server/analysis/page-access';
+import { authorize } from '$lib/server/auth/access';
 import { listScenariosInProject } from '$lib/server/db/scenarios';
 import { listUploadsInProject } from '$lib/server/db/uploads';
 import { projectJson, scenarioSummaryJson, uploadSummaryJson } from '$lib/server/workbench/serialize';
@@ -8,7 +8,7 @@ import type { PageServerLoad } from './$types';
 
 /** The project, its live scenarios and its uploads; changes go through the API and the page refetches from it. */
 export const load: PageServerLoad = async (event) => {
-	const { project, membership } = await requireProjectPage(event, event.params, 'viewer');
+	const { project, membership } = await authorize(event, event.params, 'viewer');
 	const [scenarios, uploads] = await Promise.all([listScenariosInProject(project.id), listUploadsInProject(project.id)]);
 	return {
 		project: asJson<ProjectJson>(projectJson(project)),

@@ -1,5 +1,5 @@
 import { roleAtLeast } from '$lib/server/auth/roles';
-import { requireScenarioPage } from '$lib/server/analysis/page-access';
+import { authorize } from '$lib/server/auth/access';
 import { loadScenario } from '$lib/server/workbench/evaluation';
 import { projectJson, scenarioJson } from '$lib/server/workbench/serialize';
 import { asJson, type ProjectJson, type ScenarioJson } from '$lib/workbench/api-types';
@@ -7,7 +7,7 @@ import type { PageServerLoad } from './$types';
 
 /** The saved scenario to edit; its results come from the evaluate route, fetched by the page. */
 export const load: PageServerLoad = async (event) => {
-	const { project, membership, scenarioId } = await requireScenarioPage(event, event.params, 'viewer');
+	const { project, membership, scenarioId } = await authorize(event, event.params, 'viewer');
 	const scenario = await loadScenario(scenarioId);
 	return {
 		project: asJson<ProjectJson>(projectJson(project)),

@@ -1,13 +1,13 @@
 import { error } from '@sveltejs/kit';
 import { parseScenario } from '$lib/schemas/scenario';
-import { requireScenarioPage } from '$lib/server/analysis/page-access';
+import { authorize } from '$lib/server/auth/access';
 import { getScenarioById } from '$lib/server/db/scenarios';
 import { sensitivityChoices } from '$lib/server/analysis/sensitivity-choices';
 import type { PageServerLoad } from './$types';
 
 /** The scenario and the drivers to offer, with the engine's usual ranges; the runs themselves go through the API from the page. */
 export const load: PageServerLoad = async (event) => {
-	const { project, membership } = await requireScenarioPage(event, event.params, 'viewer');
+	const { project, membership } = await authorize(event, event.params, 'viewer');
 	const scenario = await getScenarioById(event.params.scenarioId);
 	if (!scenario) error(404, 'No such scenario, or it is not yours.');
 	const parsed = parseScenario(scenario.document);

@@ -1,0 +1,155 @@
+/**
+ * The one door. Every load, action and API route asks `authorize` (or
+ * `requireUser` / `requireBrowserSession` where no workspace is involved),
+ * with the principal that `hooks.server.ts` resolved.
+ *
+ * - Nobody signed in: 401 on the API, a redirect to sign-in on pages.
+ * - A workspace, project, scenario or upload the caller may not see, or that
+ *   does not exist: 404 with the same words, so existence stays hidden. Ids in
+ *   the URL must nest (the scenario in the project in the workspace).
+ * - A role too low for the action: 403 naming the role needed.
+ * - An API token acts in its own workspace only, with its member's current
+ *   role there; a read-only token at most as a viewer. Tokens never manage
+ *   accounts, members, tokens or billing (`requireBrowserSession`).
+ */
+import { error, redirect, type RequestEvent } from '@sveltejs/kit';
+import { getMembership, type WorkspaceMembership } from '../db/memberships';
+import { getProjectById, getProjectOfScenario, getProjectOfUpload, type ProjectRow } from '../db/projects';
+import { roleAtLeast, type WorkspaceRole } from './roles';
+import type { ApiTokenPrincipal, MemberPrincipal, Principal } from './principal';
+import type { SessionUser } from './session';
+
+type AccessEvent = Pick<RequestEvent, 'locals' | 'url'>;
+
+const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+export function isUuid(value: string): boolean {
+	return uuidPattern.test(value);
+}
+
+function isApiRequest(event: Pick<RequestEvent, 'url'>) {
+	return event.url.pathname.startsWith('/api/');
+}
+
+export function principalOf(event: Pick<RequestEvent, 'locals'>): Principal {
+	return event.locals.principal ?? { kind: 'anonymous' };
+}
+
+function refuseAnonymous(event: AccessEvent): never {
+	if (isApiRequest(event)) error(401, 'Sign in, or send a personal API token as `Authorization: Bearer tw_...`.');
+	redirect(303, `/signin?next=${encodeURIComponent(event.url.pathname + event.url.search)}`);
+}
+
+/** The member behind the request, signed in or by token. */
+export function requireUser(event: AccessEvent): SessionUser {
+	const principal = principalOf(event);
+	if (principal.kind === 'anonymous') refuseAnonymous(event);
+	return principal.user;
+}
+
+/** A member signed in in the browser: accounts, members, tokens and billing are never managed with an API token. */
+export function requireBrowserSession(event: AccessEvent): MemberPrincipal {
+	const principal = principalOf(event);
+	if (principal.kind === 'anonymous') refuseAnonymous(event);
+	if (principal.kind === 'token') error(403, 'API tokens cannot manage accounts, members, tokens or billing: sign in in the browser for that.');
+	return principal;
+}
+
+export interface WorkspaceAccess {
+	principal: MemberPrincipal | ApiTokenPrincipal;
+	user: SessionUser;
+	/** The workspace and the caller's effective role in it (a read-only token's is at most viewer). */
+	membership: WorkspaceMembership;
+}
+
+export interface ProjectAccess extends WorkspaceAccess {
+	project: ProjectRow;
+}
+
+export interface ScenarioAccess extends ProjectAccess {
+	scenarioId: string;
+}
+
+export interface UploadAccess extends ProjectAccess {
+	uploadId: string;
+}
+
+type Place = { workspaceId?: string; projectId?: string };
+
+const hidden = {
+	workspace: 'No such workspace, or it is not yours.',
+	project: 'No such project, or it is not yours.',
+	scenario: 'No such scenario, or it is not yours.',
+	upload: 'No such upload, or it is not yours.'
+} as const;
+
+function effectiveRole(principal: MemberPrincipal | ApiTokenPrincipal, role: WorkspaceRole): WorkspaceRole {
+	return principal.kind === 'token' && principal.token.access === 'read' ? 'viewer' : role;
+}
+
+function article(role: WorkspaceRole) {
+	return role === 'viewer' ? 'a' : 'an';
+}
+
+async function workspaceAccess(event: AccessEvent, workspaceId: string, minimum: WorkspaceRole, notFound: string): Promise<WorkspaceAccess> {
+	const principal = principalOf(event);
+	if (principal.kind === 'anonymous') refuseAnonymous(event);
+	if (!isUuid(workspaceId)) error(404, notFound);
+	if (principal.kind === 'token' && principal.token.workspaceId !== workspaceId) error(404, notFound);
+	const membership = await getMembership(workspaceId, principal.user.id);
+	if (!membership) error(404, notFound);
+	const role = effectiveRole(principal, membership.role);
+	if (!roleAtLeast(role, minimum)) {
+		if (principal.kind === 'token' && roleAtLeast(membership.role, minimum)) {
+			error(403, `This API token is read-only; this needs a read-and-write token of ${article(minimum)} ${minimum}.`);
+		}
+		error(403, `This needs the ${minimum} role in ${membership.workspaceName}; you are ${article(role)} ${role}.`);
+	}
+	return { principal, user: principal.user, membership: { ...membership, role } };
+}
+
+async function projectAccess(event: AccessEvent, project: ProjectRow | undefined, place: Place, minimum: WorkspaceRole, notFound: string) {
+	if (!project) error(404, notFound);
+	if (place.workspaceId !== undefined && place.workspaceId !== project.workspace_id) error(404, notFound);
+	if (place.projectId !== undefined && place.projectId !== project.id) error(404, notFound);
+	const access = await workspaceAccess(event, project.workspace_id, minimum, notFound);
+	return { ...access, project };
+}
+
+/**
+ * The one check for anything inside a workspace. Pass the route's params:
+ * the innermost id decides what is asked for, the outer ones must contain it.
+ */
+export function authorize(event: AccessEvent, target: { scenarioId: string } & Place, minimum: WorkspaceRole): Promise<ScenarioAccess>;
+export function authorize(event: AccessEvent, target: { uploadId: string } & Place, minimum: WorkspaceRole): Promise<UploadAccess>;
+export function authorize(event: AccessEvent, target: { projectId: string; workspaceId?: string }, minimum: WorkspaceRole): Promise<ProjectAccess>;
+export function authorize(event: AccessEvent, target: { workspaceId: string }, minimum: WorkspaceRole): Promise<WorkspaceAccess>;
+export async function authorize(
+	event: AccessEvent,
+	target: { workspaceId?: string; projectId?: string; scenarioId?: string; uploadId?: string },
+	minimum: WorkspaceRole
+): Promise<WorkspaceAccess | ProjectAccess | ScenarioAccess | UploadAccess> {
+	if (principalOf(event).kind === 'anonymous') refuseAnonymous(event);
+	const place = { workspaceId: target.workspaceId, projectId: target.projectId };
+	if (target.scenarioId !== undefined) {
+		const project = isUuid(target.scenarioId) ? await getProjectOfScenario(target.scenarioId) : undefined;
+		const access = await projectAccess(event, project, place, minimum, hidden.scenario);
+		return { ...access, scenarioId: target.scenarioId };
+	}
+	if (target.uploadId !== undefined) {
+		const project = isUuid(target.uploadId) ? await getProjectOfUpload(target.uploadId) : undefined;
+		const access = await projectAccess(event, project, place, minimum, hidden.upload);
+		return { ...access, uploadId: target.uploadId };
+	}
+	if (target.projectId !== undefined) {
+		const project = isUuid(target.projectId) ? await getProjectById(target.projectId) : undefined;
+		return projectAccess(event, project, { workspaceId: target.workspaceId }, minimum, hidden.project);
+	}
+	if (target.workspaceId !== undefined) return workspaceAccess(event, target.workspaceId, minimum, hidden.workspace);
+	throw new Error('authorize needs a workspace, project, scenario or upload id');
+}
+
+/** Whether the caller's effective role reaches `minimum` (for showing or hiding controls). */
+export function canAct(access: WorkspaceAccess, minimum: WorkspaceRole): boolean {
+	return roleAtLeast(access.membership.role, minimum);
+}

@@ -1,0 +1,27 @@
+/**
+ * Who is asking. `hooks.server.ts` resolves one principal per request: a
+ * member signed in with the session cookie, a member's personal API token
+ * (on /api/v1 only), or nobody. The access module decides what each may do.
+ */
+import type { Session, SessionUser } from './session';
+import type { TokenAccess } from '../db/api-tokens';
+
+export interface ApiTokenPrincipal {
+	kind: 'token';
+	user: SessionUser;
+	token: { id: string; name: string; access: TokenAccess; workspaceId: string };
+}
+
+export interface MemberPrincipal {
+	kind: 'member';
+	user: SessionUser;
+	session: Session;
+}
+
+export interface AnonymousPrincipal {
+	kind: 'anonymous';
+}
+
+export type Principal = AnonymousPrincipal | MemberPrincipal | ApiTokenPrincipal;
+
+export const anonymous: AnonymousPrincipal = { kind: 'anonymous' };

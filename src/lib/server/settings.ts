@@ -1,0 +1,149 @@
+/**
+ * The app's settings: the one place that reads the environment. Each section
+ * is validated with zod when first used; `checkSettings()` validates all of
+ * them at start-up (hooks.server.ts `init`) and stops the start with a message
+ * naming every missing or malformed setting. There is no default database.
+ */
+import { z } from 'zod';
+import { env } from '$env/dynamic/private';
+
+export class SettingsError extends Error {
+	constructor(readonly problems: string[]) {
+		super(`Tidewright cannot start: ${problems.length === 1 ? 'a setting needs' : 'settings need'} attention.\n${problems.map((p) => `  - ${p}`).join('\n')}`);
+		this.name = 'SettingsError';
+	}
+}
+
+const postgresUrl = z
+	.string({ message: 'is not set: give the PostgreSQL connection string (`npm start` sets it for the local cluster)' })
+	.trim()
+	.regex(/^postgres(ql)?:\/\/.+/, 'must be a PostgreSQL connection string such as postgres://user@host:5432/tidewright');
+
+const flag = z.enum(['true', 'false'], { message: 'must be true or false' });
+
+const port = z.coerce.number({ message: 'must be a port number' }).int('must be a whole number').min(1).max(65535);
+
+const originUrl = z
+	.string()
+	.trim()
+	.refine((value) => {
+		try {
+			const url = new URL(value);
+			return (url.protocol === 'http:' || url.protocol === 'https:') && url.origin === value.replace(/\/$/, '');
+		} catch {
+			return false;
+		}
+	}, 'must be an origin such as https://tidewright.example.com (scheme and host, no path)');
+
+const sections = {
+	database: z.object({
+		DATABASE_URL: postgresUrl
+	}),
+	web: z.object({
+		ORIGIN: originUrl.optional(),
+		NODE_ENV: z.string().optional()
+	}),
+	mail: z.object({
+		SMTP_HOST: z.string({ message: 'is not set: Tidewright sends verification, reset and invitation mail (`npm start` points it at the local sink)' }).trim().min(1, 'is empty'),
+		SMTP_PORT: port.default(587),
+		SMTP_SECURE: flag.default('false'),
+		SMTP_USER: z.string().optional(),
+		SMTP_PASSWORD: z.string().optional(),
+		MAIL_FROM: z.string().trim().min(3).default('Tidewright <no-reply@tidewright.example>'),
+		MAIL_SINK_URL: z.url({ message: 'must be the local mail sink address, such as http://127.0.0.1:54326' }).optional()
+	})
+} as const;
+
+type SectionName = keyof typeof sections;
+type Raw<S extends SectionName> = z.output<(typeof sections)[S]>;
+
+/** The named variables, an empty one read as unset. */
+function rawEnvironment(keys: readonly string[]): Record<string, string | undefined> {
+	const source = env as Record<string, string | undefined>;
+	return Object.fromEntries(keys.map((key) => [key, source[key] === '' ? undefined : source[key]]));
+}
+
+function problemsOf(error: z.ZodError): string[] {
+	return error.issues.map((issue) => `${String(issue.path[0] ?? 'setting')} ${issue.message}`);
+}
+
+const cache = new Map<SectionName, { key: string; value: unknown }>();
+
+/** One section, validated; re-read when the environment changes (tests point the app at their own services). */
+function section<S extends SectionName>(name: S): Raw<S> {
+	const schema = sections[name];
+	const raw = rawEnvironment(Object.keys(schema.shape));
+	const key = JSON.stringify(raw);
+	const hit = cache.get(name);
+	if (hit && hit.key === key) return hit.value as Raw<S>;
+	const parsed = schema.safeParse(raw);
+	if (!parsed.success) throw new SettingsError(problemsOf(parsed.error));
+	cache.set(name, { key, value: parsed.data });
+	return parsed.data as Raw<S>;
+}
+
+export interface DatabaseSettings {
+	url: string;
+}
+
+export function databaseSettings(): DatabaseSettings {
+	return { url: section('database').DATABASE_URL };
+}
+
+export interface WebSettings {
+	/** The public origin the app is served at, when set (adapter-node's ORIGIN). */
+	origin: string | null;
+	production: boolean;
+}
+
+export function webSettings(): WebSettings {
+	const web = section('web');
+	return { origin: web.ORIGIN?.replace(/\/$/, '') ?? null, production: web.NODE_ENV === 'production' };
+}
+
+/** Secure cookies wherever the app is served over https; plain http only on a local http origin. */
+export function cookiesAreSecure(requestUrl: URL): boolean {
+	return (webSettings().origin ?? requestUrl.origin).startsWith('https://');
+}
+
+export interface MailSettings {
+	host: string;
+	port: number;
+	secure: boolean;
+	auth: { user: string; pass: string } | null;
+	from: string;
+	/** The local mail sink's message list; set only beside the sink (`npm start`, tests). */
+	sinkUrl: string | null;
+}
+
+export function mailSettings(): MailSettings {
+	const mail = section('mail');
+	return {
+		host: mail.SMTP_HOST,
+		port: mail.SMTP_PORT,
+		secure: mail.SMTP_SECURE === 'true',
+		auth: mail.SMTP_USER ? { user: mail.SMTP_USER, pass: mail.SMTP_PASSWORD ?? '' } : null,
+		from: mail.MAIL_FROM,
+		sinkUrl: mail.MAIL_SINK_URL ?? null
+	};
+}
+
+/** The mail sink's address when it runs beside the app, without requiring the rest of the mail settings. */
+export function mailSinkUrl(): string | null {
+	const value = rawEnvironment(['MAIL_SINK_URL']).MAIL_SINK_URL;
+	return value && z.url().safeParse(value).success ? value : null;
+}
+
+/** Every section at once, reporting all problems together; throws SettingsError. */
+export function checkSettings(): void {
+	const problems: string[] = [];
+	for (const name of Object.keys(sections) as SectionName[]) {
+		try {
+			section(name);
+		} catch (e) {
+			if (e instanceof SettingsError) problems.push(...e.problems);
+			else throw e;
+		}
+	}
+	if (problems.length > 0) throw new SettingsError(problems);
+}
