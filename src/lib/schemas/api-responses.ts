@@ -1,0 +1,264 @@
+/**
+ * The JSON the /api/v1 routes answer with, stated as zod schemas so the
+ * OpenAPI document can describe it. They mirror what
+ * src/lib/server/workbench/serialize.ts and the engine return (dates as ISO
+ * strings, money and energy as decimal strings); they describe the answers,
+ * they do not produce them.
+ */
+import { z } from 'zod';
+import { scenarioSchema } from './scenario';
+import { technologies, uploadKinds } from './workbench';
+
+/** Same order as src/lib/server/auth/roles.ts (kept here so this module stays importable in the browser). */
+export const workspaceRoleSchema = z.enum(['viewer', 'analyst', 'owner']).describe('Role in the workspace: viewer reads, analyst edits, owner also manages');
+
+const isoDateTime = z.iso.datetime().describe('Date and time in UTC, ISO 8601');
+
+export const decimalStringSchema = z
+	.string()
+	.regex(/^-?\d+(\.\d+)?$/)
+	.describe('A decimal number written as a string, kept exact (rounded to at most 10 decimal places)');
+
+export const personRefSchema = z
+	.object({ id: z.uuid(), name: z.string() })
+	.describe('A member of the workspace, as the history shows them');
+
+export const workspaceJsonSchema = z.object({
+	id: z.uuid(),
+	name: z.string(),
+	role: workspaceRoleSchema
+});
+
+export const projectJsonSchema = z.object({
+	id: z.uuid(),
+	workspaceId: z.uuid(),
+	name: z.string(),
+	technology: z.enum(technologies),
+	siteName: z.string(),
+	siteDescription: z.string(),
+	currency: z.string().describe('Three-letter currency code, such as EUR'),
+	createdAt: isoDateTime,
+	updatedAt: isoDateTime,
+	archivedAt: isoDateTime.nullable().describe('When the project was archived; null while it is live')
+});
+
+export const scenarioSummaryJsonSchema = z.object({
+	id: z.uuid(),
+	projectId: z.uuid(),
+	name: z.string(),
+	notes: z.string(),
+	schemaVersion: z.number().int().describe('Version of the scenario document format'),
+	revision: z.number().int().min(1).describe('Raised by one on every save; send it back when you save'),
+	isBaseCase: z.boolean().describe("Whether this is the project's base case, the one compare measures against"),
+	archivedAt: isoDateTime.nullable(),
+	createdAt: isoDateTime,
+	updatedAt: isoDateTime,
+	createdBy: personRefSchema.nullable(),
+	updatedBy: personRefSchema.nullable()
+});
+
+export const scenarioJsonSchema = scenarioSummaryJsonSchema.extend({
+	document: scenarioSchema.describe('The scenario document as saved')
+});
+
+export const revisionJsonSchema = z.object({
+	revision: z.number().int().min(1),
+	name: z.string(),
+	changedSections: z.array(z.string()).describe('Top-level sections of the document this save changed'),
+	summary: z.string(),
+	changedAt: isoDateTime,
+	changedBy: personRefSchema.nullable()
+});
+
+export const uploadSummaryJsonSchema = z.object({
+	id: z.uuid(),
+	projectId: z.uuid(),
+	kind: z.enum(uploadKinds),
+	fileName: z.string(),
+	contentType: z.string(),
+	byteSize: z.number().int().min(0),
+	sha256: z.string().regex(/^[0-9a-f]{64}$/),
+	uploadedBy: personRefSchema.nullable(),
+	createdAt: isoDateTime
+});
+
+export const uploadJsonSchema = uploadSummaryJsonSchema.extend({
+	data: z.unknown().describe('The parsed data: the part of a scenario document this file fills in'),
+	summary: z.record(z.string(), z.unknown()).describe('Figures about the file for the preview (rows, ranges, totals)'),
+	warnings: z.array(z.string())
+});
+
+export const metricsJsonSchema = z
+	.record(z.string(), decimalStringSchema.nullable())
+	.describe('Each metric by its key (lcoeReal, equityIrr, npv, minDscr, ...); null when the metric is undefined for this scenario');
+
+const energyBinSchema = z
+	.object({
+		speedMPerS: decimalStringSchema.optional(),
+		hsM: decimalStringSchema.optional(),
+		teS: decimalStringSchema.optional(),
+		fluxKWPerM: decimalStringSchema.optional(),
+		probability: decimalStringSchema,
+		hours: decimalStringSchema,
+		devicePowerKW: decimalStringSchema,
+		arrayGrossEnergyMWh: decimalStringSchema
+	})
+	.describe('One bin of the resource: a flow speed, or a sea state (Hs, Te)');
+
+const cashFlowRowSchema = z
+	.object({
+		t: z.number().int().describe('Year: 0 is the commercial operation date, negative years are construction'),
+		phase: z.enum(['construction', 'operation'])
+	})
+	.catchall(decimalStringSchema.nullable())
+	.describe('One year of the cash-flow table; every other column (energyMWh, revenue, opex, cfads, dscr, ...) is a decimal string, or null where undefined');
+
+export const evaluationResultSchema = z.object({
+	schemaVersion: z.number().int(),
+	scenarioName: z.string(),
+	technology: z.enum(technologies),
+	currency: z.string(),
+	timeConvention: z.string(),
+	energy: z.object({
+		deviceCount: z.number().int(),
+		ratedPowerPerDeviceKW: decimalStringSchema,
+		installedCapacityKW: decimalStringSchema,
+		meanDevicePowerKW: decimalStringSchema,
+		grossAepMWh: decimalStringSchema,
+		lossFactor: decimalStringSchema,
+		netAepMWh: decimalStringSchema,
+		combinedSigma: decimalStringSchema,
+		exceedances: z.array(z.object({ label: z.string(), levelPercent: z.number(), aepMWh: decimalStringSchema, shareOfP50: decimalStringSchema })),
+		capacityFactor: decimalStringSchema.nullable(),
+		bins: z.array(energyBinSchema)
+	}),
+	costs: z.object({
+		capexRealTotal: decimalStringSchema,
+		capexLines: z.array(z.object({ name: z.string(), realTotal: decimalStringSchema })),
+		grantsRealTotal: decimalStringSchema,
+		decommissioningNominal: decimalStringSchema
+	}),
+	rates: z.object({ inflation: decimalStringSchema, realDiscountRate: decimalStringSchema, nominalDiscountRate: decimalStringSchema }),
+	financing: z
+		.object({
+			sizedBy: z.enum(['gearing', 'target-dscr', 'gearing-cap']),
+			gearing: decimalStringSchema,
+			debtAmount: decimalStringSchema,
+			debtDrawn: decimalStringSchema,
+			interestDuringConstruction: decimalStringSchema,
+			upfrontFee: decimalStringSchema
+		})
+		.nullable()
+		.describe('How the debt was sized; null when the scenario has no debt'),
+	cashFlow: z.array(cashFlowRowSchema),
+	metrics: metricsJsonSchema,
+	warnings: z.array(z.string())
+});
+
+const evaluationSource = z.enum(['saved', 'draft']).describe('saved: the scenario as saved; draft: the document sent in the body');
+
+export const evaluationResponseSchema = z.object({
+	scenarioId: z.uuid(),
+	revision: z.number().int(),
+	source: evaluationSource,
+	engineVersion: z.string().describe('The version of the calculation engine that produced the result').optional(),
+	computedAt: isoDateTime.optional().describe('For the saved scenario: when its stored result was calculated'),
+	result: evaluationResultSchema
+});
+
+const metricDifferenceSchema = z.object({
+	absolute: decimalStringSchema.describe('scenario minus base case, in the unit of the metric'),
+	relative: decimalStringSchema.nullable().describe('(scenario minus base case) / |base case|; null when the base case is 0')
+});
+
+export const comparisonResponseSchema = z.object({
+	projectId: z.uuid(),
+	currency: z.string(),
+	metrics: z.array(z.object({ key: z.string(), unit: z.string() })),
+	baseCase: z.object({ id: z.uuid(), name: z.string(), revision: z.number().int(), metrics: metricsJsonSchema }).nullable(),
+	scenarios: z.array(
+		z.object({
+			id: z.uuid(),
+			name: z.string(),
+			revision: z.number().int(),
+			isBaseCase: z.boolean(),
+			metrics: metricsJsonSchema,
+			differences: z
+				.record(z.string(), metricDifferenceSchema.nullable())
+				.nullable()
+				.describe('Against the base case, by metric key; null when the project has no base case'),
+			warnings: z.array(z.string())
+		})
+	)
+});
+
+const driverRangeSchema = z.object({ driver: z.string(), low: z.number(), high: z.number() });
+
+export const tornadoResponseSchema = z.object({
+	scenarioId: z.uuid(),
+	revision: z.number().int(),
+	source: evaluationSource,
+	drivers: z.array(driverRangeSchema).describe('The drivers and ranges used'),
+	tornado: z.object({
+		metric: z.string(),
+		unit: z.string(),
+		baseOutput: decimalStringSchema.nullable(),
+		rows: z.array(
+			z.object({
+				driver: z.string(),
+				label: z.string(),
+				unit: z.string(),
+				baseInput: z.number(),
+				lowInput: z.number(),
+				highInput: z.number(),
+				lowOutput: decimalStringSchema.nullable(),
+				highOutput: decimalStringSchema.nullable(),
+				swing: decimalStringSchema.nullable()
+			})
+		),
+		warnings: z.array(z.string())
+	})
+});
+
+export const spiderResponseSchema = z.object({
+	scenarioId: z.uuid(),
+	revision: z.number().int(),
+	source: evaluationSource,
+	spider: z.object({
+		metric: z.string(),
+		unit: z.string(),
+		series: z.array(
+			z.object({
+				driver: z.string(),
+				label: z.string(),
+				points: z.array(z.object({ change: z.number(), input: z.number(), output: decimalStringSchema.nullable() }))
+			})
+		)
+	})
+});
+
+export const healthResponseSchema = z.object({
+	status: z.enum(['ok', 'degraded']),
+	db: z.enum(['ok', 'down'])
+});
+
+export const apiIssueSchema = z
+	.object({
+		path: z.string().describe('The field the issue concerns, such as document.capex.lines[0].amount, or (body)'),
+		message: z.string(),
+		row: z.number().int().nullable().optional().describe('For uploaded files: the row of the file (null when the problem is not in one row)'),
+		column: z.string().nullable().optional().describe('For uploaded files: the column of the file (null when the problem is not in one column)')
+	})
+	.describe('One problem with one field');
+
+export const apiErrorSchema = z
+	.object({
+		error: z
+			.object({
+				message: z.string().describe('What went wrong, in words for people'),
+				issues: z.array(apiIssueSchema)
+			})
+			.catchall(z.unknown())
+			.describe('Some refusals carry more facts, such as currentRevision on a stale save')
+	})
+	.describe('Every refusal of the API has this shape');

@@ -1,0 +1,586 @@
+/**
+ * Every /api/v1 operation, stated once: what it does, who may call it, what
+ * it reads and what it answers. The OpenAPI document (./openapi.ts) and the
+ * API page are built from this list, and a test walks src/routes/api/v1 so a
+ * route without an entry here (or an entry without a route) fails.
+ */
+import { z } from 'zod';
+import type { WorkspaceRole } from '../auth/roles';
+import { DRIVER_IDS } from '../engine/sensitivity';
+import { csvTables, exportFormats } from '../workbench/export';
+import { spiderBody, tornadoBody } from '../workbench/sensitivity-body';
+import {
+	apiErrorSchema,
+	comparisonResponseSchema,
+	decimalStringSchema,
+	evaluationResponseSchema,
+	evaluationResultSchema,
+	healthResponseSchema,
+	metricsJsonSchema,
+	personRefSchema,
+	projectJsonSchema,
+	revisionJsonSchema,
+	scenarioJsonSchema,
+	scenarioSummaryJsonSchema,
+	spiderResponseSchema,
+	tornadoResponseSchema,
+	uploadJsonSchema,
+	uploadSummaryJsonSchema,
+	workspaceJsonSchema,
+	workspaceRoleSchema
+} from '../../schemas/api-responses';
+import { scenarioSchema } from '../../schemas/scenario';
+import {
+	applyUploadBody,
+	createProjectBody,
+	createScenarioBody,
+	duplicateScenarioBody,
+	evaluateBody,
+	updateProjectBody,
+	updateScenarioBody,
+	uploadKindSchema
+} from '../../schemas/workbench';
+
+export const httpMethods = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'] as const;
+export type HttpMethod = (typeof httpMethods)[number];
+
+/** 'anyone': no sign-in; 'signed-in': any signed-in caller; otherwise the least workspace role. */
+export type MinimumRole = 'anyone' | 'signed-in' | WorkspaceRole;
+
+/**
+ * Which personal API tokens may call: 'read-only' (any token), 'read-write'
+ * (read-write tokens only), 'refused' (a browser session only) or
+ * 'not-needed' (public).
+ */
+export type ApiTokenUse = 'read-only' | 'read-write' | 'refused' | 'not-needed';
+
+export const apiTags = {
+	Service: 'The state of the service and this description.',
+	Workspaces: 'The workspaces you belong to and your role in each.',
+	Projects: 'Projects: one site, one technology, many scenarios.',
+	Scenarios: 'Scenarios: a document of assumptions, saved as numbered revisions.',
+	Results: 'Figures calculated from a scenario: metrics, cash flows, sensitivity, comparison and exports.',
+	Uploads: 'Resource and device data uploaded as CSV files and applied to scenarios.'
+} as const;
+export type ApiTag = keyof typeof apiTags;
+
+/** Refusals an operation can answer with, all in the one error shape. */
+export type ErrorStatus = 400 | 401 | 403 | 404 | 409 | 413 | 415 | 422 | 429;
+
+export interface ParameterSpec {
+	description: string;
+	schema: z.ZodType;
+}
+
+export interface QueryParameter extends ParameterSpec {
+	name: string;
+	required: boolean;
+}
+
+export interface RequestBodySpec {
+	contentType: 'application/json' | 'multipart/form-data';
+	/** Without a body the operation still works (for example: evaluate the saved scenario). */
+	required: boolean;
+	schema: z.ZodType;
+}
+
+export interface ResponseSpec {
+	status: 200 | 201 | 204 | 503;
+	description: string;
+	/** The JSON answered; absent for files and empty answers. */
+	json?: z.ZodType;
+	/** Content types of a file answered instead of JSON. */
+	fileTypes?: readonly string[];
+}
+
+export interface ApiOperation {
+	operationId: string;
+	method: HttpMethod;
+	/** Under /api/v1, with `{param}` placeholders named as the route folders name them. */
+	path: string;
+	tag: ApiTag;
+	summary: string;
+	description?: string;
+	minimumRole: MinimumRole;
+	apiToken: ApiTokenUse;
+	query?: QueryParameter[];
+	requestBody?: RequestBodySpec;
+	response: ResponseSpec;
+	/** Other answers that are not refusals (the health check's 503). */
+	otherResponses?: ResponseSpec[];
+	/** Refusals beyond those that follow from the role, the body and the path (see errorStatusesOf). */
+	otherErrors?: ErrorStatus[];
+}
+
+/** Path placeholders, the same wherever they appear. */
+export const pathParameters: Record<string, ParameterSpec> = {
+	workspaceId: { description: 'The workspace id (GET /api/v1/workspaces lists yours)', schema: z.guid() },
+	projectId: { description: 'The project id', schema: z.guid() },
+	scenarioId: { description: 'The scenario id', schema: z.guid() },
+	uploadId: { description: 'The upload id', schema: z.guid() },
+	revision: { description: 'A revision number of the scenario (1 is the first save)', schema: z.int().min(1) }
+};
+
+/** A JSON body whose `document` field is described as a scenario document (the route checks it separately). */
+function withScenarioDocument<S extends z.ZodObject>(schema: S, description: string) {
+	return schema.safeExtend({ document: scenarioSchema.optional().describe(description) });
+}
+
+function jsonBody(schema: z.ZodType, required: boolean): RequestBodySpec {
+	return { contentType: 'application/json', required, schema };
+}
+
+const archivedQuery: QueryParameter = {
+	name: 'archived',
+	required: false,
+	description: 'Send 1 to list the archived ones instead of the live ones',
+	schema: z.enum(['1'])
+};
+
+const draftDocument =
+	'An unsaved draft to calculate instead of the saved scenario (needs the analyst role, and with an API token a read-write one). Leave it out to use the saved scenario.';
+
+const projectEnvelope = z.object({ project: projectJsonSchema });
+const scenarioEnvelope = z.object({ scenario: scenarioJsonSchema });
+
+/** Shared schemas and the names the OpenAPI document gives them; anything else is named after its operation. */
+export const namedResponseSchemas: Record<string, z.ZodType> = {
+	Error: apiErrorSchema,
+	PersonRef: personRefSchema,
+	DecimalString: decimalStringSchema,
+	WorkspaceRole: workspaceRoleSchema,
+	Workspace: workspaceJsonSchema,
+	Project: projectJsonSchema,
+	ProjectEnvelope: projectEnvelope,
+	ScenarioSummary: scenarioSummaryJsonSchema,
+	Scenario: scenarioJsonSchema,
+	ScenarioEnvelope: scenarioEnvelope,
+	ScenarioDocument: scenarioSchema,
+	Revision: revisionJsonSchema,
+	UploadSummary: uploadSummaryJsonSchema,
+	Upload: uploadJsonSchema,
+	Metrics: metricsJsonSchema,
+	EvaluationResult: evaluationResultSchema
+};
+
+export const namedRequestSchemas: Record<string, z.ZodType> = {
+	ScenarioDocumentInput: scenarioSchema
+};
+
+export const apiOperations: ApiOperation[] = [
+	{
+		operationId: 'getHealth',
+		method: 'GET',
+		path: '/api/v1/health',
+		tag: 'Service',
+		summary: 'Check that the service and its database answer',
+		minimumRole: 'anyone',
+		apiToken: 'not-needed',
+		response: { status: 200, description: 'The service and its database are up', json: healthResponseSchema },
+		otherResponses: [{ status: 503, description: 'The database does not answer', json: healthResponseSchema }]
+	},
+	{
+		operationId: 'getOpenApiDocument',
+		method: 'GET',
+		path: '/api/v1/openapi.json',
+		tag: 'Service',
+		summary: 'This description of the API, as OpenAPI 3.1',
+		minimumRole: 'anyone',
+		apiToken: 'not-needed',
+		response: { status: 200, description: 'The OpenAPI 3.1 document', json: z.record(z.string(), z.unknown()) }
+	},
+	{
+		operationId: 'listWorkspaces',
+		method: 'GET',
+		path: '/api/v1/workspaces',
+		tag: 'Workspaces',
+		summary: 'List the workspaces you belong to',
+		minimumRole: 'signed-in',
+		apiToken: 'read-only',
+		response: { status: 200, description: 'Your workspaces with your role in each', json: z.object({ workspaces: z.array(workspaceJsonSchema) }) }
+	},
+	{
+		operationId: 'listProjects',
+		method: 'GET',
+		path: '/api/v1/workspaces/{workspaceId}/projects',
+		tag: 'Projects',
+		summary: "List a workspace's projects",
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		query: [archivedQuery],
+		response: {
+			status: 200,
+			description: 'The workspace and its projects',
+			json: z.object({ workspace: workspaceJsonSchema, projects: z.array(projectJsonSchema) })
+		}
+	},
+	{
+		operationId: 'createProject',
+		method: 'POST',
+		path: '/api/v1/workspaces/{workspaceId}/projects',
+		tag: 'Projects',
+		summary: 'Create a project',
+		description: 'The technology is fixed once the project exists: its scenarios are built for it.',
+		minimumRole: 'analyst',
+		apiToken: 'read-write',
+		requestBody: jsonBody(createProjectBody, true),
+		response: { status: 201, description: 'The new project', json: projectEnvelope }
+	},
+	{
+		operationId: 'getProject',
+		method: 'GET',
+		path: '/api/v1/projects/{projectId}',
+		tag: 'Projects',
+		summary: 'Read one project and your role in its workspace',
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		response: { status: 200, description: 'The project', json: z.object({ project: projectJsonSchema, role: workspaceRoleSchema }) }
+	},
+	{
+		operationId: 'updateProject',
+		method: 'PATCH',
+		path: '/api/v1/projects/{projectId}',
+		tag: 'Projects',
+		summary: "Change a project's name, site or currency",
+		description: 'Send only the fields to change; the technology cannot change.',
+		minimumRole: 'analyst',
+		apiToken: 'read-write',
+		requestBody: jsonBody(updateProjectBody, true),
+		response: { status: 200, description: 'The project as changed', json: projectEnvelope }
+	},
+	{
+		operationId: 'archiveProject',
+		method: 'DELETE',
+		path: '/api/v1/projects/{projectId}',
+		tag: 'Projects',
+		summary: 'Archive a project',
+		description: 'Its scenarios and uploads are kept; restoreProject brings it back.',
+		minimumRole: 'owner',
+		apiToken: 'read-write',
+		response: { status: 200, description: 'The archived project', json: projectEnvelope }
+	},
+	{
+		operationId: 'restoreProject',
+		method: 'POST',
+		path: '/api/v1/projects/{projectId}/restore',
+		tag: 'Projects',
+		summary: 'Bring an archived project back',
+		minimumRole: 'owner',
+		apiToken: 'read-write',
+		response: { status: 200, description: 'The restored project', json: projectEnvelope }
+	},
+	{
+		operationId: 'listScenarios',
+		method: 'GET',
+		path: '/api/v1/projects/{projectId}/scenarios',
+		tag: 'Scenarios',
+		summary: "List a project's scenarios (without their documents)",
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		query: [archivedQuery],
+		response: {
+			status: 200,
+			description: 'The project and its scenarios',
+			json: z.object({ project: projectJsonSchema, scenarios: z.array(scenarioSummaryJsonSchema) })
+		}
+	},
+	{
+		operationId: 'createScenario',
+		method: 'POST',
+		path: '/api/v1/projects/{projectId}/scenarios',
+		tag: 'Scenarios',
+		summary: 'Create a scenario',
+		description:
+			"From the document sent, or without one from the example scenario of the project's technology. The first scenario of a project becomes its base case.",
+		minimumRole: 'analyst',
+		apiToken: 'read-write',
+		requestBody: jsonBody(
+			withScenarioDocument(createScenarioBody, "The scenario document; leave it out to start from the example of the project's technology."),
+			true
+		),
+		response: { status: 201, description: 'The new scenario at revision 1', json: scenarioEnvelope }
+	},
+	{
+		operationId: 'listUploads',
+		method: 'GET',
+		path: '/api/v1/projects/{projectId}/uploads',
+		tag: 'Uploads',
+		summary: "List a project's uploads, newest first",
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		response: { status: 200, description: 'The uploads without their data', json: z.object({ uploads: z.array(uploadSummaryJsonSchema) }) }
+	},
+	{
+		operationId: 'createUpload',
+		method: 'POST',
+		path: '/api/v1/projects/{projectId}/uploads',
+		tag: 'Uploads',
+		summary: 'Upload a resource or device data file (CSV)',
+		description:
+			'A file with any bad row is refused with every row and column problem (issues carry row and column) and nothing is stored; a good file is stored with its parsed data.',
+		minimumRole: 'analyst',
+		apiToken: 'read-write',
+		requestBody: {
+			contentType: 'multipart/form-data',
+			required: true,
+			schema: z.object({
+				kind: uploadKindSchema.describe('What the file holds; each kind has a template under /templates/'),
+				file: z.file().describe('The CSV file, at most 20 MB')
+			})
+		},
+		response: { status: 201, description: 'The stored upload with its parsed preview', json: z.object({ upload: uploadJsonSchema }) },
+		otherErrors: [413, 415]
+	},
+	{
+		operationId: 'compareScenarios',
+		method: 'GET',
+		path: '/api/v1/projects/{projectId}/compare',
+		tag: 'Results',
+		summary: 'Compare saved scenarios side by side',
+		description: "Each scenario's metrics and its differences from the project's base case.",
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		query: [
+			{
+				name: 'ids',
+				required: false,
+				description: "Scenario ids separated by commas, at most 12; without it, the project's live scenarios",
+				schema: z.string()
+			}
+		],
+		response: { status: 200, description: 'The scenarios with their metrics and differences', json: comparisonResponseSchema },
+		otherErrors: [422]
+	},
+	{
+		operationId: 'getScenario',
+		method: 'GET',
+		path: '/api/v1/scenarios/{scenarioId}',
+		tag: 'Scenarios',
+		summary: 'Read a scenario with its document',
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		response: {
+			status: 200,
+			description: 'The scenario, its project and your role',
+			json: z.object({ scenario: scenarioJsonSchema, project: projectJsonSchema, role: workspaceRoleSchema })
+		}
+	},
+	{
+		operationId: 'saveScenario',
+		method: 'PUT',
+		path: '/api/v1/scenarios/{scenarioId}',
+		tag: 'Scenarios',
+		summary: 'Save a new revision of a scenario',
+		description:
+			'Send the revision you were editing with the name, notes and/or document. When someone saved since, the answer is 409 with currentRevision and nothing is written.',
+		minimumRole: 'analyst',
+		apiToken: 'read-write',
+		requestBody: jsonBody(withScenarioDocument(updateScenarioBody, 'The whole scenario document as it should be saved.'), true),
+		response: { status: 200, description: 'The scenario at its new revision', json: scenarioEnvelope },
+		otherErrors: [409]
+	},
+	{
+		operationId: 'deleteScenario',
+		method: 'DELETE',
+		path: '/api/v1/scenarios/{scenarioId}',
+		tag: 'Scenarios',
+		summary: 'Delete an archived scenario for good, with its history',
+		description: 'Only a scenario archived first (409 otherwise).',
+		minimumRole: 'owner',
+		apiToken: 'read-write',
+		response: { status: 204, description: 'Deleted' },
+		otherErrors: [409]
+	},
+	{
+		operationId: 'archiveScenario',
+		method: 'POST',
+		path: '/api/v1/scenarios/{scenarioId}/archive',
+		tag: 'Scenarios',
+		summary: 'Archive a scenario',
+		description: 'An archived scenario is no longer the base case.',
+		minimumRole: 'analyst',
+		apiToken: 'read-write',
+		response: { status: 200, description: 'The archived scenario', json: scenarioEnvelope }
+	},
+	{
+		operationId: 'markBaseCase',
+		method: 'POST',
+		path: '/api/v1/scenarios/{scenarioId}/base-case',
+		tag: 'Scenarios',
+		summary: "Make a scenario its project's base case",
+		description: 'The previous base case loses the mark. An archived scenario cannot be the base case (409).',
+		minimumRole: 'analyst',
+		apiToken: 'read-write',
+		response: { status: 200, description: 'The scenario, now the base case', json: scenarioEnvelope },
+		otherErrors: [409]
+	},
+	{
+		operationId: 'duplicateScenario',
+		method: 'POST',
+		path: '/api/v1/scenarios/{scenarioId}/duplicate',
+		tag: 'Scenarios',
+		summary: 'Copy a saved scenario',
+		description: 'The copy starts at revision 1; without a name it is called after the original with "(copy)".',
+		minimumRole: 'analyst',
+		apiToken: 'read-write',
+		requestBody: jsonBody(duplicateScenarioBody, false),
+		response: { status: 201, description: 'The copy', json: scenarioEnvelope }
+	},
+	{
+		operationId: 'evaluateScenario',
+		method: 'POST',
+		path: '/api/v1/scenarios/{scenarioId}/evaluate',
+		tag: 'Results',
+		summary: 'Calculate the results of a scenario',
+		description:
+			'Energy, costs, the annual cash-flow table and the metrics of the saved scenario (empty body, open to viewers: the result stored for its revision) or of an unsaved draft (analysts and owners: calculated now, never stored).',
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		requestBody: jsonBody(withScenarioDocument(evaluateBody, draftDocument), false),
+		response: { status: 200, description: 'The results', json: evaluationResponseSchema },
+		otherErrors: [403]
+	},
+	{
+		operationId: 'exportScenario',
+		method: 'GET',
+		path: '/api/v1/scenarios/{scenarioId}/export',
+		tag: 'Results',
+		summary: "Download a saved scenario's results as a spreadsheet",
+		description:
+			'XLSX: every table on its own sheet, with the cautions. CSV: one table (the cash-flow table, or the metrics), the cautions after a blank line.',
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		query: [
+			{ name: 'format', required: false, description: 'File format (xlsx when left out)', schema: z.enum(exportFormats) },
+			{ name: 'table', required: false, description: 'For CSV: which table (cash-flow when left out)', schema: z.enum(csvTables) }
+		],
+		response: {
+			status: 200,
+			description: 'The file, as an attachment',
+			fileTypes: ['application/vnd.openxmlformats-officedocument.spreadsheetml.sheet', 'text/csv']
+		},
+		otherErrors: [422]
+	},
+	{
+		operationId: 'restoreScenario',
+		method: 'POST',
+		path: '/api/v1/scenarios/{scenarioId}/restore',
+		tag: 'Scenarios',
+		summary: 'Bring an archived scenario back to the live list',
+		minimumRole: 'analyst',
+		apiToken: 'read-write',
+		response: { status: 200, description: 'The restored scenario', json: scenarioEnvelope }
+	},
+	{
+		operationId: 'listScenarioRevisions',
+		method: 'GET',
+		path: '/api/v1/scenarios/{scenarioId}/revisions',
+		tag: 'Scenarios',
+		summary: "List a scenario's revisions, newest first",
+		description: 'Who changed which sections, and when.',
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		response: { status: 200, description: 'The history', json: z.object({ revisions: z.array(revisionJsonSchema) }) }
+	},
+	{
+		operationId: 'getScenarioRevision',
+		method: 'GET',
+		path: '/api/v1/scenarios/{scenarioId}/revisions/{revision}',
+		tag: 'Scenarios',
+		summary: 'Read the document as it was saved at one revision',
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		response: { status: 200, description: 'The document at that revision', json: z.object({ revision: z.int(), document: scenarioSchema }) }
+	},
+	{
+		operationId: 'runSpider',
+		method: 'POST',
+		path: '/api/v1/scenarios/{scenarioId}/spider',
+		tag: 'Results',
+		summary: 'Spider chart: one metric as each driver moves by the same relative steps',
+		description: `Steps of -20 % to +20 % unless changes are sent; without drivers, all of them (${DRIVER_IDS.join(', ')}). Nothing is saved.`,
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		requestBody: jsonBody(withScenarioDocument(spiderBody, draftDocument), false),
+		response: { status: 200, description: 'One series of points for each driver', json: spiderResponseSchema },
+		otherErrors: [403]
+	},
+	{
+		operationId: 'runTornado',
+		method: 'POST',
+		path: '/api/v1/scenarios/{scenarioId}/tornado',
+		tag: 'Results',
+		summary: 'Tornado chart: one metric at each driver’s low and high value',
+		description: 'Without drivers, the usual screening ranges (capex and opex ±20 % and so on). Rows come sorted by swing, largest first. Nothing is saved.',
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		requestBody: jsonBody(withScenarioDocument(tornadoBody, draftDocument), false),
+		response: { status: 200, description: 'The rows of the tornado chart', json: tornadoResponseSchema },
+		otherErrors: [403]
+	},
+	{
+		operationId: 'getUpload',
+		method: 'GET',
+		path: '/api/v1/uploads/{uploadId}',
+		tag: 'Uploads',
+		summary: "Read an upload's parsed data, summary and warnings",
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		response: { status: 200, description: 'The upload', json: z.object({ upload: uploadJsonSchema }) }
+	},
+	{
+		operationId: 'applyUpload',
+		method: 'POST',
+		path: '/api/v1/uploads/{uploadId}/apply',
+		tag: 'Uploads',
+		summary: "Put an upload's data into a scenario",
+		description:
+			"The parsed data replaces the scenario's resource or device, saved as a new revision. Send the revision you looked at to refuse the change when the scenario moved on since (409).",
+		minimumRole: 'analyst',
+		apiToken: 'read-write',
+		query: [{ name: 'scenarioId', required: true, description: 'The scenario, in the same project, to apply the upload to', schema: z.guid() }],
+		requestBody: jsonBody(applyUploadBody, false),
+		response: {
+			status: 200,
+			description: 'The scenario at its new revision and the section that changed',
+			json: z.object({ scenario: scenarioJsonSchema, section: z.enum(['resource', 'device']) })
+		},
+		otherErrors: [409]
+	},
+	{
+		operationId: 'downloadUploadFile',
+		method: 'GET',
+		path: '/api/v1/uploads/{uploadId}/file',
+		tag: 'Uploads',
+		summary: 'Download the file exactly as it was uploaded',
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		response: { status: 200, description: 'The CSV file, as an attachment', fileTypes: ['text/csv'] }
+	}
+];
+
+const roleRank: Record<MinimumRole, number> = { anyone: 0, 'signed-in': 1, viewer: 2, analyst: 3, owner: 4 };
+
+/** The placeholders of a path, in order: `/a/{x}/b/{y}` -> ['x', 'y']. */
+export function pathPlaceholders(path: string): string[] {
+	return [...path.matchAll(/\{([^}]+)\}/g)].map((m) => m[1]);
+}
+
+/**
+ * The refusals an operation can answer with: 401 once sign-in is needed,
+ * 404 for anything named in the path, 403 for a role above viewer or a
+ * read-write token, 400/422 for a body, 429 for token rate limits, and the
+ * operation's own.
+ */
+export function errorStatusesOf(op: ApiOperation): ErrorStatus[] {
+	const statuses = new Set<ErrorStatus>(op.otherErrors ?? []);
+	if (op.minimumRole !== 'anyone') statuses.add(401);
+	if (roleRank[op.minimumRole] > roleRank.viewer || op.apiToken === 'read-write') statuses.add(403);
+	if (pathPlaceholders(op.path).length > 0) statuses.add(404);
+	if (op.requestBody) {
+		statuses.add(400);
+		statuses.add(422);
+	}
+	if (op.apiToken === 'read-only' || op.apiToken === 'read-write') statuses.add(429);
+	return [...statuses].sort((a, b) => a - b);
+}
