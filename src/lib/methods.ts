@@ -1,7 +1,8 @@
 /**
  * The method notes: one markdown file a topic in docs/methods/<slug>.md,
  * shown at /app/methods/<slug>. The slugs are stable: result surfaces link
- * to them through methodHref, so a note may be rewritten but not renamed.
+ * to them through the metric catalogue (src/lib/metrics/catalogue.ts), so a
+ * note may be rewritten but not renamed.
  * Safe to import in the browser.
  */
 
@@ -38,45 +39,12 @@ export const METHOD_NOTES = [
 
 export type MethodSlug = (typeof METHOD_NOTES)[number]['slug'];
 
-/** The note behind each engine metric key (the keys of the engine's `metrics`). */
-export const METRIC_METHODS = {
-	netAepMWh: 'annual-energy',
-	p90AepMWh: 'exceedance',
-	capacityFactor: 'capacity-factor',
-	lcoeReal: 'lcoe',
-	lcoeNominal: 'lcoe',
-	lcoeFcr: 'lcoe-fixed-charge-rate',
-	projectIrrPreTax: 'irr',
-	projectIrrPostTax: 'irr',
-	equityIrr: 'irr',
-	npv: 'npv',
-	paybackYears: 'payback',
-	minDscr: 'dscr',
-	avgDscr: 'dscr',
-	llcr: 'llcr',
-	debtAmount: 'debt-sizing',
-	breakevenTariff: 'breakeven-tariff'
-} as const satisfies Record<string, MethodSlug>;
-
 export const METHODS_INDEX_HREF = '/app/methods';
 
 export function methodNoteHref(slug: string): string {
 	return `${METHODS_INDEX_HREF}/${encodeURIComponent(slug)}`;
 }
 
-/** Where a metric's method note lives; a key with no note leads to the index. */
-export function methodHref(metricKey: string): string {
-	const slug = (METRIC_METHODS as Record<string, MethodSlug | undefined>)[metricKey];
-	return slug ? methodNoteHref(slug) : METHODS_INDEX_HREF;
-}
-
 export function isMethodSlug(value: string): value is MethodSlug {
 	return METHOD_NOTES.some((note) => note.slug === value);
-}
-
-/** The metric keys whose figures a note explains, in the engine's order. */
-export function metricKeysOfNote(slug: string): string[] {
-	return Object.entries(METRIC_METHODS)
-		.filter(([, noteSlug]) => noteSlug === slug)
-		.map(([key]) => key);
 }

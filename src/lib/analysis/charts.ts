@@ -4,7 +4,8 @@
  */
 import type { ChartConfiguration, Plugin, TooltipItem } from 'chart.js';
 import { chartColours, seriesColours } from '../components/charts/palette';
-import { chartNumber } from './metric-display';
+import { METRICS, metricUnit } from '../metrics/catalogue';
+import { chartValue } from '../metrics/format';
 
 const axisTitle = (text: string) => ({ display: true, text, color: chartColours.abyss });
 const grid = { color: 'rgba(29, 67, 87, 0.08)' };
@@ -19,17 +20,17 @@ export interface LcoeBar {
 /** LCOE of each scenario: real, nominal and the fixed-charge-rate form side by side. */
 export function lcoeBarChart(scenarios: readonly LcoeBar[], currency: string): ChartConfiguration<'bar'> {
 	const series = [
-		{ label: 'LCOE, real', key: 'lcoeReal', colour: chartColours.kelp },
-		{ label: 'LCOE, nominal', key: 'lcoeNominal', colour: chartColours.copper },
-		{ label: 'LCOE, fixed charge rate', key: 'lcoeFcr', colour: chartColours.sand }
+		{ key: 'lcoeReal', colour: chartColours.kelp },
+		{ key: 'lcoeNominal', colour: chartColours.copper },
+		{ key: 'lcoeFcr', colour: chartColours.sand }
 	] as const;
 	return {
 		type: 'bar',
 		data: {
 			labels: scenarios.map((s) => s.name),
 			datasets: series.map((s) => ({
-				label: s.label,
-				data: scenarios.map((scenario) => chartNumber(scenario[s.key])),
+				label: METRICS[s.key].label,
+				data: scenarios.map((scenario) => chartValue(s.key, scenario[s.key])),
 				backgroundColor: s.colour,
 				borderRadius: 3
 			}))
@@ -38,7 +39,7 @@ export function lcoeBarChart(scenarios: readonly LcoeBar[], currency: string): C
 			plugins: { legend: { position: 'bottom' } },
 			scales: {
 				x: { grid: { display: false } },
-				y: { beginAtZero: true, grid, title: axisTitle(`${currency}/MWh`) }
+				y: { beginAtZero: true, grid, title: axisTitle(metricUnit('lcoeReal', currency)) }
 			}
 		}
 	};

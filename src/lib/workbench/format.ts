@@ -25,15 +25,6 @@ export function formatPercent(value: string | number | null | undefined, digits 
 	return n === null ? '—' : `${formatNumber(n * 100, digits)} %`;
 }
 
-/** Money in millions when large: 46491574 -> "46.49 M". */
-export function formatMoneyShort(value: string | number | null | undefined): string {
-	const n = toNumber(value);
-	if (n === null) return '—';
-	if (Math.abs(n) >= 1e6) return `${formatNumber(n / 1e6, 2)} M`;
-	if (Math.abs(n) >= 1e3) return `${formatNumber(n / 1e3, 1)} k`;
-	return formatNumber(n, 0);
-}
-
 /** A number for a chart axis (floats are fine there). */
 export function chartNumber(value: string | null | undefined): number | null {
 	return toNumber(value);

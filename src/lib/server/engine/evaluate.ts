@@ -13,46 +13,9 @@ import { financeCase, operate, prepareCase, type CasePreparation, type Financing
 import { nominalPricePath } from './revenue';
 import { coverRatios, discountedLcoe, type CoverRatios, fixedChargeRateLcoe, internalRate, loanLifeCoverRatio, paybackYears } from './metrics';
 import { solveBreakevenTariff } from './breakeven';
+import { METRIC_KEYS, METRICS, type MetricKey } from '../../metrics/catalogue';
 
-export const METRIC_KEYS = [
-	'netAepMWh',
-	'p90AepMWh',
-	'capacityFactor',
-	'lcoeReal',
-	'lcoeNominal',
-	'lcoeFcr',
-	'projectIrrPreTax',
-	'projectIrrPostTax',
-	'equityIrr',
-	'npv',
-	'paybackYears',
-	'minDscr',
-	'avgDscr',
-	'llcr',
-	'debtAmount',
-	'breakevenTariff'
-] as const;
-export type MetricKey = (typeof METRIC_KEYS)[number];
-
-/** Units of each metric, for labels. Rates are fractions; IRRs are nominal. */
-export const METRIC_UNITS: Record<MetricKey, string> = {
-	netAepMWh: 'MWh/yr',
-	p90AepMWh: 'MWh/yr',
-	capacityFactor: 'fraction',
-	lcoeReal: 'currency/MWh (real, COD-year money)',
-	lcoeNominal: 'currency/MWh (nominal levelised)',
-	lcoeFcr: 'currency/MWh (real)',
-	projectIrrPreTax: 'fraction/yr (nominal)',
-	projectIrrPostTax: 'fraction/yr (nominal)',
-	equityIrr: 'fraction/yr (nominal)',
-	npv: 'currency at COD (post-tax project, nominal rate)',
-	paybackYears: 'years from COD',
-	minDscr: 'ratio',
-	avgDscr: 'ratio',
-	llcr: 'ratio',
-	debtAmount: 'currency (balance at COD)',
-	breakevenTariff: 'currency/MWh (flat real)'
-};
+export { METRIC_KEYS, type MetricKey } from '../../metrics/catalogue';
 
 export type Metrics<T> = Record<MetricKey, T | null>;
 
@@ -87,7 +50,7 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 	const needsFinancing = [...wanted].some((m) => FINANCING_METRICS.has(m));
 	const financing = needsFinancing ? financeCase(prep, operating) : null;
 	const warnings = [...energy.warnings, ...prep.warnings, ...(financing?.warnings ?? [])];
-	const note = (metric: MetricKey, reason: string) => warnings.push(`${metric} is not available: ${reason}.`);
+	const note = (metric: MetricKey, reason: string) => warnings.push(`${METRICS[metric].label} is not available: ${reason}.`);
 	const want = (m: MetricKey) => wanted.has(m);
 
 	const lcoe = discountedLcoe(prep, operating);

@@ -6,7 +6,8 @@
 import type { Decimal } from './decimal';
 import type { Scenario } from '../../schemas/scenario';
 import { estimateEnergy, type EnergyEstimate } from './energy/yield';
-import { decimalString, evaluateMetric, METRIC_UNITS, type DecimalString, type MetricKey } from './evaluate';
+import { decimalString, evaluateMetric, type DecimalString } from './evaluate';
+import { engineValueUnit, METRICS, type MetricKey } from '../../metrics/catalogue';
 
 export const DRIVER_IDS = [
 	'capex',
@@ -245,6 +246,7 @@ export type TornadoRow = {
 	swing: DecimalString | null;
 };
 
+/** `unit`: the unit of the outputs as sent (rates as fractions), with the scenario's currency, from the metric catalogue. */
 export type TornadoResult = { metric: MetricKey; unit: string; baseOutput: DecimalString | null; rows: TornadoRow[]; warnings: string[] };
 
 /** Evaluates scenarios for one metric, reusing the base energy estimate where a driver leaves it alone. */
@@ -267,7 +269,7 @@ export function tornado(scenario: Scenario, drivers: readonly DriverRange[], met
 		const def = DRIVERS[driver];
 		const lowOutput = evaluate(def.apply(scenario, low), def.changesEnergy);
 		const highOutput = evaluate(def.apply(scenario, high), def.changesEnergy);
-		if (lowOutput === null || highOutput === null) warnings.push(`${def.label}: ${metric} is undefined at the ${lowOutput === null ? 'low' : 'high'} value.`);
+		if (lowOutput === null || highOutput === null) warnings.push(`${def.label}: ${METRICS[metric].label} is undefined at the ${lowOutput === null ? 'low' : 'high'} value.`);
 		const swing = lowOutput !== null && highOutput !== null ? highOutput.minus(lowOutput).abs() : null;
 		return { row: { driver, label: def.label, unit: def.unit, baseInput: def.base(scenario), lowInput: low, highInput: high }, lowOutput, highOutput, swing };
 	});
@@ -275,7 +277,7 @@ export function tornado(scenario: Scenario, drivers: readonly DriverRange[], met
 	const str = (d: Decimal | null) => (d === null ? null : decimalString(d));
 	return {
 		metric,
-		unit: METRIC_UNITS[metric],
+		unit: engineValueUnit(metric, scenario.currency),
 		baseOutput: str(baseOutput),
 		rows: rows.map((r) => ({ ...r.row, lowOutput: str(r.lowOutput), highOutput: str(r.highOutput), swing: str(r.swing) })),
 		warnings
@@ -310,5 +312,5 @@ export function spider(
 		});
 		return { driver, label: def.label, points };
 	});
-	return { metric, unit: METRIC_UNITS[metric], series };
+	return { metric, unit: engineValueUnit(metric, scenario.currency), series };
 }

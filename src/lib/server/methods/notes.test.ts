@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { METHOD_NOTES, methodHref } from '../../methods';
-import { METRIC_KEYS } from '../engine/evaluate';
+import { METHOD_NOTES } from '../../methods';
+import { METRIC_LIST } from '../../metrics/catalogue';
 import { getMethodNote, listMethodNotes } from './notes';
 
 describe('the bundled method notes', () => {
@@ -10,8 +10,7 @@ describe('the bundled method notes', () => {
 	});
 
 	it('give every engine metric a note with a title, a summary and a formula block', () => {
-		for (const key of METRIC_KEYS) {
-			const slug = methodHref(key).replace('/app/methods/', '');
+		for (const { key, method: slug } of METRIC_LIST) {
 			const note = getMethodNote(slug);
 			expect(note, `${key} -> ${slug}`).toBeDefined();
 			expect(note!.title.length).toBeGreaterThan(0);

@@ -3,7 +3,8 @@
  * the base case, in decimal arithmetic on the engine's decimal strings.
  */
 import { Decimal } from '../engine/decimal';
-import { METRIC_KEYS, METRIC_UNITS, decimalString, type EngineResult, type MetricKey } from '../engine/evaluate';
+import { decimalString, type EngineResult } from '../engine/evaluate';
+import { CURRENCY_PLACEHOLDER, engineValueUnit, METRIC_KEYS, type MetricKey } from '../../metrics/catalogue';
 
 export interface CompareEntry {
 	id: string;
@@ -32,6 +33,7 @@ export interface ComparedScenario {
 }
 
 export interface Comparison {
+	/** The catalogue's metrics in its order, each with the unit of its values as sent (rates as fractions). */
 	metrics: { key: MetricKey; unit: string }[];
 	baseCase: { id: string; name: string; revision: number; metrics: Record<MetricKey, string | null> } | null;
 	scenarios: ComparedScenario[];
@@ -47,8 +49,10 @@ export function metricDifference(value: string | null, base: string | null): Met
 
 export function compareScenarios(entries: readonly CompareEntry[], baseCase: CompareEntry | null): Comparison {
 	const baseMetrics = baseCase?.result.metrics ?? null;
+	// Scenarios of one project share its currency; with nothing to compare the unit keeps its placeholder.
+	const currency = (entries[0] ?? baseCase)?.result.currency ?? CURRENCY_PLACEHOLDER;
 	return {
-		metrics: METRIC_KEYS.map((key) => ({ key, unit: METRIC_UNITS[key] })),
+		metrics: METRIC_KEYS.map((key) => ({ key, unit: engineValueUnit(key, currency) })),
 		baseCase: baseCase && { id: baseCase.id, name: baseCase.name, revision: baseCase.revision, metrics: baseCase.result.metrics },
 		scenarios: entries.map((entry) => ({
 			id: entry.id,

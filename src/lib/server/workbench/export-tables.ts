@@ -1,10 +1,13 @@
 /**
- * The tables an export holds, independent of the file format: the annual
- * cash-flow table with units in every header, the metrics with their units,
- * the engine's warnings, and the cautions.
+ * The tables an export holds: the annual cash-flow table with units in every
+ * header, the metrics with the catalogue's labels, units and precision (one
+ * form for CSV, one for a spreadsheet), the engine's warnings, and the
+ * cautions.
  */
 import { CAUTIONS } from '../../cautions';
-import { METRIC_KEYS, METRIC_UNITS, type CashFlowRow, type EngineResult } from '../engine/evaluate';
+import { METRIC_LIST, metricUnitWithBasis } from '../../metrics/catalogue';
+import { exactMetric, roundedMetric, spreadsheetNumberFormat } from '../../metrics/format';
+import type { CashFlowRow, EngineResult } from '../engine/evaluate';
 
 export interface ExportColumn {
 	key: keyof CashFlowRow;
@@ -19,6 +22,8 @@ export interface ExportTable {
 	rows: (string | number | null)[][];
 	/** Which columns hold numbers (for spreadsheet cell types). */
 	numeric: boolean[];
+	/** Spreadsheet number formats by row and column (null: general); absent, every cell is general. */
+	numberFormats?: (string | null)[][];
 }
 
 export function cashFlowColumns(currency: string): ExportColumn[] {
@@ -52,29 +57,6 @@ export function cashFlowColumns(currency: string): ExportColumn[] {
 	];
 }
 
-export const METRIC_LABELS: Record<(typeof METRIC_KEYS)[number], string> = {
-	netAepMWh: 'Net annual energy, P50',
-	p90AepMWh: 'Net annual energy, P90',
-	capacityFactor: 'Capacity factor',
-	lcoeReal: 'LCOE, real',
-	lcoeNominal: 'LCOE, nominal',
-	lcoeFcr: 'LCOE, fixed-charge-rate form',
-	projectIrrPreTax: 'Project IRR, pre-tax',
-	projectIrrPostTax: 'Project IRR, post-tax',
-	equityIrr: 'Equity IRR',
-	npv: 'NPV',
-	paybackYears: 'Payback',
-	minDscr: 'Minimum DSCR',
-	avgDscr: 'Average DSCR',
-	llcr: 'LLCR',
-	debtAmount: 'Debt amount',
-	breakevenTariff: 'Breakeven tariff'
-};
-
-function unitIn(currency: string, unit: string): string {
-	return unit.replace(/\bcurrency\b/g, currency);
-}
-
 export function cashFlowTable(result: EngineResult): ExportTable {
 	const columns = cashFlowColumns(result.currency);
 	return {
@@ -85,12 +67,37 @@ export function cashFlowTable(result: EngineResult): ExportTable {
 	};
 }
 
-export function metricsTable(result: EngineResult): ExportTable {
+/**
+ * The metrics for a CSV file: the value rounded as the screen shows it, in
+ * the display unit (per cent figures as per cent), and every digit of it in
+ * "Value (exact)", in the same unit.
+ */
+export function metricsCsvTable(result: EngineResult): ExportTable {
+	return {
+		title: 'Metrics',
+		headers: ['Metric', 'Key', 'Value', 'Value (exact)', 'Unit'],
+		rows: METRIC_LIST.map(({ key, label }) => [
+			label,
+			key,
+			roundedMetric(key, result.metrics[key]),
+			exactMetric(key, result.metrics[key]),
+			metricUnitWithBasis(key, result.currency)
+		]),
+		numeric: [false, false, true, true, false]
+	};
+}
+
+/**
+ * The metrics for a spreadsheet: each cell holds the engine's value (per cent
+ * figures as fractions) with a number format that shows it as the screen does.
+ */
+export function metricsSheetTable(result: EngineResult): ExportTable {
 	return {
 		title: 'Metrics',
 		headers: ['Metric', 'Key', 'Value', 'Unit'],
-		rows: METRIC_KEYS.map((key) => [METRIC_LABELS[key], key, result.metrics[key], unitIn(result.currency, METRIC_UNITS[key])]),
-		numeric: [false, false, true, false]
+		rows: METRIC_LIST.map(({ key, label }) => [label, key, result.metrics[key], metricUnitWithBasis(key, result.currency)]),
+		numeric: [false, false, true, false],
+		numberFormats: METRIC_LIST.map(({ key }) => [null, null, spreadsheetNumberFormat(key), null])
 	};
 }
 

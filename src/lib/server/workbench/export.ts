@@ -3,7 +3,7 @@ import { CAUTIONS } from '../../cautions';
 import type { EngineResult } from '../engine/evaluate';
 import { tableToCsv } from './export-csv';
 import { tablesToXlsx } from './export-xlsx';
-import { aboutTable, cashFlowTable, cautionsTable, metricsTable, warningsTable, type ExportContext } from './export-tables';
+import { aboutTable, cashFlowTable, cautionsTable, metricsCsvTable, metricsSheetTable, warningsTable, type ExportContext } from './export-tables';
 
 export const exportFormats = ['csv', 'xlsx'] as const;
 export type ExportFormat = (typeof exportFormats)[number];
@@ -36,11 +36,11 @@ export async function buildExport(
 ): Promise<ExportFile> {
 	const stem = `${fileStem(context.scenarioName)}-r${context.revision}`;
 	if (format === 'csv') {
-		const csv = tableToCsv(table === 'metrics' ? metricsTable(result) : cashFlowTable(result), CAUTIONS);
+		const csv = tableToCsv(table === 'metrics' ? metricsCsvTable(result) : cashFlowTable(result), CAUTIONS);
 		return { body: new TextEncoder().encode(csv), contentType: 'text/csv; charset=utf-8', fileName: `${stem}-${table}.csv` };
 	}
 	const body = await tablesToXlsx(
-		[aboutTable(result, context), cashFlowTable(result), metricsTable(result), warningsTable(result), cautionsTable()],
+		[aboutTable(result, context), cashFlowTable(result), metricsSheetTable(result), warningsTable(result), cautionsTable()],
 		{ title: `${context.projectName}: ${context.scenarioName}` }
 	);
 	return {

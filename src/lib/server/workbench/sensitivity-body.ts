@@ -1,6 +1,6 @@
 /** Bodies of the tornado and spider routes, checked against the engine's drivers and metrics. */
 import { z } from 'zod';
-import { METRIC_KEYS } from '../engine/evaluate';
+import { METRIC_KEYS } from '../../metrics/catalogue';
 import { DRIVER_IDS } from '../engine/sensitivity';
 
 const metric = z.enum(METRIC_KEYS, { message: `metric must be one of ${METRIC_KEYS.join(', ')}` });
