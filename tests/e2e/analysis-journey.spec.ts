@@ -65,7 +65,7 @@ test.describe('analysis journey', () => {
 		await expect(lcoeDifference).toContainText(/^\+\d/);
 		await expect(lcoeDifference).toContainText('%');
 		// Less available time means less energy: the net AEP falls, which is worse for the project.
-		await expect(table.getByRole('row', { name: /^Net annual energy \(P50\)/ }).locator('[data-verdict]')).toHaveAttribute('data-verdict', 'worse');
+		await expect(table.getByRole('row', { name: /^Net annual energy, P50/ }).locator('[data-verdict]')).toHaveAttribute('data-verdict', 'worse');
 		// Lower returns: the equity IRR difference is in percentage points and worse.
 		const irrDifference = table.getByRole('row', { name: /^Equity IRR/ }).locator('[data-verdict]');
 		await expect(irrDifference).toHaveAttribute('data-verdict', 'worse');

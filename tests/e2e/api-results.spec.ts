@@ -156,8 +156,13 @@ test.describe('exports', () => {
 
 		const metrics = await clients.viewer.get(`/api/v1/scenarios/${base.id}/export?format=csv&table=metrics`);
 		const metricRows = Papa.parse<string[]>((await metrics.text()).replace(/^\uFEFF/, '').split('\r\n\r\n')[0], { skipEmptyLines: true }).data;
-		expect(metricRows[0]).toEqual(['Metric', 'Key', 'Value', 'Unit']);
-		expect(metricRows.find((r) => r[1] === 'lcoeReal')![3]).toMatch(/^EUR\/MWh/);
+		expect(metricRows[0]).toEqual(['Metric', 'Key', 'Value', 'Value (exact)', 'Unit']);
+		const lcoeRow = metricRows.find((r) => r[1] === 'lcoeReal')!;
+		expect(lcoeRow[0]).toBe('LCOE, real');
+		// Rounded as the editor shows it (two places), with every digit beside it.
+		expect(lcoeRow[2]).toMatch(/^\d+\.\d\d$/);
+		expect(Number(lcoeRow[3])).toBeCloseTo(Number(lcoeRow[2]), 2);
+		expect(lcoeRow[4]).toMatch(/^EUR\/MWh/);
 	});
 
 	test('XLSX: a sheet per table, numbers as numbers, cautions on a sheet of their own', async () => {
@@ -178,6 +183,9 @@ test.describe('exports', () => {
 		const metrics = workbook.getWorksheet('Metrics')!;
 		const lcoeRow = metrics.getColumn(2).values.indexOf('lcoeReal');
 		expect(metrics.getRow(lcoeRow).getCell(3).value).toBeCloseTo(Number(evaluated.metrics.lcoeReal), 6);
+		// The exact value, shown at the catalogue's precision (two places for LCOE) by the cell's number format.
+		expect(metrics.getRow(lcoeRow).getCell(3).numFmt).toBe('#,##0.00');
+		expect(metrics.getRow(lcoeRow).getCell(1).value).toBe('LCOE, real');
 	});
 
 	test('refuses unknown formats and strangers', async () => {

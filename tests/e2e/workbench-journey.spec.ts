@@ -167,7 +167,7 @@ test('a viewer reads a scenario and cannot change it', async ({ page }) => {
 	await expect(page.getByRole('spinbutton', { name: 'Amount of capex line 1', exact: true })).toBeDisabled();
 	await expect(page.getByRole('button', { name: 'Save', exact: true })).toHaveCount(0);
 	await expect(page.getByRole('button', { name: 'Add capex line' })).toHaveCount(0);
-	await expect(metric(page, 'lcoeReal')).toHaveText(/^\d[\d,]*\.\d$/);
+	await expect(metric(page, 'lcoeReal')).toHaveText(/^\d[\d,]*\.\d\d$/);
 	await shot(page, '7-viewer');
 
 	const scenarioId = page.url().split('/').at(-1)!;
