@@ -13,7 +13,7 @@
  *   accounts, members, tokens or billing (`requireBrowserSession`).
  */
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
-import { getMembership, type WorkspaceMembership } from '../db/memberships';
+import { getMembership, listWorkspacesForUser, type WorkspaceMembership } from '../db/memberships';
 import { getProjectById, getProjectOfScenario, getProjectOfUpload, type ProjectRow } from '../db/projects';
 import { roleAtLeast, type WorkspaceRole } from './roles';
 import type { ApiTokenPrincipal, MemberPrincipal, Principal } from './principal';
@@ -152,4 +152,14 @@ export async function authorize(
 /** Whether the caller's effective role reaches `minimum` (for showing or hiding controls). */
 export function canAct(access: WorkspaceAccess, minimum: WorkspaceRole): boolean {
 	return roleAtLeast(access.membership.role, minimum);
+}
+
+/** The workspaces the caller may see, each with the caller's effective role: a token sees its own workspace only. */
+export async function visibleWorkspaces(event: AccessEvent): Promise<WorkspaceMembership[]> {
+	const principal = principalOf(event);
+	if (principal.kind === 'anonymous') refuseAnonymous(event);
+	const memberships = await listWorkspacesForUser(principal.user.id);
+	return memberships
+		.filter((m) => principal.kind !== 'token' || m.workspaceId === principal.token.workspaceId)
+		.map((m) => ({ ...m, role: effectiveRole(principal, m.role) }));
 }

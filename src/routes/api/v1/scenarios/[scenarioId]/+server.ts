@@ -5,6 +5,7 @@ import { authorize } from '$lib/server/auth/access';
 import { ApiProblem, apiRoute, readJsonBody, validateBody, validateDocument, withName } from '$lib/server/workbench/api-route';
 import { loadScenario } from '$lib/server/workbench/evaluation';
 import { projectJson, scenarioJson } from '$lib/server/workbench/serialize';
+import { storeResultOfSave } from '$lib/server/workbench/stored-results';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = apiRoute(async (event) => {
@@ -26,6 +27,7 @@ export const PUT: RequestHandler = apiRoute(async (event) => {
 	const document = body.document === undefined ? undefined : validateDocument(withName(body.document, name), project);
 	const saved = await saveScenario({ scenarioId, expectedRevision: body.revision, name: body.name, notes: body.notes, document, userId: user.id });
 	if (!saved) throw new ApiProblem(404, 'No such scenario, or it is not yours.');
+	await storeResultOfSave(saved, project);
 	return json({ scenario: scenarioJson(saved) });
 });
 

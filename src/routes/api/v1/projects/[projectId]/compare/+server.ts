@@ -2,16 +2,19 @@ import { json } from '@sveltejs/kit';
 import { isUuid } from '$lib/server/auth/access';
 import { getBaseCaseOfProject, getScenariosInProject, listScenariosInProject, type ScenarioRecord } from '$lib/server/db/scenarios';
 import { authorize } from '$lib/server/auth/access';
-import { ApiProblem, apiRoute, validateDocument } from '$lib/server/workbench/api-route';
+import { ApiProblem, apiRoute } from '$lib/server/workbench/api-route';
 import { compareScenarios, type CompareEntry } from '$lib/server/workbench/compare';
-import { evaluateDocument } from '$lib/server/workbench/evaluation';
+import { resultOfSavedScenario } from '$lib/server/workbench/stored-results';
 import type { ProjectRow } from '$lib/server/db/projects';
 import type { RequestHandler } from './$types';
 
 const MAX_COMPARED = 12;
 
-function entryOf(scenario: ScenarioRecord, project: ProjectRow): CompareEntry {
-	const result = evaluateDocument(validateDocument(scenario.document, project, `scenarios[${scenario.id}].document`));
+async function entryOf(scenario: ScenarioRecord, project: ProjectRow): Promise<CompareEntry> {
+	const { result } = await resultOfSavedScenario(scenario, project).catch((e: unknown) => {
+		if (e instanceof ApiProblem) throw new ApiProblem(e.status, `Scenario "${scenario.name}" cannot be evaluated: ${e.message}`, e.issues);
+		throw e;
+	});
 	return { id: scenario.id, name: scenario.name, revision: scenario.revision, isBaseCase: scenario.isBaseCase, result };
 }
 
@@ -36,7 +39,7 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 	const missing = ids.flatMap((id, i) => (found.has(id) ? [] : [{ path: `ids[${i}]`, message: 'no such scenario in this project' }]));
 	if (missing.length > 0) throw new ApiProblem(404, 'Some of these scenarios are not in this project.', missing);
 
-	const entries = scenarios.map((s) => entryOf(s, project));
+	const entries = await Promise.all(scenarios.map((s) => entryOf(s, project)));
 	const base = entries.find((e) => e.isBaseCase) ?? null;
 	const baseEntry = base ?? (await getBaseCaseOfProject(project.id).then((s) => (s ? entryOf(s, project) : null)));
 	return json({ projectId: project.id, currency: project.currency, ...compareScenarios(entries, baseEntry) });

@@ -5,6 +5,7 @@ import { authorize } from '$lib/server/auth/access';
 import { ApiProblem, apiRoute, readJsonBody, validateBody, validateDocument, withName } from '$lib/server/workbench/api-route';
 import { projectJson, scenarioJson, scenarioSummaryJson } from '$lib/server/workbench/serialize';
 import { starterDocument } from '$lib/server/workbench/starter-documents';
+import { storeResultOfSave } from '$lib/server/workbench/stored-results';
 import type { RequestHandler } from './$types';
 
 /** The project's scenarios without their documents; `?archived=1` lists the archived ones. */
@@ -27,5 +28,6 @@ export const POST: RequestHandler = apiRoute(async (event) => {
 	}
 	const document = validateDocument(withName(candidate, body.name), project);
 	const scenario = await createScenario({ projectId: project.id, name: body.name, notes: body.notes, document, userId: user.id });
+	await storeResultOfSave(scenario, project);
 	return json({ scenario: scenarioJson(scenario) }, { status: 201 });
 });

@@ -1,7 +1,7 @@
 import { authorize } from '$lib/server/auth/access';
 import { ApiProblem, apiRoute } from '$lib/server/workbench/api-route';
-import { evaluateDocument, loadScenario } from '$lib/server/workbench/evaluation';
-import { validateDocument } from '$lib/server/workbench/api-route';
+import { loadScenario } from '$lib/server/workbench/evaluation';
+import { resultOfSavedScenario } from '$lib/server/workbench/stored-results';
 import { buildExport, csvTables, exportFormats, type CsvTableName, type ExportFormat } from '$lib/server/workbench/export';
 import type { RequestHandler } from './$types';
 
@@ -21,7 +21,7 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 		throw new ApiProblem(422, 'Choose a table to export.', [{ path: 'table', message: `table must be ${csvTables.join(' or ')}` }]);
 	}
 	const scenario = await loadScenario(scenarioId);
-	const result = evaluateDocument(validateDocument(scenario.document, project));
+	const { result } = await resultOfSavedScenario(scenario, project);
 	const file = await buildExport(
 		result,
 		{ projectName: project.name, scenarioName: scenario.name, revision: scenario.revision, generatedAt: new Date() },

@@ -8,6 +8,7 @@ import { ApiProblem, apiRoute, readJsonBody, validateBody, validateDocument } fr
 import { applyUploadToDocument } from '$lib/server/workbench/apply-upload';
 import { loadScenario } from '$lib/server/workbench/evaluation';
 import { scenarioJson } from '$lib/server/workbench/serialize';
+import { storeResultOfSave } from '$lib/server/workbench/stored-results';
 import type { RequestHandler } from './$types';
 
 /**
@@ -38,5 +39,6 @@ export const POST: RequestHandler = apiRoute(async (event) => {
 		summary: `Applied ${uploadKindInfo[upload.kind].label.toLowerCase()} "${upload.fileName}" to ${applied.section}`
 	});
 	if (!saved) throw new ApiProblem(404, 'No such scenario, or it is not yours.');
+	await storeResultOfSave(saved, project);
 	return json({ scenario: scenarioJson(saved), section: applied.section });
 });
