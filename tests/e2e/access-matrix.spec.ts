@@ -1,8 +1,9 @@
 /**
  * Every page, form action and API route against every kind of visitor:
  * anonymous, the viewer, analyst and owner of workspace A (Halvard Marine
- * Energy), and the owner of workspace B (Corvane Advisory), who must see
- * nothing of A. One table row per route and method; the meta-test at the end
+ * Energy), the owner of workspace B (Corvane Advisory), who must see nothing
+ * of A, and two personal API tokens of A's analyst, read-only and
+ * read-and-write. Tokens count on /api/v1 only: on pages they are nobody. One table row per route and method; the meta-test at the end
  * fails for any route under src/routes that has no row, so a new route costs
  * one line here.
  *
@@ -19,7 +20,10 @@ import { demoUsers } from '../../seeds/02_demo_users';
 import { METHOD_NOTES } from '../../src/lib/methods';
 import { signedInRequest, workspaceIdOf, type Persona } from './helpers/session';
 
-const personas = ['anonymous', 'viewer', 'analyst', 'owner', 'outsider'] as const satisfies readonly Persona[];
+const sessionPersonas = ['anonymous', 'viewer', 'analyst', 'owner', 'outsider'] as const satisfies readonly Persona[];
+const tokenPersonas = ['readToken', 'writeToken'] as const;
+const personas = [...sessionPersonas, ...tokenPersonas] as const;
+type Caller = (typeof personas)[number];
 type Role = 'viewer' | 'analyst' | 'owner';
 const rank: Record<Role, number> = { viewer: 1, analyst: 2, owner: 3 };
 
@@ -28,7 +32,8 @@ const WORKSPACE_B = 'Corvane Advisory';
 
 /** A status, or `303 <prefix>`: a redirect whose location starts with the prefix. */
 type Answer = number | `303 ${string}`;
-type Answers = Record<(typeof personas)[number], Answer>;
+/** Token answers may be left out for pages and form actions: there a token is nobody, so they answer as anonymous. */
+type Answers = Record<(typeof sessionPersonas)[number], Answer> & Partial<Record<(typeof tokenPersonas)[number], Answer>>;
 
 const toSignIn: Answer = '303 /signin?next=';
 
@@ -44,10 +49,22 @@ function action(minimum: Role, allowed: Answer): Answers {
 	return { anonymous: toSignIn, viewer: member('viewer'), analyst: member('analyst'), owner: member('owner'), outsider: 404 };
 }
 
-/** API routes on workspace A's resources: anonymous 401, outsider 404, too low a role 403. */
+/**
+ * API routes on workspace A's resources: anonymous 401, outsider 404, too low
+ * a role 403. The analyst's read-only token acts as a viewer, the read-and-write
+ * one as the analyst, never more.
+ */
 function api(minimum: Role, allowed: Answer = 200): Answers {
 	const member = (role: Role): Answer => (rank[role] >= rank[minimum] ? allowed : 403);
-	return { anonymous: 401, viewer: member('viewer'), analyst: member('analyst'), owner: member('owner'), outsider: 404 };
+	return {
+		anonymous: 401,
+		viewer: member('viewer'),
+		analyst: member('analyst'),
+		owner: member('owner'),
+		outsider: 404,
+		readToken: member('viewer'),
+		writeToken: member('analyst')
+	};
 }
 
 /** Needs only a signed-in user, of any workspace. */
@@ -56,7 +73,16 @@ function signedIn(allowed: Answer, anonymous: Answer = toSignIn): Answers {
 }
 
 function everyone(answer: Answer): Answers {
-	return { anonymous: answer, viewer: answer, analyst: answer, owner: answer, outsider: answer };
+	return { anonymous: answer, viewer: answer, analyst: answer, owner: answer, outsider: answer, readToken: answer, writeToken: answer };
+}
+
+/** What each caller should get: token answers default to anonymous's on pages and actions. */
+function expectedOf(row: Row): Record<Caller, Answer> {
+	const isApi = row.route.startsWith('/api/');
+	if (isApi && (row.expect.readToken === undefined || row.expect.writeToken === undefined)) {
+		throw new Error(`${row.method} ${row.route}: an API row needs answers for both tokens`);
+	}
+	return { ...row.expect, readToken: row.expect.readToken ?? row.expect.anonymous, writeToken: row.expect.writeToken ?? row.expect.anonymous };
 }
 
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
@@ -83,7 +109,7 @@ interface Row {
 	body?: Body;
 	expect: Answers;
 	/** Undoes what a permitted persona changed; runs after each persona's request. */
-	after?: (persona: Persona, response: APIResponse) => Promise<void>;
+	after?: (persona: Caller, response: APIResponse) => Promise<void>;
 	/** The request ends the persona's session(s): sign in again afterwards. */
 	endsSessions?: boolean;
 }
@@ -128,6 +154,8 @@ const matrix: Row[] = [
 	{ route: '/app/account', method: 'POST', action: 'endSession', body: { form: { handle: 'zzzzzzzzzz' } }, expect: signedIn(404) },
 	{ route: '/app/account', method: 'POST', action: 'signOutEverywhere', expect: signedIn('303 /signin?notice=signed-out-everywhere'), endsSessions: true },
 	{ route: '/app/account', method: 'POST', action: 'resendVerification', expect: signedIn(200) },
+	{ route: '/app/account', method: 'POST', action: 'createToken', body: { form: { name: '' } }, expect: signedIn(400) },
+	{ route: '/app/account', method: 'POST', action: 'revokeToken', body: { form: { tokenId: 'nobody' } }, expect: signedIn(404) },
 	{ route: '/app/methods', method: 'GET', expect: signedIn(200) },
 	{ route: '/app/methods/[slug]', method: 'GET', expect: signedIn(200) },
 	{ route: '/app/w/[workspaceId]', method: 'GET', expect: page('viewer') },
@@ -146,7 +174,7 @@ const matrix: Row[] = [
 
 	// API
 	{ route: '/api/v1/health', method: 'GET', expect: everyone(200) },
-	{ route: '/api/v1/workspaces', method: 'GET', expect: signedIn(200, 401) },
+	{ route: '/api/v1/workspaces', method: 'GET', expect: { ...signedIn(200, 401), readToken: 200, writeToken: 200 } },
 	{ route: '/api/v1/workspaces/[workspaceId]/projects', method: 'GET', expect: api('viewer') },
 	{ route: '/api/v1/workspaces/[workspaceId]/projects', method: 'POST', body: badJson, expect: api('analyst', 422) },
 	{ route: '/api/v1/projects/[projectId]', method: 'GET', expect: api('viewer') },
@@ -177,13 +205,31 @@ const matrix: Row[] = [
 	{ route: '/api/v1/uploads/[uploadId]/file', method: 'GET', expect: api('viewer') }
 ];
 
-const clients = {} as Record<Persona, APIRequestContext>;
+const clients = {} as Record<Caller, APIRequestContext>;
 const ids = {} as Ids;
 
 let requestFactory: typeof playwrightRequest;
 
-async function signIn(persona: Persona) {
+async function signIn(persona: Caller) {
+	if (persona === 'readToken' || persona === 'writeToken') return;
 	clients[persona] = await signedInRequest({ request: requestFactory }, baseURL, persona);
+}
+
+/** A personal API token of the analyst, made through the account page's form as a browser would. */
+async function analystToken(access: 'read' | 'read-write'): Promise<string> {
+	const response = await clients.analyst.post('/app/account?/createToken', {
+		headers: { accept: 'text/html' },
+		form: { name: `matrix ${access}`, workspaceId: ids.workspaceId, access, lifetimeDays: '7' },
+		maxRedirects: 0
+	});
+	expect(response.status(), 'token created').toBe(200);
+	const token = /data-testid="new-token"[^>]*>(tw_[a-z2-7]{32})</.exec(await response.text())?.[1];
+	if (!token) throw new Error('the account page did not show the new token');
+	return token;
+}
+
+async function tokenClient(token: string): Promise<APIRequestContext> {
+	return requestFactory.newContext({ baseURL, extraHTTPHeaders: { authorization: `Bearer ${token}` } });
 }
 
 function fill(template: string): string {
@@ -206,7 +252,7 @@ function bodyOf(row: Row) {
 	return { form: Object.fromEntries(Object.entries(row.body.form).map(([k, v]) => [k, fill(v)])) };
 }
 
-async function send(persona: Persona, row: Row): Promise<APIResponse> {
+async function send(persona: Caller, row: Row): Promise<APIResponse> {
 	const isApi = row.route.startsWith('/api/');
 	// A form post asks for HTML as a browser's does: asked with */*, SvelteKit answers actions as JSON with status 200.
 	const accept = isApi ? 'application/json' : 'text/html';
@@ -238,7 +284,7 @@ async function restoreProbeScenario() {
 	expect(response.status(), 'restore the probe scenario').toBe(200);
 }
 
-async function rejoinAfterLeaving(persona: Persona, response: APIResponse) {
+async function rejoinAfterLeaving(persona: Caller, response: APIResponse) {
 	if ((persona !== 'viewer' && persona !== 'analyst') || response.status() !== 303) return;
 	const { email, role } = demoUsers[persona];
 	const invited = await clients.owner.post(`/app/w/${ids.workspaceId}/members?/invite`, {
@@ -252,6 +298,13 @@ async function rejoinAfterLeaving(persona: Persona, response: APIResponse) {
 	expect(accepted.status(), `${persona} accepts the new invitation`).toBe(303);
 	expect(accepted.headers()['location']).toBe(`/app/w/${ids.workspaceId}`);
 	expect(await workspaceIdOf(clients[persona], WORKSPACE_A)).toBe(ids.workspaceId);
+	if (persona === 'analyst') {
+		// Leaving revoked the analyst's tokens: the token personas need new ones.
+		expect((await clients.writeToken.get('/api/v1/workspaces')).status(), 'old token after leaving').toBe(401);
+		await Promise.all([clients.readToken.dispose(), clients.writeToken.dispose()]);
+		clients.readToken = await tokenClient(await analystToken('read'));
+		clients.writeToken = await tokenClient(await analystToken('read-write'));
+	}
 }
 
 async function invitationTokenFor(email: string): Promise<string> {
@@ -270,6 +323,8 @@ test.describe('role x route matrix', () => {
 
 		ids.workspaceId = await workspaceIdOf(clients.owner, WORKSPACE_A);
 		ids.workspaceB = await workspaceIdOf(clients.outsider, WORKSPACE_B);
+		clients.readToken = await tokenClient(await analystToken('read'));
+		clients.writeToken = await tokenClient(await analystToken('read-write'));
 		expect(ids.workspaceB).not.toBe(ids.workspaceId);
 		ids.token = 'not-a-token-anyone-was-sent';
 		ids.revision = '1';
@@ -304,17 +359,18 @@ test.describe('role x route matrix', () => {
 	for (const row of matrix) {
 		const name = `${row.method} ${row.route}${row.action ? ` ?/${row.action}` : ''}${row.query ? ` ?${row.query}` : ''}`;
 		test(name, async () => {
-			const actual = {} as Answers;
+			const expected = expectedOf(row);
+			const actual = {} as Record<Caller, Answer>;
 			for (const persona of personas) {
 				const response = await send(persona, row);
-				actual[persona] = answerOf(response, row.expect[persona]);
+				actual[persona] = answerOf(response, expected[persona]);
 				if (row.after) await row.after(persona, response);
 				if (row.endsSessions) {
 					await clients[persona].dispose();
 					await signIn(persona);
 				}
 			}
-			expect(actual).toEqual(row.expect);
+			expect(actual).toEqual(expected);
 		});
 	}
 

@@ -102,13 +102,25 @@ describe('authenticateApiToken', () => {
 		expect(await revokeApiToken(owner.id, id)).toBeUndefined();
 	});
 
-	it('stops a token whose member left the workspace', async () => {
+	it('revokes the tokens of a member who leaves; coming back does not revive them', async () => {
 		const owner = await newUser();
 		const analyst = await newUser();
 		const workspace = await newWorkspace(owner.id);
 		await addMember(workspace.id, analyst.id, 'analyst', database.knex);
 		const { token } = await tokenFor(analyst.id, workspace.id, 'read-write');
 		await removeMember(workspace.id, analyst.id, database.knex);
+		expect(await authenticateApiToken(token)).toMatchObject({ ok: false, message: expect.stringMatching(/revoked/) });
+		await addMember(workspace.id, analyst.id, 'analyst', database.knex);
+		expect(await authenticateApiToken(token)).toMatchObject({ ok: false, message: expect.stringMatching(/revoked/) });
+	});
+
+	it('refuses a token whose membership is gone by any other path', async () => {
+		const owner = await newUser();
+		const analyst = await newUser();
+		const workspace = await newWorkspace(owner.id);
+		await addMember(workspace.id, analyst.id, 'analyst', database.knex);
+		const { token } = await tokenFor(analyst.id, workspace.id, 'read');
+		await database.knex('memberships').where({ workspace_id: workspace.id, user_id: analyst.id }).delete();
 		expect(await authenticateApiToken(token)).toMatchObject({ ok: false, message: expect.stringMatching(/no longer a member/) });
 	});
 

@@ -101,6 +101,8 @@ export async function removeMember(workspaceId: string, userId: string, knex: Kn
 		if (owners.includes(userId) && owners.length <= 1) throw new LastOwnerError();
 		const removed = await trx('memberships').where({ workspace_id: workspaceId, user_id: userId }).delete();
 		await trx('sessions').where({ user_id: userId, workspace_id: workspaceId }).update({ workspace_id: null });
+		// A member who leaves takes no live token along: coming back later does not revive old tokens.
+		await trx('api_tokens').where({ user_id: userId, workspace_id: workspaceId }).whereNull('revoked_at').update({ revoked_at: trx.fn.now() });
 		return removed > 0;
 	});
 }
