@@ -1,0 +1,82 @@
+import { describe, expect, it } from 'vitest';
+import { buildOpenApiDocument } from './openapi';
+import { apiOperations } from './operations';
+import { apiReference, objectFields, plainSchemaName, schemaRules, schemaTypeLabel } from './reference';
+
+const document = buildOpenApiDocument(apiOperations, { origin: 'https://tidewright.example', version: '1.0.0', sessionCookie: 'tw_session' });
+
+describe('plainSchemaName', () => {
+	it('writes a component name in words, without the Input suffix', () => {
+		expect(plainSchemaName('ScenarioDocumentInput')).toBe('scenario document');
+		expect(plainSchemaName('DecimalString')).toBe('decimal string');
+	});
+});
+
+describe('schemaTypeLabel', () => {
+	it('names types, enums, lists, references and nullable values in words', () => {
+		expect(schemaTypeLabel({ type: 'integer' })).toBe('whole number');
+		expect(schemaTypeLabel({ type: 'string', enum: ['csv', 'xlsx'] })).toBe('one of: csv, xlsx');
+		expect(schemaTypeLabel({ type: 'array', items: { type: 'number' } })).toBe('list of number');
+		expect(schemaTypeLabel({ $ref: '#/components/schemas/ScenarioDocumentInput' })).toBe('scenario document');
+		expect(schemaTypeLabel({ anyOf: [{ $ref: '#/components/schemas/DecimalString' }, { type: 'null' }] })).toBe('decimal string or null');
+		expect(schemaTypeLabel({ type: 'string', format: 'binary' })).toBe('file');
+		expect(schemaTypeLabel({})).toBe('any JSON value');
+	});
+});
+
+describe('schemaRules', () => {
+	it('states lengths, counts, bounds and the default, leaving out the safe-integer ceiling', () => {
+		expect(schemaRules({ type: 'string', minLength: 1, maxLength: 200 })).toBe('1 to 200 characters');
+		expect(schemaRules({ type: 'array', minItems: 2, maxItems: 21 })).toBe('2 to 21 items');
+		expect(schemaRules({ type: 'integer', minimum: 1, maximum: Number.MAX_SAFE_INTEGER })).toBe('at least 1');
+		expect(schemaRules({ type: 'string', default: 'EUR' })).toBe('default: "EUR"');
+		expect(schemaRules({ type: 'string' })).toBe('');
+	});
+});
+
+describe('objectFields', () => {
+	it('lists the fields of a request body with whether each is required, following its $ref', () => {
+		const fields = objectFields({ $ref: '#/components/schemas/CreateProjectRequest' }, document.components.schemas);
+		expect(fields.map((f) => [f.name, f.required])).toEqual([
+			['name', true],
+			['technology', true],
+			['siteName', false],
+			['siteDescription', false],
+			['currency', false]
+		]);
+		expect(fields.find((f) => f.name === 'technology')!.type).toBe('one of: tidal-stream, ocean-current, wave');
+	});
+
+	it('takes the description of a field from the schema', () => {
+		const fields = objectFields({ $ref: '#/components/schemas/EvaluateScenarioRequest' }, document.components.schemas);
+		expect(fields).toHaveLength(1);
+		expect(fields[0]).toMatchObject({ name: 'document', type: 'scenario document', required: false });
+		expect(fields[0].description).toMatch(/unsaved draft/);
+	});
+});
+
+describe('apiReference', () => {
+	const groups = apiReference(apiOperations, document);
+
+	it('shows every operation once, grouped by tag', () => {
+		expect(groups.flatMap((g) => g.operations.map((op) => op.operationId)).sort()).toEqual(apiOperations.map((op) => op.operationId).sort());
+		expect(groups.every((g) => g.operations.length > 0)).toBe(true);
+	});
+
+	it('writes access, parameters, body and refusals in words', () => {
+		const save = groups.flatMap((g) => g.operations).find((op) => op.operationId === 'saveScenario')!;
+		expect(save.role).toBe('Analyst or owner');
+		expect(save.tokens).toBe('Read-write API tokens only');
+		expect(save.parameters).toEqual([expect.objectContaining({ name: 'scenarioId', where: 'path', type: 'id (uuid)', required: true })]);
+		expect(save.body?.fields.find((f) => f.name === 'revision')).toMatchObject({ type: 'whole number', required: true });
+		expect(save.errors.find((e) => e.status === 409)?.description).toMatch(/changed since you read it/);
+
+		const exported = groups.flatMap((g) => g.operations).find((op) => op.operationId === 'exportScenario')!;
+		expect(exported.parameters.map((p) => [p.name, p.where, p.type])).toEqual([
+			['scenarioId', 'path', 'id (uuid)'],
+			['format', 'query', 'one of: csv, xlsx'],
+			['table', 'query', 'one of: cash-flow, metrics']
+		]);
+		expect(exported.body).toBeNull();
+	});
+});
