@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
-import { BETZ_LIMIT, formatIssuePath, parseScenario, scenarioSchema } from './scenario';
+import { BETZ_LIMIT, formatIssuePath, parseScenario, scenarioSchema, SCHEMA_VERSION } from './scenario';
+import { SCENARIO_LIMITS } from './scenario-limits';
 import { atbCaseInput } from '../server/engine/testing/fixtures';
 
 const withPatch = (patch: (doc: Record<string, any>) => void) => {
@@ -63,9 +64,240 @@ describe('parseScenario', () => {
 		expect(!matrix.ok && matrix.issues[0].path).toBe('device.powerKW[1]');
 	});
 
-	it('refuses an unknown schema version', () => {
-		const r = withPatch((d) => (d.schemaVersion = 2));
-		expect(!r.ok && r.issues[0].path).toBe('schemaVersion');
+	it('refuses a schema version newer than the code reads, a missing one and a malformed one, saying which', () => {
+		const newer = withPatch((d) => (d.schemaVersion = SCHEMA_VERSION + 1));
+		expect(!newer.ok && newer.issues).toEqual([{ path: 'schemaVersion', message: expect.stringMatching(/^schemaVersion 3 is newer than this Tidewright reads \(versions 1 to 2\)/) }]);
+		const missing = withPatch((d) => delete d.schemaVersion);
+		expect(!missing.ok && missing.issues).toEqual([{ path: 'schemaVersion', message: expect.stringMatching(/^schemaVersion is missing/) }]);
+		for (const bad of ['2', 1.5, 0, null]) {
+			const r = withPatch((d) => (d.schemaVersion = bad));
+			expect(!r.ok && r.issues[0].message).toMatch(/^schemaVersion must be a whole number from 1 to 2/);
+		}
+		const notObject = parseScenario([1, 2]);
+		expect(!notObject.ok && notObject.issues).toEqual([{ path: '(document)', message: 'a scenario document must be a JSON object' }]);
+	});
+
+	it('upgrades a version 1 document before checking it, and says which steps ran', () => {
+		const r = withPatch((d) => {
+			d.schemaVersion = 1;
+			d.decommissioning = { basis: 'percent-of-capex', amount: 0.05 };
+		});
+		if (!r.ok) throw new Error(JSON.stringify(r.issues));
+		expect(r.upgradedFrom).toBe(1);
+		expect(r.upgradeNotes).toEqual(['decommissioning.amount moved to decommissioning.fraction (percent-of-capex)']);
+		expect(r.scenario.schemaVersion).toBe(SCHEMA_VERSION);
+		expect(r.scenario.decommissioning).toEqual({ basis: 'percent-of-capex', fraction: 0.05 });
+		const current = parseScenario(atbCaseInput);
+		expect(current.ok && current.upgradedFrom).toBeNull();
+		expect(current.ok && current.upgradeNotes).toEqual([]);
+	});
+
+	it('refuses in version 2 an amount on a share-of-capex basis, and a fraction on a money basis', () => {
+		const amount = withPatch((d) => (d.decommissioning = { basis: 'percent-of-capex', amount: 0.05 }));
+		expect(!amount.ok && amount.issues).toEqual([{ path: 'decommissioning.amount', message: '"amount" is not a field here; the fields here are basis, fraction' }]);
+		const fraction = withPatch((d) => (d.revenue.grants = [{ name: 'Fund', basis: 'lump-sum', fraction: 0.2 }]));
+		expect(!fraction.ok && fraction.issues.map((i) => i.path).sort()).toEqual(['revenue.grants[0].amount', 'revenue.grants[0].fraction']);
+		const share = withPatch((d) => (d.revenue.grants = [{ name: 'Fund', basis: 'percent-of-capex', fraction: 1.2 }]));
+		expect(!share.ok && share.issues[0].path).toBe('revenue.grants[0].fraction');
+	});
+});
+
+describe('parseScenario: unknown keys', () => {
+	const refusal = (patch: (doc: Record<string, any>) => void) => {
+		const r = withPatch(patch);
+		if (r.ok) throw new Error('accepted a document with an unknown key');
+		return r.issues;
+	};
+
+	it('refuses a misspelt key in a nested object instead of falling back to the default, naming the key meant', () => {
+		expect(refusal((d) => (d.array.availabilty = 0.5))).toEqual([
+			{ path: 'array.availabilty', message: '"availabilty" is not a field here; did you mean "availability"?' }
+		]);
+	});
+
+	it('refuses unknown keys at the top level, each at its own path', () => {
+		expect(refusal((d) => Object.assign(d, { techology: 'wave', colour: 'blue' }))).toEqual([
+			{ path: 'techology', message: '"techology" is not a field here; did you mean "technology"?' },
+			{ path: 'colour', message: '"colour" is not a field here' }
+		]);
+	});
+
+	it('refuses unknown keys inside array items', () => {
+		expect(refusal((d) => (d.capex.lines[0].phasng = [1]))).toEqual([
+			{ path: 'capex.lines[0].phasng', message: '"phasng" is not a field here; did you mean "phasing"?' }
+		]);
+		expect(refusal((d) => (d.resource.bins[1].Occurrence = 0.3))).toEqual([
+			{ path: 'resource.bins[1].Occurrence', message: '"Occurrence" is not a field here; did you mean "occurrence"?' }
+		]);
+	});
+
+	it('refuses unknown keys inside the member of a discriminated union, judged by that member’s own fields', () => {
+		expect(refusal((d) => (d.opex.lines[0].amount = 5))).toEqual([
+			{ path: 'opex.lines[0].amount', message: '"amount" is not a field here; the fields here are name, basis, fraction, escalation' }
+		]);
+		expect(refusal((d) => (d.finance.debt = { sizing: 'gearing', gearing: 0.5, interestRate: 0.05, tenorYears: 10, tenor: 10 }))).toEqual([
+			{ path: 'finance.debt.tenor', message: '"tenor" is not a field here; did you mean "tenorYears"?' }
+		]);
+		expect(refusal((d) => (d.device.ratedPower = 10000))).toEqual([
+			{ path: 'device.ratedPower', message: '"ratedPower" is not a field here; did you mean "ratedPowerKW"?' }
+		]);
+	});
+
+	it('reports unknown keys beside the other problems of the same document', () => {
+		const issues = refusal((d) => {
+			d.array.availabilty = 0.5;
+			d.array.otherLoss = 2;
+		});
+		expect(issues.map((i) => i.path).sort()).toEqual(['array.availabilty', 'array.otherLoss']);
+	});
+});
+
+/** A tidal document with `n` entries in one list, every entry valid. */
+const tidal = (patch: (doc: Record<string, any>, n: number) => void) => (n: number) => {
+	const doc = structuredClone(atbCaseInput) as Record<string, any>;
+	patch(doc, n);
+	return doc;
+};
+const count = (n: number) => Array.from({ length: n }, (_, i) => i);
+const wave = (n: number, m: number) => ({
+	...structuredClone(atbCaseInput),
+	technology: 'wave',
+	resource: { kind: 'sea-state', hsM: 2, periodS: 8 },
+	device: {
+		kind: 'power-matrix',
+		hsM: count(n).map((i) => i * 0.25),
+		periodS: count(m).map((j) => 2 + j * 0.5),
+		powerKW: count(n).map(() => count(m).map(() => 100))
+	}
+});
+
+describe('parseScenario: list bounds', () => {
+	const cases: { name: string; limit: number; path: string; message: string; build: (n: number) => unknown }[] = [
+		{
+			name: 'speed bins',
+			limit: SCENARIO_LIMITS.speedBins,
+			path: 'resource.bins',
+			message: 'at most 1000 speed bins',
+			build: tidal((d, n) => (d.resource.bins = count(n).map((i) => ({ speedMPerS: i * 0.01, occurrence: 1 }))))
+		},
+		{
+			name: 'sea states',
+			limit: SCENARIO_LIMITS.seaStates,
+			path: 'resource.states',
+			message: 'at most 2000 sea states',
+			build: (n) => ({
+				...wave(2, 2),
+				resource: { kind: 'sea-state-table', states: count(n).map((i) => ({ hsM: (i % 40) * 0.25, periodS: 2 + Math.floor(i / 40) * 0.5, occurrence: 1 })) }
+			})
+		},
+		{
+			name: 'power-curve points',
+			limit: SCENARIO_LIMITS.powerCurvePoints,
+			path: 'device.points',
+			message: 'at most 500 power-curve points',
+			build: tidal((d, n) => (d.device.points = count(n).map((i) => ({ speedMPerS: i * 0.01, powerKW: i }))))
+		},
+		{ name: 'Hs values and matrix rows', limit: 100, path: 'device.hsM', message: 'at most 100 Hs values', build: (n) => wave(n, 3) },
+		{ name: 'period values', limit: 100, path: 'device.periodS', message: 'at most 100 period values', build: (n) => wave(3, n) },
+		{
+			name: 'capex lines',
+			limit: SCENARIO_LIMITS.capexLines,
+			path: 'capex.lines',
+			message: 'at most 100 capex lines',
+			build: tidal((d, n) => (d.capex.lines = count(n).map((i) => ({ name: `Line ${i}`, basis: 'lump-sum', amount: 1000 }))))
+		},
+		{
+			name: 'opex lines',
+			limit: SCENARIO_LIMITS.opexLines,
+			path: 'opex.lines',
+			message: 'at most 100 opex lines',
+			build: tidal((d, n) => (d.opex.lines = count(n).map((i) => ({ name: `Line ${i}`, basis: 'fixed-per-year', amount: 10 }))))
+		},
+		{
+			name: 'grants',
+			limit: SCENARIO_LIMITS.grants,
+			path: 'revenue.grants',
+			message: 'at most 50 grants',
+			build: tidal((d, n) => (d.revenue.grants = count(n).map((i) => ({ name: `Grant ${i}`, basis: 'percent-of-capex', fraction: 0.01 }))))
+		},
+		{
+			name: 'uncertainty components',
+			limit: SCENARIO_LIMITS.uncertaintyComponents,
+			path: 'uncertainty.components',
+			message: 'at most 50 uncertainty components',
+			build: tidal((d, n) => (d.uncertainty = { components: count(n).map((i) => ({ name: `Source ${i}`, sigma: 0.01 })) }))
+		},
+		{
+			name: 'exceedance levels',
+			limit: SCENARIO_LIMITS.exceedanceLevels,
+			path: 'uncertainty.exceedanceLevels',
+			message: 'at most 20 exceedance levels',
+			build: tidal((d, n) => (d.uncertainty = { exceedanceLevels: count(n).map((i) => 50 + i) }))
+		},
+		{
+			name: 'phasing shares',
+			limit: SCENARIO_LIMITS.constructionYears,
+			path: 'capex.phasing',
+			message: 'at most 20 phasing shares (one per construction year)',
+			build: tidal((d, n) => {
+				d.timeline.constructionYears = Math.min(n, SCENARIO_LIMITS.constructionYears);
+				d.capex.phasing = count(n).map(() => 1 / n);
+			})
+		},
+		{
+			name: 'phasing shares of one line',
+			limit: SCENARIO_LIMITS.constructionYears,
+			path: 'capex.lines[0].phasing',
+			message: 'at most 20 phasing shares (one per construction year)',
+			build: tidal((d, n) => {
+				d.timeline.constructionYears = Math.min(n, SCENARIO_LIMITS.constructionYears);
+				d.capex.lines[0].phasing = count(n).map(() => 1 / n);
+			})
+		}
+	];
+
+	it.each(cases)('accepts as many $name as the bound and refuses one more, naming the field and the bound', ({ limit, path, message, build }) => {
+		const atLimit = parseScenario(build(limit));
+		expect(atLimit.ok ? [] : atLimit.issues).toEqual([]);
+		const over = parseScenario(build(limit + 1));
+		expect(over.ok).toBe(false);
+		if (over.ok) return;
+		expect(over.issues).toContainEqual({ path, message });
+	});
+
+	it('bounds the rows of a power matrix and the cells in each row, so at most 100 x 100 cells', () => {
+		const tooManyRows = wave(3, 3) as Record<string, any>;
+		tooManyRows.device.powerKW = count(101).map(() => [1, 2, 3]);
+		const rows = parseScenario(tooManyRows);
+		expect(!rows.ok && rows.issues).toContainEqual({ path: 'device.powerKW', message: 'at most 100 rows (one per Hs value)' });
+		const tooWide = wave(3, 3) as Record<string, any>;
+		tooWide.device.powerKW[1] = count(101);
+		const cells = parseScenario(tooWide);
+		expect(!cells.ok && cells.issues).toContainEqual({ path: 'device.powerKW[1]', message: 'at most 100 cells in a row (one per period value)' });
+		const full = parseScenario(wave(100, 100));
+		expect(full.ok ? [] : full.issues).toEqual([]);
+	});
+
+	it('bounds construction years, operating years and the depreciation life', () => {
+		const long = withPatch((d) => {
+			d.timeline = { constructionYears: 21, operatingYears: 61 };
+			d.finance.depreciation = { lifeYears: 101 };
+		});
+		expect(!long.ok && long.issues).toEqual([
+			{ path: 'timeline.constructionYears', message: 'at most 20 construction years' },
+			{ path: 'timeline.operatingYears', message: 'at most 60 operating years' },
+			{ path: 'finance.depreciation.lifeYears', message: 'at most 100 years of depreciation life' }
+		]);
+	});
+
+	it('bounds every free-text field', () => {
+		const wordy = withPatch((d) => {
+			d.name = 'x'.repeat(201);
+			d.description = 'x'.repeat(4001);
+			d.site = { name: 'x'.repeat(201) };
+			d.capex.lines[0].name = 'x'.repeat(121);
+		});
+		expect(!wordy.ok && wordy.issues.map((i) => i.path)).toEqual(['name', 'description', 'site.name', 'capex.lines[0].name']);
 	});
 });
 

@@ -10,13 +10,20 @@
  * - Time: t = 0 is the commercial operation date (COD). Capex of the last
  *   construction year sits at t = 0, earlier years at t = -1, -2, ...;
  *   operating year k sits at t = k (end of year).
+ * - Every object is strict: an unknown key is refused, never dropped, so a
+ *   misspelt field cannot fall back to its default unnoticed.
+ * - Every list has an upper bound (./scenario-limits.ts).
+ * - Money and shares never share a field: a share of capex is `fraction`.
  */
 import { z } from 'zod';
+import { atMost, SCENARIO_LIMITS } from './scenario-limits';
+import { SCHEMA_VERSION, upgradeScenarioDocument } from './scenario-upgrades';
+import { safeParseStrict } from './strict-parse';
+
+export { SCHEMA_VERSION };
 
 /** Lanchester-Betz limit: no open rotor extracts more than 16/27 of the kinetic power flux. */
 export const BETZ_LIMIT = 16 / 27;
-
-export const SCHEMA_VERSION = 1 as const;
 
 const fraction = (what: string) => z.number().min(0).max(1).describe(`${what} (fraction 0..1)`);
 const positive = (what: string) => z.number().positive().describe(what);
@@ -27,8 +34,8 @@ const lineName = z.string().min(1).max(120).describe('Label shown in tables and 
 // ---------------------------------------------------------------- site
 
 const siteSchema = z
-	.object({
-		name: z.string().max(120).optional().describe('Site name (free text)'),
+	.strictObject({
+		name: z.string().max(200).optional().describe('Site name (free text)'),
 		waterDensityKgPerM3: positive('Seawater density, kg/m^3').default(1025),
 		gravityMPerS2: positive('Gravitational acceleration used in the wave energy flux, m/s^2').default(
 			9.80665
@@ -45,17 +52,18 @@ const occurrenceBasis = z
 	);
 
 const speedHistogramSchema = z
-	.object({
+	.strictObject({
 		kind: z.literal('speed-histogram').describe('Resource kind'),
 		occurrenceBasis: occurrenceBasis.default('probability'),
 		bins: z
 			.array(
-				z.object({
+				z.strictObject({
 					speedMPerS: nonNegative('Bin centre flow speed, m/s'),
 					occurrence: nonNegative('Hours in a year or probability of this speed bin')
 				})
 			)
 			.min(1)
+			.max(SCENARIO_LIMITS.speedBins, atMost('speedBins'))
 			.describe('Flow speed histogram (IEC TS 62600-200 uses 0.1 m/s bins)')
 	})
 	.describe('Measured or modelled flow speed histogram at hub height');
@@ -63,7 +71,7 @@ const speedHistogramSchema = z
 const binWidth = positive('Width of the speed bins the distribution is turned into, m/s').default(0.1);
 
 const weibullSchema = z
-	.object({
+	.strictObject({
 		kind: z.literal('weibull').describe('Resource kind'),
 		scaleMPerS: positive('Weibull scale parameter c, m/s'),
 		shape: positive('Weibull shape parameter k (dimensionless)'),
@@ -72,7 +80,7 @@ const weibullSchema = z
 	.describe('Weibull distribution of flow speed, turned into bins');
 
 const rayleighSchema = z
-	.object({
+	.strictObject({
 		kind: z.literal('rayleigh').describe('Resource kind'),
 		meanSpeedMPerS: positive('Mean flow speed, m/s'),
 		binWidthMPerS: binWidth
@@ -94,26 +102,27 @@ const teOverTp = z
 	.default(0.9);
 
 const seaStateTableSchema = z
-	.object({
+	.strictObject({
 		kind: z.literal('sea-state-table').describe('Resource kind'),
 		periodType,
 		teOverTp,
 		occurrenceBasis: occurrenceBasis.default('probability'),
 		states: z
 			.array(
-				z.object({
+				z.strictObject({
 					hsM: nonNegative('Significant wave height Hs, m'),
 					periodS: positive('Wave period (Te or Tp, see periodType), s'),
 					occurrence: nonNegative('Hours in a year or probability of this sea state')
 				})
 			)
 			.min(1)
+			.max(SCENARIO_LIMITS.seaStates, atMost('seaStates'))
 			.describe('Sea-state occurrence table (scatter diagram); IEC TS 62600-100 bins are Hs 0.5 m x Te 1 s')
 	})
 	.describe('Sea-state occurrence table (scatter diagram)');
 
 const seaStateSchema = z
-	.object({
+	.strictObject({
 		kind: z.literal('sea-state').describe('Resource kind'),
 		periodType,
 		teOverTp,
@@ -135,7 +144,7 @@ export const resourceSchema = z
 // ---------------------------------------------------------------- device
 
 const rotorSchema = z
-	.object({
+	.strictObject({
 		kind: z.literal('rotor').describe('Device kind'),
 		rotorDiameterM: positive('Rotor diameter, m (give this or sweptAreaM2)').optional(),
 		sweptAreaM2: positive('Swept area per device, m^2 (overrides rotorDiameterM)').optional(),
@@ -159,32 +168,46 @@ const rotorSchema = z
 	.describe('Parametric rotor: P = 1/2 rho A Cp eta v^3, capped at rated power between cut-in and cut-out');
 
 const powerCurveSchema = z
-	.object({
+	.strictObject({
 		kind: z.literal('power-curve').describe('Device kind'),
 		ratedPowerKW: positive('Rated power per device, kW (defaults to the curve maximum)').optional(),
 		points: z
 			.array(
-				z.object({
+				z.strictObject({
 					speedMPerS: nonNegative('Flow speed, m/s'),
 					powerKW: nonNegative('Electrical power at this speed, kW')
 				})
 			)
 			.min(2)
+			.max(SCENARIO_LIMITS.powerCurvePoints, atMost('powerCurvePoints'))
 			.describe('Measured power curve, speeds ascending; linear between points, zero outside them')
 	})
 	.describe('Measured power curve (IEC TS 62600-200 style: power against binned flow speed)');
 
 const powerMatrixSchema = z
-	.object({
+	.strictObject({
 		kind: z.literal('power-matrix').describe('Device kind'),
 		ratedPowerKW: positive('Rated power per device, kW (defaults to the matrix maximum)').optional(),
 		periodType,
 		teOverTp,
-		hsM: z.array(nonNegative('Hs row value, m')).min(1).describe('Row axis: significant wave heights, m, ascending'),
-		periodS: z.array(positive('Period column value, s')).min(1).describe('Column axis: periods (Te or Tp), s, ascending'),
-		powerKW: z
-			.array(z.array(nonNegative('Mean electrical power, kW')))
+		hsM: z
+			.array(nonNegative('Hs row value, m'))
 			.min(1)
+			.max(SCENARIO_LIMITS.powerMatrixHsValues, atMost('powerMatrixHsValues'))
+			.describe('Row axis: significant wave heights, m, ascending'),
+		periodS: z
+			.array(positive('Period column value, s'))
+			.min(1)
+			.max(SCENARIO_LIMITS.powerMatrixPeriodValues, atMost('powerMatrixPeriodValues'))
+			.describe('Column axis: periods (Te or Tp), s, ascending'),
+		powerKW: z
+			.array(
+				z
+					.array(nonNegative('Mean electrical power, kW'))
+					.max(SCENARIO_LIMITS.powerMatrixPeriodValues, atMost('powerMatrixPeriodValues', 'cells in a row (one per period value)'))
+			)
+			.min(1)
+			.max(SCENARIO_LIMITS.powerMatrixHsValues, atMost('powerMatrixHsValues', 'rows (one per Hs value)'))
 			.describe('Mean electrical power per device, kW: one row per hsM value, one column per periodS value'),
 		lookup: z
 			.enum(['bilinear', 'nearest'])
@@ -194,7 +217,7 @@ const powerMatrixSchema = z
 	.describe('Wave power matrix over Hs and period (IEC TS 62600-100 style); zero outside its range');
 
 const captureWidthSchema = z
-	.object({
+	.strictObject({
 		kind: z.literal('capture-width').describe('Device kind'),
 		captureWidthRatio: positive('Wave-to-wire capture width ratio (fraction of the flux across the characteristic width)'),
 		characteristicWidthM: positive('Characteristic width of the device, m'),
@@ -209,7 +232,7 @@ export const deviceSchema = z
 // ---------------------------------------------------------------- array, losses, uncertainty
 
 const arraySchema = z
-	.object({
+	.strictObject({
 		deviceCount: wholeYears('Number of devices in the array', 1),
 		arrayLoss: fraction('Array (wake/blockage) loss').default(0),
 		availability: fraction('Availability').default(1),
@@ -220,18 +243,20 @@ const arraySchema = z
 	.describe('The array and its losses; losses multiply');
 
 const uncertaintySchema = z
-	.object({
+	.strictObject({
 		components: z
 			.array(
-				z.object({
+				z.strictObject({
 					name: lineName,
 					sigma: nonNegative('One standard deviation as a fraction of P50 energy')
 				})
 			)
+			.max(SCENARIO_LIMITS.uncertaintyComponents, atMost('uncertaintyComponents'))
 			.default([])
 			.describe('Independent yield uncertainties, combined as root sum of squares'),
 		exceedanceLevels: z
 			.array(z.number().gt(0).lt(100).describe('Exceedance probability, percent (90 for P90)'))
+			.max(SCENARIO_LIMITS.exceedanceLevels, atMost('exceedanceLevels'))
 			.default([90])
 			.describe('Pxx levels reported besides P50 (P90 is always reported)')
 	})
@@ -240,17 +265,20 @@ const uncertaintySchema = z
 // ---------------------------------------------------------------- timeline and costs
 
 const timelineSchema = z
-	.object({
-		constructionYears: wholeYears('Construction years before COD (the last one ends at t = 0)', 1).default(1),
-		operatingYears: wholeYears('Operating years after COD', 1).max(60)
+	.strictObject({
+		constructionYears: wholeYears('Construction years before COD (the last one ends at t = 0)', 1)
+			.max(SCENARIO_LIMITS.constructionYears, atMost('constructionYears'))
+			.default(1),
+		operatingYears: wholeYears('Operating years after COD', 1).max(SCENARIO_LIMITS.operatingYears, atMost('operatingYears'))
 	})
 	.describe('Construction and operating periods');
 
 const phasing = z
 	.array(nonNegative('Share of spend in this construction year'))
+	.max(SCENARIO_LIMITS.constructionYears, atMost('constructionYears', 'phasing shares (one per construction year)'))
 	.describe('Share of spend per construction year, first year first; must sum to 1 and have one entry per construction year');
 
-const capexLineSchema = z.object({
+const capexLineSchema = z.strictObject({
 	name: lineName,
 	basis: z
 		.enum(['lump-sum', 'per-kW', 'per-device'])
@@ -260,8 +288,8 @@ const capexLineSchema = z.object({
 });
 
 const capexSchema = z
-	.object({
-		lines: z.array(capexLineSchema).min(1).describe('Capital cost lines'),
+	.strictObject({
+		lines: z.array(capexLineSchema).min(1).max(SCENARIO_LIMITS.capexLines, atMost('capexLines')).describe('Capital cost lines'),
 		phasing: phasing.optional().describe('Default phasing for lines without their own (even spread when omitted)'),
 		contingency: fraction('Contingency added to every capex line').default(0)
 	})
@@ -275,36 +303,36 @@ const escalation = z
 	.default(0);
 
 const opexLineSchema = z.discriminatedUnion('basis', [
-	z.object({
+	z.strictObject({
 		name: lineName,
 		basis: z.literal('fixed-per-year').describe('How the line is priced'),
 		amount: nonNegative('Cost per year, currency units, real'),
 		escalation
 	}),
-	z.object({
+	z.strictObject({
 		name: lineName,
 		basis: z.literal('per-kW-year').describe('How the line is priced'),
 		amount: nonNegative('Cost per kW installed per year, currency units, real'),
 		escalation
 	}),
-	z.object({
+	z.strictObject({
 		name: lineName,
 		basis: z.literal('per-MWh').describe('How the line is priced'),
 		amount: nonNegative('Cost per MWh delivered, currency units, real'),
 		escalation
 	}),
-	z.object({
+	z.strictObject({
 		name: lineName,
 		basis: z.literal('percent-of-capex').describe('How the line is priced'),
 		fraction: fraction('Share of total capex (with contingency) per year, e.g. insurance'),
 		escalation
 	}),
-	z.object({
+	z.strictObject({
 		name: lineName,
 		basis: z.literal('percent-of-revenue').describe('How the line is priced'),
 		fraction: fraction('Share of revenue in the same year, e.g. a seabed lease')
 	}),
-	z.object({
+	z.strictObject({
 		name: lineName,
 		basis: z.literal('periodic-overhaul').describe('How the line is priced'),
 		amount: nonNegative('Cost of one overhaul, currency units, real (per device when perDevice)'),
@@ -315,31 +343,53 @@ const opexLineSchema = z.discriminatedUnion('basis', [
 ]);
 
 const opexSchema = z
-	.object({ lines: z.array(opexLineSchema).default([]).describe('Operating cost lines') })
+	.strictObject({
+		lines: z.array(opexLineSchema).max(SCENARIO_LIMITS.opexLines, atMost('opexLines')).default([]).describe('Operating cost lines')
+	})
 	.describe('Operating costs, in real money of the COD year, escalated with inflation plus their own escalation');
 
+const decommissioningBasis = 'lump-sum for the project, per device, per kW installed, or a share of capex';
+
 const decommissioningSchema = z
-	.object({
-		basis: z
-			.enum(['lump-sum', 'per-device', 'per-kW', 'percent-of-capex'])
-			.describe('lump-sum for the project, per device, per kW installed, or a share of capex')
-			.default('lump-sum'),
-		amount: nonNegative(
-			'Decommissioning cost, real (currency units; per device or per kW by basis; a fraction for percent-of-capex)'
-		).default(0)
-	})
-	.describe('Decommissioning cost, paid at the end of the final operating year');
+	.discriminatedUnion('basis', [
+		z.strictObject({
+			basis: z.literal('lump-sum').describe(decommissioningBasis),
+			amount: nonNegative('Decommissioning cost for the project, currency units, real').default(0)
+		}),
+		z.strictObject({
+			basis: z.literal('per-device').describe(decommissioningBasis),
+			amount: nonNegative('Decommissioning cost per device, currency units, real').default(0)
+		}),
+		z.strictObject({
+			basis: z.literal('per-kW').describe(decommissioningBasis),
+			amount: nonNegative('Decommissioning cost per kW installed, currency units, real').default(0)
+		}),
+		z.strictObject({
+			basis: z.literal('percent-of-capex').describe(decommissioningBasis),
+			fraction: fraction('Share of total capex (with contingency)').default(0)
+		})
+	])
+	.describe('Decommissioning cost, paid at the end of the final operating year: an amount of money, or a fraction for percent-of-capex');
 
 // ---------------------------------------------------------------- revenue
 
-const grantSchema = z.object({
-	name: lineName,
-	basis: z.enum(['lump-sum', 'percent-of-capex']).describe('lump-sum in currency units (real), or share of capex'),
-	amount: nonNegative('Grant amount (currency units) or share of capex (fraction)')
-});
+const grantBasis = 'lump-sum: an amount of money; percent-of-capex: a share of capex';
+
+const grantSchema = z.discriminatedUnion('basis', [
+	z.strictObject({
+		name: lineName,
+		basis: z.literal('lump-sum').describe(grantBasis),
+		amount: nonNegative('Grant amount, currency units, real')
+	}),
+	z.strictObject({
+		name: lineName,
+		basis: z.literal('percent-of-capex').describe(grantBasis),
+		fraction: fraction('Share of total capex (with contingency) granted')
+	})
+]);
 
 const revenueSchema = z
-	.object({
+	.strictObject({
 		tariffPerMWh: nonNegative('Support tariff or PPA price, currency per MWh, real (COD-year prices)'),
 		supportYears: wholeYears('Operating years the tariff applies, then the merchant price', 0),
 		tariffIndexation: fraction('Share of inflation the tariff is indexed to (1 = fully indexed, 0 = flat nominal)').default(
@@ -347,7 +397,11 @@ const revenueSchema = z
 		),
 		merchantPricePerMWh: nonNegative('Merchant price after the support period, currency per MWh, real').default(0),
 		merchantEscalation: escalation,
-		grants: z.array(grantSchema).default([]).describe('Capital grants, received in step with capex spend; not taxed, they reduce the depreciable cost')
+		grants: z
+			.array(grantSchema)
+			.max(SCENARIO_LIMITS.grants, atMost('grants'))
+			.default([])
+			.describe('Capital grants, received in step with capex spend; not taxed, they reduce the depreciable cost')
 	})
 	.describe('Revenue');
 
@@ -370,13 +424,13 @@ const loanTerms = {
 
 const debtSchema = z
 	.discriminatedUnion('sizing', [
-		z.object({ sizing: z.literal('none').describe('How the debt is sized') }),
-		z.object({
+		z.strictObject({ sizing: z.literal('none').describe('How the debt is sized') }),
+		z.strictObject({
 			sizing: z.literal('gearing').describe('How the debt is sized'),
 			gearing: fraction('Share of construction spend (capex net of grants) funded by debt'),
 			...loanTerms
 		}),
-		z.object({
+		z.strictObject({
 			sizing: z.literal('target-dscr').describe('How the debt is sized'),
 			targetDscr: z.number().min(1).max(5).describe('Target debt service cover ratio in every repayment year'),
 			maxGearing: fraction('Cap on the share of construction spend funded by debt').default(0.8),
@@ -386,17 +440,19 @@ const debtSchema = z
 	.describe('Senior debt: none, sized by gearing, or sized by a target DSCR (the lesser of that and the gearing cap)');
 
 const financeSchema = z
-	.object({
+	.strictObject({
 		inflation: z.number().min(-0.05).max(0.5).describe('Inflation per year (fraction)').default(0.02),
 		realDiscountRate: z.number().min(0).max(0.5).describe('Real discount rate per year (fraction); nominal by Fisher'),
 		taxRate: fraction('Corporate tax rate').default(0),
 		depreciation: z
-			.object({
+			.strictObject({
 				method: z
 					.enum(['straight-line', 'declining-balance'])
 					.describe('Straight line, or declining balance switching to straight line when that is larger')
 					.default('straight-line'),
-				lifeYears: wholeYears('Tax depreciation life, years (defaults to the operating life)', 1).optional(),
+				lifeYears: wholeYears('Tax depreciation life, years (defaults to the operating life)', 1)
+					.max(SCENARIO_LIMITS.depreciationLifeYears, atMost('depreciationLifeYears'))
+					.optional(),
 				decliningBalanceFactor: positive('Declining-balance factor (2 = double declining)').default(2)
 			})
 			.default({ method: 'straight-line', decliningBalanceFactor: 2 })
@@ -416,8 +472,10 @@ const speedResources = new Set(['speed-histogram', 'weibull', 'rayleigh']);
 const speedDevices = new Set(['rotor', 'power-curve']);
 
 const scenarioObject = z
-	.object({
-		schemaVersion: z.literal(SCHEMA_VERSION).describe('Version of this document format'),
+	.strictObject({
+		schemaVersion: z
+			.literal(SCHEMA_VERSION)
+			.describe(`Version of this document format; older versions are upgraded when read (see scenario-upgrades.ts)`),
 		name: z.string().min(1).max(200).describe('Scenario name'),
 		description: z.string().max(4000).optional().describe('Free-text notes'),
 		technology,
@@ -547,10 +605,18 @@ export type ScenarioInput = z.input<typeof scenarioSchema>;
 export type Resource = Scenario['resource'];
 export type DeviceSpec = Scenario['device'];
 export type OpexLine = Scenario['opex']['lines'][number];
+export type Decommissioning = Scenario['decommissioning'];
+export type Grant = Scenario['revenue']['grants'][number];
 export type DebtSpec = Scenario['finance']['debt'];
 
 export type ScenarioIssue = { path: string; message: string };
-export type ParseScenarioResult = { ok: true; scenario: Scenario } | { ok: false; issues: ScenarioIssue[] };
+/**
+ * `upgradedFrom`: the version the document was written in when it was older
+ * than SCHEMA_VERSION (else null), with a note for each value an upgrade step moved.
+ */
+export type ParseScenarioResult =
+	| { ok: true; scenario: Scenario; upgradedFrom: number | null; upgradeNotes: string[] }
+	| { ok: false; issues: ScenarioIssue[]; upgradedFrom: number | null };
 
 /** `['capex', 'lines', 2, 'amount']` -> `capex.lines[2].amount`. */
 export function formatIssuePath(path: readonly PropertyKey[]): string {
@@ -562,12 +628,22 @@ export function formatIssuePath(path: readonly PropertyKey[]): string {
 	return out === '' ? '(document)' : out;
 }
 
-/** Validate an untrusted JSON value as a scenario, filling defaults. */
+/**
+ * Validate an untrusted JSON value as a scenario, filling defaults. A document
+ * of an older schemaVersion is upgraded first (scenario-upgrades.ts), then
+ * checked against the current schema; issues then name the current fields.
+ * Unknown keys are refused, each with the key probably meant.
+ */
 export function parseScenario(input: unknown): ParseScenarioResult {
-	const result = scenarioSchema.safeParse(input);
-	if (result.success) return { ok: true, scenario: result.data };
+	const upgraded = upgradeScenarioDocument(input);
+	if (!upgraded.ok) {
+		return { ok: false, issues: [{ path: upgraded.path ?? '(document)', message: upgraded.message }], upgradedFrom: null };
+	}
+	const result = safeParseStrict(scenarioSchema, upgraded.document);
+	if (result.success) return { ok: true, scenario: result.data, upgradedFrom: upgraded.upgradedFrom, upgradeNotes: upgraded.notes };
 	return {
 		ok: false,
-		issues: result.error.issues.map((issue) => ({ path: formatIssuePath(issue.path), message: issue.message }))
+		issues: result.issues.map((issue) => ({ path: formatIssuePath(issue.path), message: issue.message })),
+		upgradedFrom: upgraded.upgradedFrom
 	};
 }

@@ -7,7 +7,7 @@ describe('financeCase and the cash-flow identities', () => {
 	const s = atbCase({
 		timeline: { constructionYears: 2, operatingYears: 20 },
 		decommissioning: { basis: 'lump-sum', amount: 3_000_000 },
-		revenue: { tariffPerMWh: 200, grants: [{ name: 'g', basis: 'percent-of-capex', amount: 0.2 }] },
+		revenue: { tariffPerMWh: 200, grants: [{ name: 'g', basis: 'percent-of-capex', fraction: 0.2 }] },
 		finance: {
 			inflation: 0.02,
 			taxRate: 0.25,

@@ -80,7 +80,7 @@ describe('decommissioningCost', () => {
 	it('is priced by its basis and indexed to the final year', () => {
 		const ctx = { installedKW: dec(1000), deviceCount: 4, capexRealTotal: dec(1_000_000), finalPriceIndex: dec(2) };
 		expect(decommissioningCost({ basis: 'per-device', amount: 10 }, ctx).toString()).toBe('80');
-		expect(decommissioningCost({ basis: 'percent-of-capex', amount: 0.05 }, ctx).toString()).toBe('100000');
+		expect(decommissioningCost({ basis: 'percent-of-capex', fraction: 0.05 }, ctx).toString()).toBe('100000');
 		expect(decommissioningCost({ basis: 'per-kW', amount: 1 }, ctx).toString()).toBe('2000');
 		expect(decommissioningCost({ basis: 'lump-sum', amount: 7 }, ctx).toString()).toBe('14');
 	});

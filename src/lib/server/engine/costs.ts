@@ -143,20 +143,26 @@ export function totalOpex(schedule: OpexSchedule, revenue: readonly Decimal[]): 
 
 /**
  * Decommissioning cost, nominal, paid at the end of the final operating year
- * (t = N): real amount (lump sum, per device, per kW, or share of capex) x (1 + i)^N.
+ * (t = N): real cost x (1 + i)^N, the real cost being `amount` for the project,
+ * per device or per kW installed, or `fraction` x total capex (with contingency).
  * Source: common practice.
  */
 export function decommissioningCost(
 	spec: Scenario['decommissioning'],
 	ctx: { installedKW: Decimal; deviceCount: number; capexRealTotal: Decimal; finalPriceIndex: Decimal }
 ): Decimal {
-	const real =
-		spec.basis === 'per-device'
-			? dec(spec.amount).times(ctx.deviceCount)
-			: spec.basis === 'per-kW'
-				? ctx.installedKW.times(spec.amount)
-				: spec.basis === 'percent-of-capex'
-					? ctx.capexRealTotal.times(spec.amount)
-					: dec(spec.amount);
-	return real.times(ctx.finalPriceIndex);
+	return decommissioningRealCost(spec, ctx).times(ctx.finalPriceIndex);
+}
+
+function decommissioningRealCost(spec: Scenario['decommissioning'], ctx: { installedKW: Decimal; deviceCount: number; capexRealTotal: Decimal }): Decimal {
+	switch (spec.basis) {
+		case 'lump-sum':
+			return dec(spec.amount);
+		case 'per-device':
+			return dec(spec.amount).times(ctx.deviceCount);
+		case 'per-kW':
+			return ctx.installedKW.times(spec.amount);
+		case 'percent-of-capex':
+			return ctx.capexRealTotal.times(spec.fraction);
+	}
 }

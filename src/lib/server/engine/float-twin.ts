@@ -231,7 +231,7 @@ export function evaluateFloat(s: Scenario): FloatMetrics {
 		(l.phasing ?? s.capex.phasing ?? even).forEach((share, j) => (realC[j] += total * share));
 	}
 	const capexNom = realC.map((x, j) => x * idxC[j]);
-	let grantReal = sumOf(s.revenue.grants.map((g) => (g.basis === 'lump-sum' ? g.amount : capexReal * g.amount)));
+	let grantReal = sumOf(s.revenue.grants.map((g) => (g.basis === 'lump-sum' ? g.amount : capexReal * g.fraction)));
 	grantReal = Math.min(grantReal, capexReal);
 	const funding = capexNom.map((c) => c * (1 - (capexReal ? grantReal / capexReal : 0)));
 
@@ -260,7 +260,7 @@ export function evaluateFloat(s: Scenario): FloatMetrics {
 		}
 	}
 	const dc = s.decommissioning;
-	const decomReal = dc.basis === 'per-device' ? dc.amount * devices : dc.basis === 'per-kW' ? dc.amount * kW : dc.basis === 'percent-of-capex' ? dc.amount * capexReal : dc.amount;
+	const decomReal = dc.basis === 'per-device' ? dc.amount * devices : dc.basis === 'per-kW' ? dc.amount * kW : dc.basis === 'percent-of-capex' ? dc.fraction * capexReal : dc.amount;
 	const decom = idx.map((x, k) => (k === N - 1 ? decomReal * x : 0));
 	const dep = depreciation(f.depreciation.method, sumOf(funding), f.depreciation.lifeYears ?? N, N, f.depreciation.decliningBalanceFactor);
 	const dfN = (t: number) => Math.pow(1 + nominalRate, -t);

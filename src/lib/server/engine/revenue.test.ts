@@ -29,7 +29,7 @@ describe('grantSchedule', () => {
 		const g = grantSchedule(
 			[
 				{ name: 'a', basis: 'lump-sum', amount: 100 },
-				{ name: 'b', basis: 'percent-of-capex', amount: 0.1 }
+				{ name: 'b', basis: 'percent-of-capex', fraction: 0.1 }
 			],
 			dec(1000),
 			[dec(400), dec(600)],

@@ -53,7 +53,7 @@ export function grantSchedule(
 	priceIndex: readonly Decimal[]
 ): { realTotal: Decimal; nominal: Decimal[]; capped: boolean } {
 	let realTotal = ZERO;
-	for (const g of grants) realTotal = realTotal.plus(g.basis === 'lump-sum' ? dec(g.amount) : capexRealTotal.times(g.amount));
+	for (const g of grants) realTotal = realTotal.plus(g.basis === 'lump-sum' ? dec(g.amount) : capexRealTotal.times(g.fraction));
 	const capped = realTotal.gt(capexRealTotal);
 	if (capped) realTotal = capexRealTotal;
 	if (capexRealTotal.isZero()) return { realTotal: ZERO, nominal: capexRealByYear.map(() => ZERO), capped };

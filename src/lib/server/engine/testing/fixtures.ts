@@ -3,12 +3,22 @@
  */
 import { parseScenario, type Scenario, type ScenarioInput } from '../../../schemas/scenario';
 
-/** Deep merge of plain objects; arrays and scalars in `patch` replace. */
+/** The fields that choose a union member: a patch that changes one replaces the object. */
+const discriminators = ['kind', 'basis', 'sizing'];
+
+/**
+ * Deep merge of plain objects; arrays and scalars in `patch` replace, and so
+ * does an object of another union member (another `kind`, `basis` or `sizing`):
+ * the old member's fields would be unknown keys in the new one.
+ */
 function merge<T>(base: T, patch: unknown): T {
 	if (patch === undefined) return base;
 	if (typeof base !== 'object' || base === null || Array.isArray(base) || typeof patch !== 'object' || patch === null || Array.isArray(patch)) {
 		return patch as T;
 	}
+	const from = base as Record<string, unknown>;
+	const to = patch as Record<string, unknown>;
+	if (discriminators.some((key) => key in to && key in from && to[key] !== from[key])) return patch as T;
 	const out: Record<string, unknown> = { ...(base as Record<string, unknown>) };
 	for (const [k, v] of Object.entries(patch as Record<string, unknown>)) out[k] = merge(out[k], v);
 	return out as T;
@@ -29,7 +39,7 @@ export function scenarioFrom(input: unknown): Scenario {
  * in the 3 m/s bin (35 % of the time) and zero in the 0.2 m/s bin.
  */
 export const atbCaseInput: ScenarioInput = {
-	schemaVersion: 1,
+	schemaVersion: 2,
 	name: 'Fixed-charge-rate check case',
 	technology: 'tidal-stream',
 	resource: {
