@@ -2,7 +2,17 @@ import { describe, expect, it } from 'vitest';
 import { parseScenario } from '../schemas/scenario';
 import { evaluateScenario } from '../server/engine/evaluate';
 import { technologies } from '../schemas/workbench';
-import { blankDocument, debtWithSizing, deviceKindsFor, deviceOfKind, opexLineWithBasis, resourceKindsFor, resourceOfKind } from './document-defaults';
+import {
+	blankDocument,
+	debtWithSizing,
+	decommissioningWithBasis,
+	deviceKindsFor,
+	deviceOfKind,
+	grantWithBasis,
+	opexLineWithBasis,
+	resourceKindsFor,
+	resourceOfKind
+} from './document-defaults';
 
 describe('blankDocument', () => {
 	it.each(technologies)('gives %s a document the schema accepts and the engine evaluates', (technology) => {
@@ -31,6 +41,25 @@ describe('switching variants', () => {
 		const line = opexLineWithBasis({ name: 'Vessels', basis: 'per-MWh', amount: 4, escalation: 0.01 }, 'periodic-overhaul');
 		expect(line).toMatchObject({ name: 'Vessels', basis: 'periodic-overhaul', amount: 4, escalation: 0.01 });
 		expect(opexLineWithBasis(line, 'percent-of-revenue')).toEqual({ name: 'Vessels', basis: 'percent-of-revenue', fraction: 0.02 });
+	});
+
+	it('keeps a decommissioning amount between money bases, and never reads money as a share of capex', () => {
+		expect(decommissioningWithBasis({ basis: 'per-device', amount: 500_000 }, 'lump-sum')).toEqual({ basis: 'lump-sum', amount: 500_000 });
+		expect(decommissioningWithBasis({ basis: 'per-device', amount: 500_000 }, 'percent-of-capex')).toEqual({ basis: 'percent-of-capex', fraction: 0 });
+		expect(decommissioningWithBasis({ basis: 'percent-of-capex', fraction: 0.05 }, 'per-kW')).toEqual({ basis: 'per-kW', amount: 0 });
+		const same = { basis: 'percent-of-capex' as const, fraction: 0.05 };
+		expect(decommissioningWithBasis(same, 'percent-of-capex')).toBe(same);
+	});
+
+	it('keeps a grant’s name across bases, giving it the field its basis takes', () => {
+		const share = grantWithBasis({ name: 'Fund', basis: 'lump-sum', amount: 2_000_000 }, 'percent-of-capex');
+		expect(share).toEqual({ name: 'Fund', basis: 'percent-of-capex', fraction: 0 });
+		expect(grantWithBasis(share, 'lump-sum')).toEqual({ name: 'Fund', basis: 'lump-sum', amount: 0 });
+		for (const grant of [share, grantWithBasis(share, 'lump-sum')]) {
+			const document = { ...blankDocument('wave', { name: 'x', currency: 'EUR' }), revenue: { tariffPerMWh: 300, supportYears: 20, grants: [grant] } };
+			const parsed = parseScenario(document);
+			expect(parsed.ok ? [] : parsed.issues).toEqual([]);
+		}
 	});
 
 	it('keeps the loan terms when the debt sizing changes', () => {

@@ -4,7 +4,16 @@
  * the first values of each resource, device, opex and debt variant when the
  * user switches to it.
  */
-import { SCHEMA_VERSION, type DebtSpec, type DeviceSpec, type OpexLine, type Resource, type ScenarioInput } from '../schemas/scenario';
+import {
+	SCHEMA_VERSION,
+	type DebtSpec,
+	type Decommissioning,
+	type DeviceSpec,
+	type Grant,
+	type OpexLine,
+	type Resource,
+	type ScenarioInput
+} from '../schemas/scenario';
 import type { Technology } from '../technology';
 
 type Device = DeviceSpec;
@@ -126,6 +135,34 @@ export function opexLineWithBasis(line: OpexLine, basis: OpexLine['basis']): Ope
 		case 'periodic-overhaul':
 			return { name, basis, amount, perDevice: true, intervalYears: 5, escalation };
 	}
+}
+
+export const decommissioningBasisLabels: Record<Decommissioning['basis'], string> = {
+	'lump-sum': 'Lump sum',
+	'per-device': 'Per device',
+	'per-kW': 'Per kW',
+	'percent-of-capex': 'Share of capex'
+};
+
+/**
+ * Decommissioning under another basis: an amount of money stays between the
+ * money bases; a share of capex starts at 0 (money is never read as a share).
+ */
+export function decommissioningWithBasis(spec: Decommissioning, basis: Decommissioning['basis']): Decommissioning {
+	if (basis === spec.basis) return spec;
+	if (basis === 'percent-of-capex') return { basis, fraction: 0 };
+	return { basis, amount: 'amount' in spec ? spec.amount : 0 };
+}
+
+export const grantBasisLabels: Record<Grant['basis'], string> = {
+	'lump-sum': 'Lump sum',
+	'percent-of-capex': 'Share of capex'
+};
+
+/** The same grant under another basis, keeping its name; the figure starts at 0 (money and shares do not convert). */
+export function grantWithBasis(grant: Grant, basis: Grant['basis']): Grant {
+	if (basis === grant.basis) return grant;
+	return basis === 'percent-of-capex' ? { name: grant.name, basis, fraction: 0 } : { name: grant.name, basis, amount: 0 };
 }
 
 export const debtSizingLabels: Record<Debt['sizing'], string> = {

@@ -39,6 +39,20 @@ describe('unitOf', () => {
 		expect(unitOf(['revenue', 'tariffPerMWh'], tidal, 'USD')).toBe('USD/MWh');
 	});
 
+	it('names what a share is a share of, and never calls money a share', () => {
+		const shares = {
+			opex: { lines: [{ name: 'Insurance', basis: 'percent-of-capex', fraction: 0.01 }, { name: 'Lease', basis: 'percent-of-revenue', fraction: 0.02 }] },
+			decommissioning: { basis: 'percent-of-capex', fraction: 0.05 },
+			revenue: { grants: [{ name: 'Fund', basis: 'percent-of-capex', fraction: 0.2 }, { name: 'Prize', basis: 'lump-sum', amount: 1 }] }
+		};
+		expect(unitOf(['opex', 'lines', 0, 'fraction'], shares, 'EUR')).toBe('fraction of capex');
+		expect(unitOf(['opex', 'lines', 1, 'fraction'], shares, 'EUR')).toBe('fraction of revenue');
+		expect(unitOf(['decommissioning', 'fraction'], shares, 'EUR')).toBe('fraction of capex');
+		expect(unitOf(['revenue', 'grants', 0, 'fraction'], shares, 'EUR')).toBe('fraction of capex');
+		expect(unitOf(['revenue', 'grants', 1, 'amount'], shares, 'EUR')).toBe('EUR');
+		expect(unitOf(['decommissioning', 'amount'], { decommissioning: { basis: 'per-kW', amount: 1 } }, 'EUR')).toBe('EUR/kW');
+	});
+
 	it('names occurrences as hours or probabilities by the histogram’s basis', () => {
 		expect(unitOf(['resource', 'bins', 0, 'occurrence'], tidal, 'EUR')).toBe('h/yr');
 		const byProbability = { resource: { ...tidal.resource, occurrenceBasis: 'probability' } };

@@ -1,7 +1,8 @@
 /**
  * The unit shown beside a scenario field. Field names carry their unit
  * (`rotorDiameterM`, `cutInSpeedMPerS`, `ratedPowerKW`); money amounts take
- * theirs from the line's basis; shares are fractions, as the schema says.
+ * theirs from the line's basis; shares are fractions, as the schema says, of
+ * capex or revenue by the line's basis.
  */
 import type { FieldPath } from './schema-fields';
 
@@ -51,8 +52,13 @@ const amountUnits: Record<string, string> = {
 	'per-device': '{c}/device',
 	'fixed-per-year': '{c}/yr',
 	'per-kW-year': '{c}/kW·yr',
-	'per-MWh': '{c}/MWh',
-	'percent-of-capex': 'fraction of capex'
+	'per-MWh': '{c}/MWh'
+};
+
+/** A share's unit names what it is a share of. */
+const fractionUnits: Record<string, string> = {
+	'percent-of-capex': 'fraction of capex',
+	'percent-of-revenue': 'fraction of revenue'
 };
 
 function at(document: unknown, path: FieldPath): unknown {
@@ -79,6 +85,7 @@ export function unitOf(path: FieldPath, document: unknown, currency: string): st
 		if (basis === 'periodic-overhaul') return parent?.perDevice === false ? currency : `${currency}/device`;
 		return withCurrency(amountUnits[basis] ?? '{c}', currency);
 	}
+	if (key === 'fraction') return fractionUnits[String(parent?.basis)] ?? 'fraction';
 	if (key === 'occurrence') {
 		const basis = at(document, [...path.slice(0, -3), 'occurrenceBasis']);
 		return basis === 'hours' ? 'h/yr' : 'probability';

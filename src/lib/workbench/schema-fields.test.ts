@@ -29,6 +29,22 @@ describe('fieldFacts', () => {
 		expect(fieldFacts(['uncertainty', 'exceedanceLevels', 0], rotorDocument)).toMatchObject({ min: 0, max: 100, minExclusive: true });
 	});
 
+	it('offers every branch of a union as the choices of its discriminator', () => {
+		const document = { ...rotorDocument, opex: { lines: [{ basis: 'per-MWh' }] }, decommissioning: { basis: 'per-kW' }, revenue: { grants: [{ basis: 'lump-sum' }] } };
+		expect(fieldFacts(['device', 'kind'], document)!.options).toEqual(['rotor', 'power-curve', 'power-matrix', 'capture-width']);
+		expect(fieldFacts(['finance', 'debt', 'sizing'], document)!.options).toEqual(['none', 'gearing', 'target-dscr']);
+		expect(fieldFacts(['opex', 'lines', 0, 'basis'], document)!.options).toHaveLength(6);
+		expect(fieldFacts(['decommissioning', 'basis'], document)!.options).toEqual(['lump-sum', 'per-device', 'per-kW', 'percent-of-capex']);
+		expect(fieldFacts(['revenue', 'grants', 0, 'basis'], document)!.options).toEqual(['lump-sum', 'percent-of-capex']);
+	});
+
+	it('reads the field a basis takes: an amount of money, or a fraction of capex', () => {
+		expect(fieldFacts(['decommissioning', 'fraction'], { decommissioning: { basis: 'percent-of-capex' } })).toMatchObject({ min: 0, max: 1 });
+		expect(fieldFacts(['decommissioning', 'amount'], { decommissioning: { basis: 'percent-of-capex' } })).toBeNull();
+		expect(fieldFacts(['revenue', 'grants', 0, 'fraction'], { revenue: { grants: [{ basis: 'lump-sum' }] } })).toBeNull();
+		expect(fieldFacts(['revenue', 'grants', 0, 'amount'], { revenue: { grants: [{ basis: 'lump-sum' }] } })).toMatchObject({ min: 0, max: null });
+	});
+
 	it('answers null for a path the schema does not have', () => {
 		expect(fieldFacts(['array', 'nothing'], rotorDocument)).toBeNull();
 	});

@@ -57,6 +57,8 @@ interface Walked {
 	optional: boolean;
 	defaultValue: unknown;
 	description: string;
+	/** For a union's discriminator (`basis`, `kind`, `sizing`): the value of every branch, so the choice can change branch. */
+	branchValues?: string[];
 }
 
 /** Peels default/optional/nullable wrappers, noting what they say. */
@@ -80,15 +82,20 @@ function unwrap(node: Node, acc: Walked): Walked {
 /** The schema node at `path`, choosing each union's branch by the document's own discriminator. */
 function walk(path: FieldPath, document: unknown): Walked | null {
 	let walked = unwrap(root, { node: root, optional: false, defaultValue: undefined, description: '' });
+	let branchValues: string[] | undefined;
 	for (let i = 0; i <= path.length; i++) {
 		while (walked.node.def.type === 'union' && walked.node.def.options) {
 			const key = walked.node.def.discriminator ?? '';
+			const options = walked.node.def.options;
+			if (i === path.length - 1 && path[i] === key) {
+				branchValues = options.flatMap((option) => (option.def.shape?.[key]?.def.values ?? []).map(String));
+			}
 			const chosen = valueAt(document, [...path.slice(0, i), key]);
-			const branch = walked.node.def.options.find((option) => option.def.shape?.[key]?.def.values?.includes(chosen));
+			const branch = options.find((option) => option.def.shape?.[key]?.def.values?.includes(chosen));
 			if (!branch) return null;
 			walked = unwrap(branch, { ...walked, node: branch });
 		}
-		if (i === path.length) return walked;
+		if (i === path.length) return { ...walked, branchValues };
 		const node = walked.node;
 		const key = path[i];
 		let next: Node | undefined;
@@ -122,7 +129,8 @@ export function fieldFacts(path: FieldPath, document: unknown): FieldFacts | nul
 	if (!walked) return null;
 	const { node } = walked;
 	const options =
-		node.def.type === 'enum' && node.def.entries ? Object.values(node.def.entries) : node.def.type === 'literal' ? (node.def.values ?? []).map(String) : [];
+		walked.branchValues ??
+		(node.def.type === 'enum' && node.def.entries ? Object.values(node.def.entries) : node.def.type === 'literal' ? (node.def.values ?? []).map(String) : []);
 	return {
 		description: walked.description,
 		...bounds(node),
