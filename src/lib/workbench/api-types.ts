@@ -34,6 +34,13 @@ export interface ScenarioSummaryJson {
 	updatedAt: string;
 	createdBy: PersonJson | null;
 	updatedBy: PersonJson | null;
+	/** Stored figures of this revision (lists only); null when not evaluated by the current engine. */
+	keyFigures?: KeyFiguresJson | null;
+}
+
+export interface KeyFiguresJson {
+	currency: string;
+	values: { lcoeReal: string | null; equityIrr: string | null; minDscr: string | null; netAepMWh: string | null };
 }
 
 export interface ScenarioJson extends ScenarioSummaryJson {

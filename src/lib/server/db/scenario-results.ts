@@ -43,3 +43,17 @@ export async function listCurrentRevisions(knex: Knex = db()): Promise<{ scenari
 		.orderBy('scenarios.created_at');
 	return rows.map((row) => ({ scenarioId: row.id, revision: row.revision, technology: row.technology }));
 }
+
+/** The stored metrics and currency of several saved revisions at once (missing ones are left out). */
+export async function getStoredMetricsOf(
+	revisions: readonly { scenarioId: string; revision: number }[],
+	engineVersion: string,
+	knex: Knex = db()
+): Promise<Map<string, { metrics: EngineResult['metrics']; currency: string }>> {
+	if (revisions.length === 0) return new Map();
+	const rows: { scenario_id: string; metrics: EngineResult['metrics']; currency: string }[] = await knex('scenario_results')
+		.select('scenario_id', knex.raw(`result -> 'metrics' as metrics`), knex.raw(`result ->> 'currency' as currency`))
+		.where({ engine_version: engineVersion })
+		.whereIn(['scenario_id', 'revision'], revisions.map((r) => [r.scenarioId, r.revision]));
+	return new Map(rows.map((row) => [row.scenario_id, { metrics: row.metrics, currency: row.currency }]));
+}

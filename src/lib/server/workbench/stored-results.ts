@@ -6,7 +6,8 @@
  */
 import type { Knex } from 'knex';
 import { db } from '../db/knex';
-import { getStoredResult, putStoredResult } from '../db/scenario-results';
+import { getStoredMetricsOf, getStoredResult, putStoredResult } from '../db/scenario-results';
+import type { MetricKey } from '../../metrics/catalogue';
 import type { ScenarioRecord } from '../db/scenarios';
 import { evaluateScenario, type EngineResult } from '../engine/evaluate';
 import { ENGINE_VERSION } from '../engine/version';
@@ -60,4 +61,26 @@ export async function storeResultOfSave(scenario: SavedScenario, project: { tech
 		if (e instanceof ApiProblem) return;
 		throw e;
 	}
+}
+
+/** The figures a scenario list shows beside each name. */
+export const KEY_FIGURES = ['lcoeReal', 'equityIrr', 'minDscr', 'netAepMWh'] as const satisfies readonly MetricKey[];
+export type KeyFigures = { currency: string; values: Record<(typeof KEY_FIGURES)[number], string | null> };
+
+/**
+ * Key figures of saved revisions from the store alone (a read never computes):
+ * null for a revision with no stored result of this engine, such as one not
+ * re-evaluated yet after an engine change.
+ */
+export async function storedKeyFigures(scenarios: readonly Pick<ScenarioRecord, 'id' | 'revision'>[]): Promise<Record<string, KeyFigures | null>> {
+	const stored = await getStoredMetricsOf(
+		scenarios.map((s) => ({ scenarioId: s.id, revision: s.revision })),
+		ENGINE_VERSION
+	);
+	return Object.fromEntries(
+		scenarios.map((s) => {
+			const found = stored.get(s.id);
+			return [s.id, found ? { currency: found.currency, values: Object.fromEntries(KEY_FIGURES.map((k) => [k, found.metrics[k] ?? null])) as KeyFigures['values'] } : null];
+		})
+	);
 }

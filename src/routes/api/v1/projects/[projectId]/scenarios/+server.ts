@@ -5,15 +5,16 @@ import { authorize } from '$lib/server/auth/access';
 import { ApiProblem, apiRoute, readJsonBody, validateBody, validateDocument, withName } from '$lib/server/workbench/api-route';
 import { projectJson, scenarioJson, scenarioSummaryJson } from '$lib/server/workbench/serialize';
 import { starterDocument } from '$lib/server/workbench/starter-documents';
-import { storeResultOfSave } from '$lib/server/workbench/stored-results';
+import { storeResultOfSave, storedKeyFigures } from '$lib/server/workbench/stored-results';
 import type { RequestHandler } from './$types';
 
-/** The project's scenarios without their documents; `?archived=1` lists the archived ones. */
+/** The project's scenarios without their documents, with their stored key figures; `?archived=1` lists the archived ones. */
 export const GET: RequestHandler = apiRoute(async (event) => {
 	const { project } = await authorize(event, event.params, 'viewer');
 	const archived = event.url.searchParams.get('archived') === '1';
 	const scenarios = await listScenariosInProject(project.id, { archived });
-	return json({ project: projectJson(project), scenarios: scenarios.map(scenarioSummaryJson) });
+	const figures = await storedKeyFigures(scenarios);
+	return json({ project: projectJson(project), scenarios: scenarios.map((s) => ({ ...scenarioSummaryJson(s), keyFigures: figures[s.id] })) });
 });
 
 /** A new scenario from the document sent, or from the starter document of the project's technology. */

@@ -3,16 +3,18 @@ import { authorize } from '$lib/server/auth/access';
 import { listScenariosInProject } from '$lib/server/db/scenarios';
 import { listUploadsInProject } from '$lib/server/db/uploads';
 import { projectJson, scenarioSummaryJson, uploadSummaryJson } from '$lib/server/workbench/serialize';
+import { storedKeyFigures } from '$lib/server/workbench/stored-results';
 import { asJson, type ProjectJson, type ScenarioSummaryJson, type UploadSummaryJson } from '$lib/workbench/api-types';
 import type { PageServerLoad } from './$types';
 
-/** The project, its live scenarios and its uploads; changes go through the API and the page refetches from it. */
+/** The project, its live scenarios with their stored key figures, and its uploads; changes go through the API and the page refetches from it. */
 export const load: PageServerLoad = async (event) => {
 	const { project, membership } = await authorize(event, event.params, 'viewer');
 	const [scenarios, uploads] = await Promise.all([listScenariosInProject(project.id), listUploadsInProject(project.id)]);
+	const figures = await storedKeyFigures(scenarios);
 	return {
 		project: asJson<ProjectJson>(projectJson(project)),
-		scenarios: asJson<ScenarioSummaryJson[]>(scenarios.map(scenarioSummaryJson)),
+		scenarios: asJson<ScenarioSummaryJson[]>(scenarios.map((s) => ({ ...scenarioSummaryJson(s), keyFigures: figures[s.id] }))),
 		uploads: asJson<UploadSummaryJson[]>(uploads.map(uploadSummaryJson)),
 		role: membership.role,
 		canEdit: roleAtLeast(membership.role, 'analyst')
