@@ -3,10 +3,13 @@
  *
  *     npm run evaluate -- examples/tidal-stream-kestle-narrows.json [--tornado]
  *
- * Invalid input prints each problem with its field path and exits with code 1.
+ * Invalid input prints each problem with its field path (an unknown key with
+ * the key probably meant) and exits with code 1. A document in an older
+ * schemaVersion is upgraded in memory first; what moved is printed on stderr
+ * (the file is left as it is).
  */
 import { readFileSync } from 'node:fs';
-import { parseScenario } from '../src/lib/schemas/scenario';
+import { parseScenario, SCHEMA_VERSION } from '../src/lib/schemas/scenario';
 import { evaluateScenario } from '../src/lib/server/engine/evaluate';
 import { defaultDrivers, tornado } from '../src/lib/server/engine/sensitivity';
 
@@ -29,7 +32,14 @@ try {
 
 const parsed = parseScenario(json);
 if (!parsed.ok) {
-	fail([`${files[0]} is not a valid scenario:`, ...parsed.issues.map((i) => `  ${i.path}: ${i.message}`)].join('\n'));
+	const upgraded = parsed.upgradedFrom === null ? '' : ` (read as schema version ${SCHEMA_VERSION}, upgraded from version ${parsed.upgradedFrom})`;
+	fail([`${files[0]} is not a valid scenario${upgraded}:`, ...parsed.issues.map((i) => `  ${i.path}: ${i.message}`)].join('\n'));
+}
+if (parsed.upgradedFrom !== null) {
+	const notes = parsed.upgradeNotes.map((note) => `  ${note}`);
+	process.stderr.write(
+		[`note: ${files[0]} is in schema version ${parsed.upgradedFrom}; read as version ${SCHEMA_VERSION} (the file is unchanged):`, ...notes].join('\n') + '\n'
+	);
 }
 
 const result = evaluateScenario(parsed.scenario);

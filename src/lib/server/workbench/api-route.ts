@@ -7,7 +7,8 @@ import { isHttpError, isRedirect, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { apiError, type ApiIssue } from '../api';
 import { ArchivedScenarioError, StaleRevisionError } from '../db/scenarios';
-import { parseScenario, type Scenario } from '../../schemas/scenario';
+import { parseScenario, SCHEMA_VERSION, type Scenario } from '../../schemas/scenario';
+import { safeParseStrict, type FieldIssue } from '../../schemas/strict-parse';
 
 /** A refusal with a status, a message, field issues and any extra facts for the client. */
 export class ApiProblem extends Error {
@@ -60,13 +61,9 @@ export function issuePath(path: readonly PropertyKey[], prefix = ''): string {
 	return out === '' ? '(body)' : out;
 }
 
-export function zodIssues(error: z.ZodError, prefix = ''): ApiIssue[] {
-	return error.issues.flatMap((issue) => {
-		if (issue.code === 'unrecognized_keys') {
-			return issue.keys.map((key) => ({ path: issuePath([...issue.path, key], prefix), message: 'this field is not accepted here' }));
-		}
-		return [{ path: issuePath(issue.path, prefix), message: issue.message }];
-	});
+/** Field issues as the API answers them; unknown keys come one a key, with the key probably meant (see strict-parse.ts). */
+export function fieldIssues(issues: readonly FieldIssue[], prefix = ''): ApiIssue[] {
+	return issues.map((issue) => ({ path: issuePath(issue.path, prefix), message: issue.message }));
 }
 
 /** The request's JSON body; an empty body reads as `{}` when `optional`. */
@@ -84,12 +81,17 @@ export async function readJsonBody(request: Request, options: { optional?: boole
 }
 
 export function validateBody<S extends z.ZodType>(schema: S, value: unknown): z.output<S> {
-	const result = schema.safeParse(value);
+	const result = safeParseStrict(schema, value);
 	if (result.success) return result.data;
-	throw new ApiProblem(422, 'Some fields need attention.', zodIssues(result.error));
+	throw new ApiProblem(422, 'Some fields need attention.', fieldIssues(result.issues));
 }
 
-/** A scenario document checked against the schema (and the project's technology), issues under `document.`. */
+/**
+ * A scenario document checked against the schema (and the project's
+ * technology), issues under `document.`. A document of an older schema
+ * version is upgraded first (parseScenario); its issues then name the
+ * current fields, and the message says which version it was read from.
+ */
 export function validateDocument(value: unknown, project: { technology: string }, prefix = 'document'): Scenario {
 	const result = parseScenario(value);
 	if (!result.ok) {
@@ -97,7 +99,8 @@ export function validateDocument(value: unknown, project: { technology: string }
 			path: issue.path === '(document)' ? prefix : `${prefix}.${issue.path}`,
 			message: issue.message
 		}));
-		throw new ApiProblem(422, 'The scenario document has problems in the fields listed.', issues);
+		const upgraded = result.upgradedFrom === null ? '' : ` (read as schema version ${SCHEMA_VERSION}, upgraded from version ${result.upgradedFrom})`;
+		throw new ApiProblem(422, `The scenario document has problems in the fields listed${upgraded}.`, issues);
 	}
 	if (result.scenario.technology !== project.technology) {
 		throw new ApiProblem(422, 'The scenario document has problems in the fields listed.', [
