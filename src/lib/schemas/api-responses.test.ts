@@ -12,7 +12,8 @@ import { apiError } from '../server/api';
 import { evaluateScenario } from '../server/engine/evaluate';
 import { defaultDrivers, spider, tornado } from '../server/engine/sensitivity';
 import { compareScenarios } from '../server/workbench/compare';
-import { projectJson, scenarioJson, uploadJson } from '../server/workbench/serialize';
+import { projectJson, scenarioJson, scenarioSummaryJson, uploadJson } from '../server/workbench/serialize';
+import type { KeyFigures } from '../server/workbench/stored-results';
 import { asJson } from '../workbench/api-types';
 import {
 	apiErrorSchema,
@@ -21,10 +22,12 @@ import {
 	evaluationResultSchema,
 	projectJsonSchema,
 	scenarioJsonSchema,
+	scenarioListItemJsonSchema,
 	spiderResponseSchema,
 	tornadoResponseSchema,
 	uploadJsonSchema,
-	workspaceRoleSchema
+	workspaceRoleSchema,
+	workspaceWithPlanJsonSchema
 } from './api-responses';
 import { parseScenario, type Scenario } from './scenario';
 
@@ -99,7 +102,15 @@ describe('tornadoResponseSchema and spiderResponseSchema', () => {
 	});
 });
 
-describe('projectJsonSchema, scenarioJsonSchema and uploadJsonSchema', () => {
+describe('workspaceWithPlanJsonSchema', () => {
+	it('fits a workspace as the workspaces route lists it, and refuses a made-up role', () => {
+		const workspace = { id: uuid(2), name: 'Orrin Tidal Partners', role: 'analyst', plan: 'free' };
+		expect(fits(workspaceWithPlanJsonSchema, workspace)).toEqual([]);
+		expect(fits(workspaceWithPlanJsonSchema, { ...workspace, role: 'admin' })).not.toEqual([]);
+	});
+});
+
+describe('projectJsonSchema, scenarioJsonSchema, scenarioListItemJsonSchema and uploadJsonSchema', () => {
 	it('fit what the serializers make of stored rows', () => {
 		const project = projectJson({
 			id: uuid(1),
@@ -131,6 +142,9 @@ describe('projectJsonSchema, scenarioJsonSchema and uploadJsonSchema', () => {
 			updatedBy: null
 		};
 		expect(fits(scenarioJsonSchema, scenarioJson({ ...summary, document: examples[0] }))).toEqual([]);
+		const keyFigures: KeyFigures = { currency: 'EUR', values: { lcoeReal: '212.5', equityIrr: null, minDscr: '1.35', netAepMWh: '40150' } };
+		expect(fits(scenarioListItemJsonSchema, { ...scenarioSummaryJson(summary), keyFigures })).toEqual([]);
+		expect(fits(scenarioListItemJsonSchema, { ...scenarioSummaryJson(summary), keyFigures: null })).toEqual([]);
 
 		const upload = uploadJson({
 			id: uuid(5),

@@ -29,6 +29,10 @@ export const workspaceJsonSchema = z.object({
 	role: workspaceRoleSchema
 });
 
+export const workspaceWithPlanJsonSchema = workspaceJsonSchema.extend({
+	plan: z.string().describe("The workspace's plan (free until billing sets another)")
+});
+
 export const projectJsonSchema = z.object({
 	id: z.uuid(),
 	workspaceId: z.uuid(),
@@ -55,6 +59,20 @@ export const scenarioSummaryJsonSchema = z.object({
 	updatedAt: isoDateTime,
 	createdBy: personRefSchema.nullable(),
 	updatedBy: personRefSchema.nullable()
+});
+
+export const keyFiguresJsonSchema = z
+	.object({
+		currency: z.string(),
+		values: z.record(z.string(), decimalStringSchema.nullable()).describe('A few headline metrics by key (lcoeReal, equityIrr, minDscr, netAepMWh)')
+	})
+	.describe('Headline figures of the saved revision from its stored result');
+
+export const scenarioListItemJsonSchema = scenarioSummaryJsonSchema.extend({
+	keyFigures: keyFiguresJsonSchema
+		.nullable()
+		.optional()
+		.describe('Null when the revision has no stored result of the current engine yet (for example just after an engine change)')
 });
 
 export const scenarioJsonSchema = scenarioSummaryJsonSchema.extend({
@@ -161,7 +179,7 @@ export const evaluationResponseSchema = z.object({
 	scenarioId: z.uuid(),
 	revision: z.number().int(),
 	source: evaluationSource,
-	engineVersion: z.string().describe('The version of the calculation engine that produced the result').optional(),
+	engineVersion: z.string().describe('The version of the calculation engine that produced the result'),
 	computedAt: isoDateTime.optional().describe('For the saved scenario: when its stored result was calculated'),
 	result: evaluationResultSchema
 });

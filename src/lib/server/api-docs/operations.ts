@@ -21,13 +21,14 @@ import {
 	projectJsonSchema,
 	revisionJsonSchema,
 	scenarioJsonSchema,
-	scenarioSummaryJsonSchema,
+	scenarioListItemJsonSchema,
 	spiderResponseSchema,
 	tornadoResponseSchema,
 	uploadJsonSchema,
 	uploadSummaryJsonSchema,
 	workspaceJsonSchema,
-	workspaceRoleSchema
+	workspaceRoleSchema,
+	workspaceWithPlanJsonSchema
 } from '../../schemas/api-responses';
 import { scenarioSchema } from '../../schemas/scenario';
 import {
@@ -152,7 +153,7 @@ export const namedResponseSchemas: Record<string, z.ZodType> = {
 	Workspace: workspaceJsonSchema,
 	Project: projectJsonSchema,
 	ProjectEnvelope: projectEnvelope,
-	ScenarioSummary: scenarioSummaryJsonSchema,
+	ScenarioListItem: scenarioListItemJsonSchema,
 	Scenario: scenarioJsonSchema,
 	ScenarioEnvelope: scenarioEnvelope,
 	ScenarioDocument: scenarioSchema,
@@ -195,9 +196,14 @@ export const apiOperations: ApiOperation[] = [
 		path: '/api/v1/workspaces',
 		tag: 'Workspaces',
 		summary: 'List the workspaces you belong to',
+		description: "With an API token: only the token's own workspace.",
 		minimumRole: 'signed-in',
 		apiToken: 'read-only',
-		response: { status: 200, description: 'Your workspaces with your role in each', json: z.object({ workspaces: z.array(workspaceJsonSchema) }) }
+		response: {
+			status: 200,
+			description: 'Your workspaces with your role and the plan of each',
+			json: z.object({ workspaces: z.array(workspaceWithPlanJsonSchema) })
+		}
 	},
 	{
 		operationId: 'listProjects',
@@ -274,14 +280,14 @@ export const apiOperations: ApiOperation[] = [
 		method: 'GET',
 		path: '/api/v1/projects/{projectId}/scenarios',
 		tag: 'Scenarios',
-		summary: "List a project's scenarios (without their documents)",
+		summary: "List a project's scenarios with their key figures (without their documents)",
 		minimumRole: 'viewer',
 		apiToken: 'read-only',
 		query: [archivedQuery],
 		response: {
 			status: 200,
 			description: 'The project and its scenarios',
-			json: z.object({ project: projectJsonSchema, scenarios: z.array(scenarioSummaryJsonSchema) })
+			json: z.object({ project: projectJsonSchema, scenarios: z.array(scenarioListItemJsonSchema) })
 		}
 	},
 	{
