@@ -44,7 +44,12 @@ export interface KeyFiguresJson {
 }
 
 export interface ScenarioJson extends ScenarioSummaryJson {
+	/** In the current format: a document saved in an older schemaVersion comes upgraded (the stored copy is unchanged until the next save). */
 	document: Scenario;
+	/** The schemaVersion the document was saved in, when older than the current one; else null. */
+	upgradedFrom: number | null;
+	/** What the upgrade moved, one line each. */
+	upgradeNotes: string[];
 }
 
 export interface RevisionJson {

@@ -2,6 +2,7 @@
 import type { ProjectRow } from '../db/projects';
 import type { ScenarioRecord, ScenarioSummary } from '../db/scenarios';
 import type { UploadRecord, UploadSummary } from '../db/uploads';
+import { upgradeScenarioDocument } from '../../schemas/scenario-upgrades';
 
 export function projectJson(row: ProjectRow) {
 	return {
@@ -35,8 +36,20 @@ export function scenarioSummaryJson(s: ScenarioSummary) {
 	};
 }
 
+/**
+ * The saved document in the current format. One saved in an older
+ * schemaVersion is upgraded in memory (the stored copy is never rewritten; the
+ * next save writes the current version), and says from which version and what
+ * moved, so the editor can tell the user.
+ */
+function documentJson(document: ScenarioRecord['document']) {
+	const upgraded = upgradeScenarioDocument(document);
+	if (!upgraded.ok || upgraded.upgradedFrom === null) return { document, upgradedFrom: null, upgradeNotes: [] as string[] };
+	return { document: upgraded.document as ScenarioRecord['document'], upgradedFrom: upgraded.upgradedFrom, upgradeNotes: upgraded.notes };
+}
+
 export function scenarioJson(s: ScenarioRecord) {
-	return { ...scenarioSummaryJson(s), document: s.document };
+	return { ...scenarioSummaryJson(s), ...documentJson(s.document) };
 }
 
 export function uploadSummaryJson(u: UploadSummary) {
