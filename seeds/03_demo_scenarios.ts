@@ -2,7 +2,8 @@
  * Demo scenarios: for each demo project a base case from the example scenario
  * of its technology (examples/*.json, read at seed time) and a downside case
  * (capex +15 %, availability 5 points lower). Runs only into an empty
- * scenarios table, and only when the examples are there.
+ * scenarios table, and only when the examples are there. The documents are
+ * written as parseScenario returns them: in the current schemaVersion.
  */
 import type { Knex } from 'knex';
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
@@ -17,14 +18,18 @@ const examplesDirectory = join(dirname(fileURLToPath(import.meta.url)), '..', 'e
 export const DOWNSIDE_CAPEX_FACTOR = 1.15;
 export const DOWNSIDE_AVAILABILITY_DROP = 0.05;
 
+/** The example scenarios, validated (and upgraded, were one in an older format); an invalid one stops the seed, naming its problems. */
 function readExamples(): Scenario[] {
 	if (!existsSync(examplesDirectory)) return [];
 	return readdirSync(examplesDirectory)
 		.filter((file) => file.endsWith('.json'))
 		.sort()
-		.flatMap((file) => {
+		.map((file) => {
 			const parsed = parseScenario(JSON.parse(readFileSync(join(examplesDirectory, file), 'utf8')));
-			return parsed.ok ? [parsed.scenario] : [];
+			if (!parsed.ok) {
+				throw new Error(`examples/${file} is not a valid scenario: ${parsed.issues.map((i) => `${i.path}: ${i.message}`).join('; ')}`);
+			}
+			return parsed.scenario;
 		});
 }
 

@@ -4,7 +4,7 @@ import { createTestDatabase, type TestDatabase } from '../helpers/db';
 import { runSeeds } from '../../seeds/index';
 import { DOWNSIDE_CAPEX_FACTOR } from '../../seeds/03_demo_scenarios';
 import { demoProjects } from '../../seeds/01_demo_workspace';
-import { parseScenario } from '../../src/lib/schemas/scenario';
+import { parseScenario, SCHEMA_VERSION } from '../../src/lib/schemas/scenario';
 import { evaluateScenario } from '../../src/lib/server/engine/evaluate';
 import { listScenariosInProject, getScenarioById, listScenarioRevisions } from '../../src/lib/server/db/scenarios';
 
@@ -28,6 +28,8 @@ describe('demo scenarios seed', () => {
 				const scenario = (await getScenarioById(summary.id, database.knex))!;
 				const parsed = parseScenario(scenario.document);
 				expect(parsed.ok, `${project.name} / ${summary.name}`).toBe(true);
+				expect(parsed.ok && parsed.upgradedFrom, 'seeded in the current schema version').toBeNull();
+				expect(summary.schemaVersion).toBe(SCHEMA_VERSION);
 				expect(scenario.document.technology).toBe(project.technology);
 				expect(scenario.createdBy?.name).toBe('Tomas Vell');
 				expect(await listScenarioRevisions(summary.id, database.knex)).toHaveLength(1);

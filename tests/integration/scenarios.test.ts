@@ -17,6 +17,7 @@ import {
 	saveScenario
 } from '../../src/lib/server/db/scenarios';
 import { archiveProject, createProject, getProjectById, listProjectsInWorkspace, restoreProject, updateProject } from '../../src/lib/server/db/projects';
+import { parseScenario, SCHEMA_VERSION } from '../../src/lib/schemas/scenario';
 import { tidalDocument } from '../fixtures/scenario-documents';
 
 let database: TestDatabase;
@@ -161,6 +162,27 @@ describe('saveScenario', () => {
 		await expect(
 			saveScenario({ scenarioId: created.id, expectedRevision: 1, notes: 'x', userId: alice }, database.knex)
 		).rejects.toBeInstanceOf(ArchivedScenarioError);
+	});
+});
+
+describe('a document stored in an older schema version', () => {
+	it('stays as stored; parseScenario upgrades it in memory, and the next save writes the current version', async () => {
+		const version1 = { ...tidalDocument, schemaVersion: 1, decommissioning: { basis: 'percent-of-capex', amount: 0.05 } };
+		const created = await createScenario({ projectId, name: 'Base', document: version1 as unknown as typeof tidalDocument, userId: alice }, database.knex);
+		const stored = (await getScenarioById(created.id, database.knex))!;
+		expect(stored.schemaVersion).toBe(1);
+		expect(stored.document.decommissioning).toEqual({ basis: 'percent-of-capex', amount: 0.05 });
+
+		const parsed = parseScenario(stored.document);
+		if (!parsed.ok) throw new Error(JSON.stringify(parsed.issues));
+		expect(parsed.upgradedFrom).toBe(1);
+		expect(parsed.scenario.decommissioning).toEqual({ basis: 'percent-of-capex', fraction: 0.05 });
+		expect((await getScenarioById(created.id, database.knex))!.document).toEqual(stored.document);
+
+		const saved = await saveScenario({ scenarioId: created.id, expectedRevision: 1, document: parsed.scenario, userId: alice }, database.knex);
+		expect(saved?.schemaVersion).toBe(SCHEMA_VERSION);
+		expect(saved?.document.decommissioning).toEqual({ basis: 'percent-of-capex', fraction: 0.05 });
+		expect(await getScenarioRevisionDocument(created.id, 1, database.knex)).toMatchObject({ schemaVersion: 1, decommissioning: { amount: 0.05 } });
 	});
 });
 
