@@ -109,3 +109,17 @@ describe('parsePowerCurveCsv: bad files', () => {
 		expect(messages(csv('speed_m_s,power_kW', '1.0,40,7', '2.0,80'))[0]).toMatch(/^Row 2: has 3 values but the header has 2 columns\./);
 	});
 });
+
+describe('parsePowerCurveCsv: the scenario’s bound on points', () => {
+	const rows = (n: number) => csv('speed_m_s,power_kW', ...Array.from({ length: n }, (_, i) => `${(i * 0.01).toFixed(2)},${i}`));
+
+	it('takes as many points as a scenario does, and the result fits the schema', () => {
+		const result = parsed(rows(500));
+		expect(result.data.points).toHaveLength(500);
+		expect(deviceSchema.safeParse(result.data).success).toBe(true);
+	});
+
+	it('refuses one point more, in the schema’s words', () => {
+		expect(messages(rows(501))).toEqual(['The file has 501 rows (one power-curve point each); a scenario takes at most 500 power-curve points.']);
+	});
+});

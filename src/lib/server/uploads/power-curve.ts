@@ -8,6 +8,7 @@ import { Decimal } from '../engine/decimal';
 import { readCsvTable, resolveColumns } from './csv';
 import { DEFAULT_MAX_BYTES } from './decode';
 import { numberAt } from './fields';
+import { beyondScenarioLimit } from './limits';
 import { plain, type PowerCurveDevice } from './fragments';
 import { ErrorCollector, fileFailure, type UploadResult } from './result';
 import { DEFAULT_TABLE_MAX_ROWS } from './speed-histogram';
@@ -51,6 +52,8 @@ export function parsePowerCurveCsv(
 	});
 	if (!read.ok) return read;
 	const { table } = read;
+	const tooMany = beyondScenarioLimit('powerCurvePoints', table.rows.length, 'rows (one power-curve point each)');
+	if (tooMany) return tooMany;
 	const resolved = resolveColumns(table, { required: POWER_CURVE_HEADER }, POWER_CURVE_HEADER);
 	if (!resolved.ok) return resolved;
 	const speedColumn = resolved.columns.byName.get('speed_m_s')!;

@@ -153,3 +153,23 @@ describe('parsePowerMatrixCsv: bad files', () => {
 		expect(messages(Uint8Array.from([0xff, 0xfe, 0x68, 0x00]))[0]).toMatch(/UTF-16/);
 	});
 });
+
+describe('parsePowerMatrixCsv: the scenario’s bounds on the matrix', () => {
+	const matrix = (hsCount: number, periodCount: number) =>
+		csv(
+			['hs_m/te_s', ...Array.from({ length: periodCount }, (_, j) => 2 + j * 0.5)].join(','),
+			...Array.from({ length: hsCount }, (_, i) => [i * 0.25, ...Array.from({ length: periodCount }, () => 100)].join(','))
+		);
+
+	it('takes a matrix of 100 x 100 cells, and the result fits the schema', () => {
+		const result = parsed(matrix(100, 100));
+		expect(result.data.powerKW).toHaveLength(100);
+		expect(result.data.powerKW[99]).toHaveLength(100);
+		expect(deviceSchema.safeParse(result.data).success).toBe(true);
+	});
+
+	it('refuses a row or a column more, in the schema’s words', () => {
+		expect(messages(matrix(101, 3))).toEqual(['The file has 101 Hs rows; a scenario takes at most 100 Hs values.']);
+		expect(messages(matrix(3, 101))).toEqual(['The file has 101 period columns; a scenario takes at most 100 period values.']);
+	});
+});

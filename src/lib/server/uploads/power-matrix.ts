@@ -12,6 +12,7 @@ import { looksNumeric, readNumber } from './cells';
 import { checkRowWidths, readCsvGrid } from './csv';
 import { DEFAULT_MAX_BYTES } from './decode';
 import { numberAt, type Column } from './fields';
+import { beyondScenarioLimit } from './limits';
 import { DEFAULT_TE_OVER_TP, plain, type PowerMatrixDevice } from './fragments';
 import { ErrorCollector, fileFailure, type UploadResult } from './result';
 
@@ -98,6 +99,8 @@ export function parsePowerMatrixCsv(
 			`Row ${headerRow.row} must list the wave periods ${periodName} (s) to the right of the top-left cell; it has none.`
 		);
 	}
+	const tooWide = beyondScenarioLimit('powerMatrixPeriodValues', headerCells.length - 1, 'period columns');
+	if (tooWide) return tooWide;
 	if (headerCells.length - 1 > maxColumns) {
 		return fileFailure(
 			`The matrix has ${headerCells.length - 1} period columns, more than the limit of ${maxColumns}.`
@@ -106,6 +109,8 @@ export function parsePowerMatrixCsv(
 	if (grid.rows.length === 1) {
 		return fileFailure(`The file has the period row (row ${headerRow.row}) but no Hs rows below it.`);
 	}
+	const tooTall = beyondScenarioLimit('powerMatrixHsValues', grid.rows.length - 1, 'Hs rows');
+	if (tooTall) return tooTall;
 
 	const errors = new ErrorCollector();
 	const periods: { text: string; value: number }[] = [];

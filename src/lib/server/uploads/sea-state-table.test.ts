@@ -106,3 +106,18 @@ describe('parseSeaStateTableCsv: bad files', () => {
 		expect(messages(csv('hs_m,te_s,hours', '1,6'))).toEqual(['Row 2: has 2 values but the header has 3 columns.']);
 	});
 });
+
+describe('parseSeaStateTableCsv: the scenario’s bound on sea states', () => {
+	const rows = (n: number) =>
+		csv('hs_m,te_s,probability', ...Array.from({ length: n }, (_, i) => `${(i % 40) * 0.25},${1 + Math.floor(i / 40) * 0.5},0.0005`));
+
+	it('takes as many sea states as a scenario does, and the result fits the schema', () => {
+		const result = parsed(rows(2000));
+		expect(result.data.states).toHaveLength(2000);
+		expect(resourceSchema.safeParse(result.data).success).toBe(true);
+	});
+
+	it('refuses one state more, in the schema’s words', () => {
+		expect(messages(rows(2001))).toEqual(['The file has 2,001 rows (one sea state each); a scenario takes at most 2000 sea states.']);
+	});
+});

@@ -9,6 +9,7 @@ import { Decimal } from '../engine/decimal';
 import { readCsvTable, resolveColumns } from './csv';
 import { DEFAULT_MAX_BYTES } from './decode';
 import { numberAt } from './fields';
+import { beyondScenarioLimit } from './limits';
 import { DEFAULT_TE_OVER_TP, plain, type SeaStateTableResource } from './fragments';
 import {
 	checkOccurrenceTotal,
@@ -63,6 +64,8 @@ export function parseSeaStateTableCsv(
 	});
 	if (!read.ok) return read;
 	const { table } = read;
+	const tooMany = beyondScenarioLimit('seaStates', table.rows.length, 'rows (one sea state each)');
+	if (tooMany) return tooMany;
 	const resolved = resolveColumns(
 		table,
 		{ required: ['hs_m'], oneOf: [['te_s', 'tp_s'], ['hours', 'probability']] },

@@ -137,3 +137,18 @@ describe('parseSpeedHistogramCsv: bad files', () => {
 		expect(messages(Uint8Array.from([0x25, 0x50, 0x44, 0x46, 0x2d, 0x31, 0x00]))[0]).toMatch(/PDF/);
 	});
 });
+
+describe('parseSpeedHistogramCsv: the scenario’s bound on speed bins', () => {
+	const rows = (n: number) => csv('speed_m_s,probability', ...Array.from({ length: n }, (_, i) => `${(i * 0.01).toFixed(2)},0.001`));
+
+	it('takes as many bins as a scenario does, and the result fits the schema', () => {
+		const result = parseSpeedHistogramCsv(rows(1000));
+		if (!result.ok) throw new Error(JSON.stringify(result.errors));
+		expect(result.data.bins).toHaveLength(1000);
+		expect(resourceSchema.safeParse(result.data).success).toBe(true);
+	});
+
+	it('refuses one bin more, in the schema’s words', () => {
+		expect(messages(rows(1001))).toEqual(['The file has 1,001 rows (one speed bin each); a scenario takes at most 1000 speed bins.']);
+	});
+});

@@ -8,6 +8,7 @@ import { Decimal, ZERO } from '../engine/decimal';
 import { readCsvTable, resolveColumns } from './csv';
 import { DEFAULT_MAX_BYTES } from './decode';
 import { numberAt, type Column } from './fields';
+import { beyondScenarioLimit } from './limits';
 import { plain, type SpeedHistogramResource } from './fragments';
 import {
 	checkOccurrenceTotal,
@@ -77,6 +78,8 @@ export function parseSpeedHistogramCsv(
 	});
 	if (!read.ok) return read;
 	const { table } = read;
+	const tooMany = beyondScenarioLimit('speedBins', table.rows.length, 'rows (one speed bin each)');
+	if (tooMany) return tooMany;
 	const resolved = resolveColumns(
 		table,
 		{ required: ['speed_m_s'], oneOf: [['hours', 'probability']] },

@@ -99,7 +99,7 @@ describe('parseTimeSeriesCsv: binning and summary', () => {
 
 	it('refuses a histogram of more than 1000 bins (speeds in cm/s, or bins far too narrow)', () => {
 		expect(messages(csv('timestamp,speed_m_s', '2025-01-01T00:00Z,0', '2025-01-01T00:10Z,150'))).toEqual([
-			'The speeds run from 0 to 150 m/s, which would need 1,501 bins of 0.1 m/s (at most 1000). Check the speeds are in m/s, not cm/s or mm/s, or choose wider bins.'
+			'The speeds run from 0 to 150 m/s, which would need 1,501 bins of 0.1 m/s; a scenario takes at most 1000 speed bins. Check the speeds are in m/s, not cm/s or mm/s, or choose wider bins.'
 		]);
 		expect(messages(SMALL, { binWidthMS: '0.0001' })[0]).toMatch(/would need 9,601 bins of 0\.0001 m\/s/);
 	});

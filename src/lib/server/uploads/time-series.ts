@@ -13,6 +13,7 @@ import { binIndexer, DEFAULT_BIN_WIDTH_M_S, type BinIndexer } from './binning';
 import { readCsvTable, resolveColumns, type CsvTable } from './csv';
 import { DEFAULT_MAX_BYTES } from './decode';
 import { numberAt, timestampAt, type Column } from './fields';
+import { atMost, SCENARIO_LIMITS } from '../../schemas/scenario-limits';
 import { plain, type SpeedHistogramResource } from './fragments';
 import { ErrorCollector, fileFailure, type UploadResult } from './result';
 
@@ -30,8 +31,8 @@ export const GAP_FACTOR = 1.5;
  */
 export const PLAUSIBLE_MAX_SPEED_M_S = 6;
 
-/** A histogram longer than this is a unit mistake (cm/s) or a bin width far too fine. */
-export const MAX_BINS = 1000;
+/** A histogram longer than the scenario takes is a unit mistake (cm/s) or a bin width far too fine. */
+export const MAX_BINS = SCENARIO_LIMITS.speedBins;
 
 /** Shorter records miss part of the lunar month's two spring-neap cycles (common practice). */
 const SHORT_RECORD_DAYS = 29.5;
@@ -251,7 +252,7 @@ export function parseTimeSeriesCsv(
 	if (!binned.ok) {
 		return fileFailure(
 			`The speeds run from ${slowest.speedText} to ${fastest.speedText} m/s, which would need ` +
-				`${binned.binCount.toLocaleString('en')} bins of ${plain(indexer.width)} m/s (at most ${MAX_BINS}). ` +
+				`${binned.binCount.toLocaleString('en')} bins of ${plain(indexer.width)} m/s; a scenario takes ${atMost('speedBins')}. ` +
 				'Check the speeds are in m/s, not cm/s or mm/s, or choose wider bins.'
 		);
 	}
