@@ -24,7 +24,7 @@ jq -r '.projects[] | "  \(.name) · \(.technology) · \(.id)"' <<<"$projects"
 
 for project in $(jq -r '.projects[].id' <<<"$projects"); do
 	# The base case, or the first live scenario when none is marked.
-	scenario=$(api "${base}/api/v1/projects/${project}/scenarios" | jq -r '(.scenarios | map(select(.isBaseCase)) + .scenarios)[0].id // empty')
+	scenario=$(api "${base}/api/v1/projects/${project}/scenarios" | jq -r '([.scenarios[] | select(.isBaseCase)] + .scenarios)[0].id // empty')
 	[ -n "$scenario" ] || continue
 	api -X POST "${base}/api/v1/scenarios/${scenario}/evaluate" | jq -r '
 		"Evaluated \(.result.scenarioName // "scenario") (revision \(.revision), engine \(.engineVersion)):",

@@ -157,6 +157,7 @@ const matrix: Row[] = [
 	{ route: '/app/account', method: 'POST', action: 'createToken', body: { form: { name: '' } }, expect: signedIn(400) },
 	{ route: '/app/account', method: 'POST', action: 'revokeToken', body: { form: { tokenId: 'nobody' } }, expect: signedIn(404) },
 	{ route: '/app/methods', method: 'GET', expect: signedIn(200) },
+	{ route: '/app/api', method: 'GET', expect: signedIn(200) },
 	{ route: '/app/methods/[slug]', method: 'GET', expect: signedIn(200) },
 	{ route: '/app/w/[workspaceId]', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/audit', method: 'GET', expect: page('owner') },
@@ -174,6 +175,7 @@ const matrix: Row[] = [
 
 	// API
 	{ route: '/api/v1/health', method: 'GET', expect: everyone(200) },
+	{ route: '/api/v1/openapi.json', method: 'GET', expect: everyone(200) },
 	{ route: '/api/v1/workspaces', method: 'GET', expect: { ...signedIn(200, 401), readToken: 200, writeToken: 200 } },
 	{ route: '/api/v1/workspaces/[workspaceId]/projects', method: 'GET', expect: api('viewer') },
 	{ route: '/api/v1/workspaces/[workspaceId]/projects', method: 'POST', body: badJson, expect: api('analyst', 422) },
@@ -229,7 +231,7 @@ async function analystToken(access: 'read' | 'read-write'): Promise<string> {
 }
 
 async function tokenClient(token: string): Promise<APIRequestContext> {
-	return requestFactory.newContext({ baseURL, extraHTTPHeaders: { authorization: `Bearer ${token}` } });
+	return requestFactory.newContext({ baseURL, extraHTTPHeaders: { authorization: `Bearer ${token}`, origin: baseURL } });
 }
 
 function fill(template: string): string {
@@ -365,7 +367,7 @@ test.describe('role x route matrix', () => {
 				const response = await send(persona, row);
 				actual[persona] = answerOf(response, expected[persona]);
 				if (row.after) await row.after(persona, response);
-				if (row.endsSessions) {
+				if (row.endsSessions && !(tokenPersonas as readonly string[]).includes(persona)) {
 					await clients[persona].dispose();
 					await signIn(persona);
 				}
@@ -385,13 +387,14 @@ test.describe('role x route matrix', () => {
 			'/api/v1/scenarios/not-a-uuid'
 		];
 		for (const path of paths) {
-			const actual = {} as Answers;
+			const actual = {} as Record<Caller, Answer>;
 			for (const persona of personas) actual[persona] = (await clients[persona].get(path, { maxRedirects: 0 })).status();
-			expect(actual, path).toEqual({ ...signedIn(404, 401) });
+			expect(actual, path).toEqual({ ...signedIn(404, 401), readToken: 404, writeToken: 404 });
 		}
-		const actual = {} as Answers;
+		const actual = {} as Record<Caller, Answer>;
 		for (const persona of personas) actual[persona] = answerOf(await clients[persona].get(`/app/w/${nowhere}`, { maxRedirects: 0 }), toSignIn);
-		expect(actual, '/app/w/<no such workspace>').toEqual(signedIn(404));
+		// On pages a token is nobody: sent to sign in.
+		expect(actual, '/app/w/<no such workspace>').toEqual({ ...signedIn(404), readToken: toSignIn, writeToken: toSignIn });
 	});
 
 	test('the outsider\u2019s own workspace stays closed to workspace A\u2019s members', async () => {
@@ -401,6 +404,10 @@ test.describe('role x route matrix', () => {
 			expect((await clients[persona].get(`/app/w/${workspaceB}`, { maxRedirects: 0 })).status(), persona).toBe(404);
 		}
 		expect((await clients.outsider.get(`/api/v1/workspaces/${workspaceB}/projects`)).status()).toBe(200);
+		// A's tokens reach nothing of B's either.
+		for (const persona of tokenPersonas) {
+			expect((await clients[persona].get(`/api/v1/workspaces/${workspaceB}/projects`)).status(), persona).toBe(404);
+		}
 		// A's project under B's address is no way in for B's owner.
 		const crossed = await clients.outsider.get(`/app/w/${workspaceB}/projects/${ids.projectId}/compare`, { maxRedirects: 0 });
 		expect(crossed.status()).toBe(404);
