@@ -5,12 +5,18 @@ import { SESSION_COOKIE, deleteSessionCookie, setSessionCookie, validateSessionT
 import { authenticateApiToken, bearerToken, recordTokenRequest, takeTokenRequest } from '$lib/server/auth/api-tokens';
 import { anonymous } from '$lib/server/auth/principal';
 import { apiError } from '$lib/server/api';
-import { checkSettings, cookiesAreSecure } from '$lib/server/settings';
+import { SettingsError, checkSettings, cookiesAreSecure } from '$lib/server/settings';
 import { devInboxEnabled } from '$lib/server/mail/dev-inbox';
 
-/** Stops the start when a setting is missing or malformed, naming it. */
+/** Stops the start when a setting is missing or malformed, naming each one. */
 export const init: ServerInit = () => {
-	checkSettings();
+	try {
+		checkSettings();
+	} catch (e) {
+		if (!(e instanceof SettingsError)) throw e;
+		console.error(e.message);
+		process.exit(78); // EX_CONFIG: a configuration error, not a crash
+	}
 };
 
 function isApiPath(path: string) {
