@@ -14,13 +14,19 @@ interface Outcome {
 
 const chromiumPath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
-function ensureChromium() {
-	if (existsSync(chromiumPath)) return;
+/** Debian packages the browser tests use: Chromium, and jq for the worked API example in docs/. */
+function ensureDebianPackages() {
+	const missing = [
+		{ path: chromiumPath, pkg: 'chromium' },
+		{ path: '/usr/bin/jq', pkg: 'jq' }
+	].filter((need) => !existsSync(need.path));
+	if (missing.length === 0) return;
+	const names = missing.map((m) => m.pkg);
 	if (process.getuid?.() !== 0) {
-		throw new Error(`Chromium was not found at ${chromiumPath}. Install it with: sudo apt-get install -y chromium`);
+		throw new Error(`Missing: ${names.join(', ')}. Install with: sudo apt-get install -y ${names.join(' ')}`);
 	}
-	console.log('[test] installing Debian package chromium (apt-get)…');
-	for (const args of [['update', '-qq'], ['install', '-y', '-qq', 'chromium']]) {
+	console.log(`[test] installing Debian packages ${names.join(', ')} (apt-get)…`);
+	for (const args of [['update', '-qq'], ['install', '-y', '-qq', ...names]]) {
 		const result = spawnSync('apt-get', args, { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
 		if (result.status !== 0) throw new Error(`apt-get ${args.join(' ')} failed`);
 	}
@@ -71,7 +77,7 @@ async function main() {
 	const outcomes: Outcome[] = [];
 	outcomes.push(await runStep('svelte-check', 'npm', ['run', '--silent', 'check'], countSvelteCheck));
 	outcomes.push(await runStep('vitest (unit + integration)', 'npx', ['vitest', 'run'], countVitest));
-	ensureChromium();
+	ensureDebianPackages();
 	outcomes.push(await runStep('playwright (Chromium)', 'npx', ['playwright', 'test'], countPlaywright));
 
 	console.log('\n[test] ── summary ──');
