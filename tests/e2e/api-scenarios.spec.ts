@@ -165,6 +165,30 @@ test.describe('scenarios API', () => {
 		await expectError(await clients.analyst.put(put, { headers: { 'content-type': 'application/json' }, data: Buffer.from('not json') }), 400);
 	});
 
+	test('refuses a misspelt key with its path and the key probably meant, on create, save and evaluate', async () => {
+		const misspelt = { ...tidalInput, array: { ...tidalInput.array, availabilty: 0.5 } };
+		const expected = [{ path: 'document.array.availabilty', message: '"availabilty" is not a field here; did you mean "availability"?' }];
+		const created = await expectError(await clients.analyst.post(`/api/v1/projects/${project.id}/scenarios`, { data: { name: 'Typo', document: misspelt } }), 422);
+		expect(created.error.issues).toEqual(expected);
+		const scenario = await newScenario(clients.analyst, project.id);
+		const saved = await expectError(await clients.analyst.put(`/api/v1/scenarios/${scenario.id}`, { data: { revision: 1, document: misspelt } }), 422);
+		expect(saved.error.issues).toEqual(expected);
+		const evaluated = await expectError(await clients.analyst.post(`/api/v1/scenarios/${scenario.id}/evaluate`, { data: { document: misspelt } }), 422);
+		expect(evaluated.error.issues).toEqual(expected);
+	});
+
+	test('takes a version 1 document, saving it in the current version with the same meaning', async () => {
+		const version1 = { ...tidalInput, schemaVersion: 1, decommissioning: { basis: 'percent-of-capex', amount: 0.05 } };
+		const created = await newScenario(clients.analyst, project.id, { name: 'From version 1', document: version1 });
+		expect(created.document.schemaVersion).toBe(2);
+		expect(created.document.decommissioning).toEqual({ basis: 'percent-of-capex', fraction: 0.05 });
+		const newer = await expectError(
+			await clients.analyst.post(`/api/v1/projects/${project.id}/scenarios`, { data: { name: 'From the future', document: { ...tidalInput, schemaVersion: 3 } } }),
+			422
+		);
+		expect(issuePaths(newer)).toEqual(['document.schemaVersion']);
+	});
+
 	test('viewers cannot write, outsiders see nothing, anonymous callers must sign in', async () => {
 		const scenario = await newScenario(clients.analyst, project.id);
 		const writes = [
