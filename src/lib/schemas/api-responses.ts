@@ -76,7 +76,9 @@ export const scenarioListItemJsonSchema = scenarioSummaryJsonSchema.extend({
 });
 
 export const scenarioJsonSchema = scenarioSummaryJsonSchema.extend({
-	document: scenarioSchema.describe('The scenario document as saved')
+	document: scenarioSchema.describe('The scenario document in the current format (an older stored one is upgraded in the answer, not in storage)'),
+	upgradedFrom: z.number().int().nullable().describe('The format version the stored document was upgraded from for this answer; null when stored in the current format'),
+	upgradeNotes: z.array(z.string()).describe('What the upgrade changed, field by field; empty when nothing was upgraded')
 });
 
 export const revisionJsonSchema = z.object({
