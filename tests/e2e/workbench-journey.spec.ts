@@ -82,7 +82,7 @@ test('an analyst creates a project, uploads a time series into a new scenario, e
 	await shotOf(page, '[data-testid="results"]', '3-results');
 	await shotOf(page, 'section[aria-labelledby="cash-flow-title"]', '3-cash-flow');
 	const lcoeBefore = (await metric(page, 'lcoeReal').textContent())?.trim();
-	expect(lcoeBefore).toMatch(/^\d[\d,]*\.\d$/);
+	expect(lcoeBefore).toMatch(/^\d[\d,]*\.\d\d$/);
 
 	const amount = page.getByRole('spinbutton', { name: 'Amount of capex line 1', exact: true });
 	const firstAmount = Number(await amount.inputValue());
