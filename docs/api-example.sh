@@ -22,14 +22,22 @@ projects=$(api "${base}/api/v1/workspaces/${workspace}/projects")
 echo "Projects in $(jq -r '.workspace.name' <<<"$projects"):"
 jq -r '.projects[] | "  \(.name) · \(.technology) · \(.id)"' <<<"$projects"
 
-for project in $(jq -r '.projects[].id' <<<"$projects"); do
+# The API gives every figure as an exact decimal string; jq rounds them here for reading only.
+figures='def shown(p): if . == null then "n/a" else (tonumber * pow(10; p) | round) / pow(10; p) | tostring end;
+	def percent: if . == null then "n/a" else (tonumber * 100 | shown(2)) + " %" end;
+	"  \(.result.scenarioName), revision \(.revision) (engine \(.engineVersion)):",
+	"    LCOE, real               \(.result.metrics.lcoeReal | shown(2)) \(.result.currency)/MWh",
+	"    Equity IRR               \(.result.metrics.equityIrr | percent)",
+	"    Minimum DSCR             \(.result.metrics.minDscr | shown(2))",
+	"    Net annual energy, P50   \(.result.metrics.netAepMWh | shown(0)) MWh/yr"'
+
+jq -r '.projects[] | "\(.id)\t\(.name)"' <<<"$projects" | while IFS=$'\t' read -r project name; do
 	# The base case, or the first live scenario when none is marked.
 	scenario=$(api "${base}/api/v1/projects/${project}/scenarios" | jq -r '([.scenarios[] | select(.isBaseCase)] + .scenarios)[0].id // empty')
-	[ -n "$scenario" ] || continue
-	api -X POST "${base}/api/v1/scenarios/${scenario}/evaluate" | jq -r '
-		"Evaluated \(.result.scenarioName // "scenario") (revision \(.revision), engine \(.engineVersion)):",
-		"  LCOE, real         \(.result.metrics.lcoeReal // "n/a") \(.result.currency)/MWh",
-		"  Equity IRR         \(.result.metrics.equityIrr // "n/a")",
-		"  Minimum DSCR       \(.result.metrics.minDscr // "n/a")",
-		"  Net annual energy  \(.result.metrics.netAepMWh // "n/a") MWh (P50)"'
+	if [ -z "$scenario" ]; then
+		echo "${name}: no scenarios yet"
+		continue
+	fi
+	echo "${name}:"
+	api -X POST "${base}/api/v1/scenarios/${scenario}/evaluate" | jq -r "$figures"
 done

@@ -2,7 +2,7 @@ import { redirect, type Handle, type HandleServerError, type ServerInit } from '
 import { sequence } from '@sveltejs/kit/hooks';
 import { randomUUID } from 'node:crypto';
 import { SESSION_COOKIE, deleteSessionCookie, setSessionCookie, validateSessionToken } from '$lib/server/auth/session';
-import { authenticateApiToken, bearerToken, recordTokenRequest, takeTokenRequest } from '$lib/server/auth/api-tokens';
+import { authenticateApiToken, bearerToken, recordRefusedToken, recordTokenRequest, takeTokenRequest } from '$lib/server/auth/api-tokens';
 import { anonymous } from '$lib/server/auth/principal';
 import { apiError } from '$lib/server/api';
 import { SettingsError, checkSettings, cookiesAreSecure } from '$lib/server/settings';
@@ -38,6 +38,9 @@ const authenticate: Handle = async ({ event, resolve }) => {
 	if (bearer !== null) {
 		const outcome = await authenticateApiToken(bearer);
 		if (!outcome.ok) {
+			if (outcome.known) {
+				await recordRefusedToken(outcome.known, { method: event.request.method, path: event.url.pathname, ip: event.getClientAddress() });
+			}
 			const response = apiError(401, outcome.message);
 			response.headers.set('www-authenticate', 'Bearer error="invalid_token"');
 			return response;

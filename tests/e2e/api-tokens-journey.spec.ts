@@ -36,7 +36,8 @@ test('a token made in the browser drives the worked example script, and stops wh
 
 	const { stdout } = await run('bash', ['docs/api-example.sh'], { env: { ...process.env, TIDEWRIGHT_TOKEN: token, TIDEWRIGHT_URL: baseURL } });
 	expect(stdout).toContain('Projects in Halvard Marine Energy:');
-	expect(stdout).toMatch(/Evaluated .+ \(revision \d+, engine \d+\):/);
+	expect(stdout).toMatch(/^  .+, revision \d+ \(engine \d+\):$/m);
+	expect(stdout).toMatch(/Equity IRR\s+\d+(\.\d+)? %/);
 	expect(stdout).toMatch(/LCOE, real\s+\d+(\.\d+)? EUR\/MWh/);
 	expect(stdout).not.toContain('Corvane');
 
@@ -62,11 +63,15 @@ test('a token made in the browser drives the worked example script, and stops wh
 	const owner = await newSignedInPage(browser, 'owner');
 	await openPage(owner, '/app');
 	const workspacePath = new URL(owner.url()).pathname;
-	await openPage(owner, `${workspacePath}/audit`);
+	await openPage(owner, `${workspacePath}/audit?group=tokens`);
 	const log = owner.getByRole('table', { name: 'Security events' });
 	await expect(log).toContainText('Called the API with a token');
+	await expect(log).toContainText(/GET \/api\/v1\/workspaces → 200 with token "Example script"/);
 	await expect(log).toContainText('Created an API token');
 	await expect(log).toContainText('Revoked an API token');
+	// The revoked token's later call is refused and logged too.
+	await expect(log).toContainText(/refused: token "Example script" is revoked/);
+	await expect(log).not.toContainText('Signed in');
 	await page.context().close();
 	await owner.context().close();
 });

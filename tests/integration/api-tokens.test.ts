@@ -98,7 +98,9 @@ describe('authenticateApiToken', () => {
 		const eightDaysOn = new Date(Date.now() + 8 * 24 * 3600 * 1000);
 		expect(await authenticateApiToken(token, eightDaysOn)).toMatchObject({ ok: false, message: expect.stringMatching(/expired/) });
 		expect(await revokeApiToken(owner.id, id)).toBeDefined();
-		expect(await authenticateApiToken(token)).toMatchObject({ ok: false, message: expect.stringMatching(/revoked/) });
+		// A refusal of a token the workspace issued names it, so the security log can record the attempt.
+		expect(await authenticateApiToken(token)).toMatchObject({ ok: false, message: expect.stringMatching(/revoked/), known: { tokenId: id, workspaceId: workspace.id, reason: 'revoked' } });
+		expect(await authenticateApiToken(`tw_${'b'.repeat(32)}`)).not.toHaveProperty('known');
 		expect(await revokeApiToken(owner.id, id)).toBeUndefined();
 	});
 

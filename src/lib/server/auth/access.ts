@@ -36,7 +36,7 @@ export function principalOf(event: Pick<RequestEvent, 'locals'>): Principal {
 }
 
 function refuseAnonymous(event: AccessEvent): never {
-	if (isApiRequest(event)) error(401, 'Sign in, or send a personal API token as `Authorization: Bearer tw_...`.');
+	if (isApiRequest(event)) error(401, 'Sign in, or send a personal API token in the header Authorization: Bearer tw_...');
 	redirect(303, `/signin?next=${encodeURIComponent(event.url.pathname + event.url.search)}`);
 }
 

@@ -68,16 +68,29 @@ export function bearerToken(request: Request): string | null {
 	return match ? match[1] : '';
 }
 
-export type TokenAuthentication = { ok: true; principal: ApiTokenPrincipal } | { ok: false; message: string };
+/** A refusal of a token the database knows (revoked, expired, orphaned) names it, so the refusal can be logged. */
+export type TokenAuthentication =
+	| { ok: true; principal: ApiTokenPrincipal }
+	| { ok: false; message: string; known?: { tokenId: string; tokenName: string; workspaceId: string; userId: string; email: string; reason: string } };
 
 export async function authenticateApiToken(token: string, now = new Date()): Promise<TokenAuthentication> {
-	const invalid = { ok: false as const, message: 'This API token is not valid. Create one on your account page and send it as `Authorization: Bearer tw_...`.' };
+	const invalid = { ok: false as const, message: 'This API token is not valid. Create one on your account page and send it in the header Authorization: Bearer tw_...' };
 	if (!tokenPattern.test(token)) return invalid;
 	const holder = await findTokenHolder(hashToken(token));
 	if (!holder) return invalid;
-	if (holder.revokedAt) return { ok: false, message: 'This API token was revoked.' };
-	if (now.getTime() >= new Date(holder.expiresAt).getTime()) return { ok: false, message: 'This API token has expired. Create a new one on your account page.' };
-	if (!holder.role) return { ok: false, message: 'The owner of this API token is no longer a member of its workspace.' };
+	const known = (reason: string) => ({
+		tokenId: holder.tokenId,
+		tokenName: holder.tokenName,
+		workspaceId: holder.workspaceId,
+		userId: holder.user.id,
+		email: holder.user.email,
+		reason
+	});
+	if (holder.revokedAt) return { ok: false, message: 'This API token was revoked.', known: known('revoked') };
+	if (now.getTime() >= new Date(holder.expiresAt).getTime()) {
+		return { ok: false, message: 'This API token has expired. Create a new one on your account page.', known: known('expired') };
+	}
+	if (!holder.role) return { ok: false, message: 'The owner of this API token is no longer a member of its workspace.', known: known('member left') };
 	return {
 		ok: true,
 		principal: {
@@ -108,6 +121,21 @@ export async function takeTokenRequest(tokenId: string): Promise<{ allowed: true
 		if (rejection instanceof RateLimiterRes) return { allowed: false, retryAfterSeconds: Math.max(1, Math.ceil(rejection.msBeforeNext / 1000)) };
 		throw rejection;
 	}
+}
+
+/** A refused call with a token the workspace once issued: worth a line in its security log. */
+export async function recordRefusedToken(
+	known: NonNullable<Extract<TokenAuthentication, { ok: false }>['known']>,
+	request: { method: string; path: string; ip: string }
+): Promise<void> {
+	await recordAuditEvent({
+		event: 'api-token-refused',
+		workspaceId: known.workspaceId,
+		actorUserId: known.userId,
+		actorEmail: known.email,
+		ip: request.ip,
+		detail: { token: known.tokenName, tokenId: known.tokenId, reason: known.reason, method: request.method, path: request.path, status: 401 }
+	});
 }
 
 /** The audit line for one token request, and the token's last use. */

@@ -20,7 +20,8 @@ export type AuditEventName =
 	| 'invitation-accepted'
 	| 'api-token-created'
 	| 'api-token-revoked'
-	| 'api-token-used';
+	| 'api-token-used'
+	| 'api-token-refused';
 
 export interface AuditInput {
 	event: AuditEventName;
@@ -42,18 +43,35 @@ export async function recordAuditEvent(input: AuditInput, knex: Knex = db()): Pr
 	});
 }
 
+/** The security log's groups of events, for its filter. */
+export const auditEventGroups = {
+	accounts: ['sign-in', 'sign-in-failed', 'sign-in-blocked', 'sign-out', 'sign-out-everywhere', 'sign-up', 'email-verified', 'password-reset-requested', 'password-reset', 'password-changed'],
+	members: ['role-changed', 'member-removed', 'member-left', 'invitation-sent', 'invitation-revoked', 'invitation-accepted'],
+	tokens: ['api-token-created', 'api-token-revoked', 'api-token-used', 'api-token-refused']
+} as const satisfies Record<string, readonly AuditEventName[]>;
+export type AuditEventGroup = keyof typeof auditEventGroups;
+
+export function isAuditEventGroup(value: string): value is AuditEventGroup {
+	return Object.hasOwn(auditEventGroups, value);
+}
+
 /**
  * Events an owner may read: those recorded against the workspace, plus the
- * account events (sign-in, password) of its current members.
+ * account events (sign-in, password) of its current members; optionally one group only.
  */
-export async function listAuditEventsForWorkspace(workspaceId: string, limit = 200, knex: Knex = db()) {
-	return knex('audit_events')
+export async function listAuditEventsForWorkspace(workspaceId: string, options: { limit?: number; group?: AuditEventGroup } = {}, knex: Knex = db()) {
+	const query = knex('audit_events')
 		.select('id', 'event', 'actor_email', 'ip', 'detail', 'created_at')
-		.where('workspace_id', workspaceId)
-		.orWhere((q) =>
-			q.whereNull('workspace_id').whereIn('actor_user_id', knex('memberships').select('user_id').where({ workspace_id: workspaceId }))
-		)
+		.where((scope) =>
+			scope
+				.where('workspace_id', workspaceId)
+				.orWhere((q) =>
+					q.whereNull('workspace_id').whereIn('actor_user_id', knex('memberships').select('user_id').where({ workspace_id: workspaceId }))
+				)
+		);
+	if (options.group) query.whereIn('event', auditEventGroups[options.group]);
+	return query
 		.orderBy('created_at', 'desc')
 		.orderBy('id', 'desc')
-		.limit(limit);
+		.limit(options.limit ?? 200);
 }
