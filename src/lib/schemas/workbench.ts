@@ -15,21 +15,23 @@ const currency = z
 	.regex(/^[A-Z]{3}$/, 'currency must be a three-letter code such as EUR');
 
 export const createProjectBody = z.strictObject({
-	name: projectName,
-	technology: z.enum(technologies, { message: 'technology must be tidal-stream, ocean-current or wave' }),
-	siteName: z.string().trim().max(200).default(''),
-	siteDescription: z.string().trim().max(4000).default(''),
-	currency: currency.default('EUR')
+	name: projectName.describe('Project name, as shown in lists'),
+	technology: z
+		.enum(technologies, { message: 'technology must be tidal-stream, ocean-current or wave' })
+		.describe('The kind of device the project uses; it cannot change later'),
+	siteName: z.string().trim().max(200).default('').describe('Name of the site, such as a sound or a stretch of coast'),
+	siteDescription: z.string().trim().max(4000).default('').describe('Free text about the site: depth, seabed, grid connection, access'),
+	currency: currency.default('EUR').describe("Three-letter currency code of the project's money figures")
 });
 export type CreateProjectBody = z.output<typeof createProjectBody>;
 
 /** The technology is fixed once a project exists: its scenarios are built for it. */
 export const updateProjectBody = z
 	.strictObject({
-		name: projectName.optional(),
-		siteName: z.string().trim().max(200).optional(),
-		siteDescription: z.string().trim().max(4000).optional(),
-		currency: currency.optional()
+		name: projectName.optional().describe('New project name, as shown in lists'),
+		siteName: z.string().trim().max(200).optional().describe('New name of the site'),
+		siteDescription: z.string().trim().max(4000).optional().describe('New free text about the site, replacing the old'),
+		currency: currency.optional().describe("New three-letter currency code of the project's money figures")
 	})
 	.refine((body) => Object.values(body).some((v) => v !== undefined), {
 		message: 'nothing to change: give at least one field',
@@ -46,17 +48,21 @@ const notes = z.string().max(10_000);
  * project's starter document for its technology is used.
  */
 export const createScenarioBody = z.strictObject({
-	name: scenarioName,
-	notes: notes.default(''),
-	document: z.unknown().optional()
+	name: scenarioName.describe('Scenario name, as shown in lists and comparisons'),
+	notes: notes.default('').describe('Free-text notes: sources, assumptions, open questions'),
+	document: z.unknown().optional().describe("The scenario document; leave it out to start from the example of the project's technology")
 });
 
 export const updateScenarioBody = z
 	.strictObject({
-		revision: z.number({ message: 'revision is required: the revision you were editing' }).int().min(1),
-		name: scenarioName.optional(),
-		notes: notes.optional(),
-		document: z.unknown().optional()
+		revision: z
+			.number({ message: 'revision is required: the revision you were editing' })
+			.int()
+			.min(1)
+			.describe('The revision you were editing; a save against an older one is refused with 409'),
+		name: scenarioName.optional().describe('New scenario name'),
+		notes: notes.optional().describe('New notes, replacing the old'),
+		document: z.unknown().optional().describe('The whole scenario document as it should be saved')
 	})
 	.refine((body) => body.name !== undefined || body.notes !== undefined || body.document !== undefined, {
 		message: 'nothing to save: give name, notes or document',
@@ -64,14 +70,21 @@ export const updateScenarioBody = z
 	});
 
 export const duplicateScenarioBody = z.strictObject({
-	name: scenarioName.optional(),
-	notes: notes.optional()
+	name: scenarioName.optional().describe('Name of the copy; without it, the original name followed by "(copy)"'),
+	notes: notes.optional().describe("Notes of the copy; without them, the original's notes")
 });
 
-export const evaluateBody = z.strictObject({ document: z.unknown().optional() });
+export const evaluateBody = z.strictObject({
+	document: z.unknown().optional().describe('An unsaved draft to calculate instead of the saved scenario; leave it out to use the saved one')
+});
 
 export const applyUploadBody = z.strictObject({
-	revision: z.number().int().min(1).optional()
+	revision: z
+		.number()
+		.int()
+		.min(1)
+		.optional()
+		.describe('The revision of the scenario you looked at; when it has moved on since, the change is refused with 409')
 });
 
 export const uploadKinds = [
