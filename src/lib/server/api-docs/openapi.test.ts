@@ -155,10 +155,22 @@ describe('buildOpenApiDocument', () => {
 	});
 
 	it('answers refusals with the one error shape', () => {
-		const refusal = document.paths['/api/v1/scenarios/{scenarioId}'].put.responses['409'] as { $ref: string };
+		const refusal = document.paths['/api/v1/scenarios/{scenarioId}'].put.responses['404'] as { $ref: string };
 		const response = resolvePointer(document, refusal.$ref) as { content: Record<string, { schema: { $ref: string } }> };
 		expect(response.content['application/json'].schema.$ref).toBe('#/components/schemas/Error');
 		expect(resolvePointer(document, '#/components/schemas/Error/properties/error/properties/issues/type')).toBe('array');
+	});
+
+	it("describes each 409 in the operation's own words, in the one error shape", () => {
+		const conflictOf = (path: string, method: string) =>
+			document.paths[path][method].responses['409'] as { description: string; content: Record<string, { schema: { $ref: string } }> };
+		const save = conflictOf('/api/v1/scenarios/{scenarioId}', 'put');
+		const remove = conflictOf('/api/v1/scenarios/{scenarioId}', 'delete');
+		expect(save.description).toMatch(/currentRevision/);
+		expect(remove.description).toMatch(/archive it first/);
+		expect(remove.description).not.toMatch(/currentRevision/);
+		expect(remove.content['application/json'].schema.$ref).toBe('#/components/schemas/Error');
+		expect(document.components.responses).not.toHaveProperty('Conflict');
 	});
 });
 

@@ -56,12 +56,12 @@ export interface OpenApiOptions {
 
 const schemaRef = (name: string) => `#/components/schemas/${name}`;
 
-const errorResponses: Record<ErrorStatus, { name: string; description: string }> = {
+/** The refusals that mean the same for every operation; a 409 is described by each operation (ApiOperation.conflict). */
+const errorResponses: Record<Exclude<ErrorStatus, 409>, { name: string; description: string }> = {
 	400: { name: 'BadRequest', description: 'The body could not be read (not JSON, or missing where one is needed)' },
 	401: { name: 'Unauthorized', description: 'Not signed in, or the API token is unknown, expired or revoked' },
 	403: { name: 'Forbidden', description: 'Your role in the workspace is too low, or the API token may not do this' },
 	404: { name: 'NotFound', description: 'No such thing, or it is in a workspace you are not a member of (the two answer alike)' },
-	409: { name: 'Conflict', description: 'The scenario changed since you read it (currentRevision says where it is now), or it is archived' },
 	413: { name: 'PayloadTooLarge', description: 'The file is over the upload limit' },
 	415: { name: 'UnsupportedMediaType', description: 'The upload was not sent as multipart/form-data' },
 	422: { name: 'UnprocessableContent', description: 'Some fields, parameters or rows have problems; issues name each one' },
@@ -138,6 +138,13 @@ function successResponse(spec: ResponseSpec, nameOf: Map<z.ZodType, string>) {
 	return { description: spec.description };
 }
 
+/** A refusal of one operation: a $ref to the shared response, or the operation's own words for a 409. */
+function errorResponse(op: ApiOperation, status: ErrorStatus) {
+	if (status !== 409) return { $ref: `#/components/responses/${errorResponses[status].name}` };
+	if (op.conflict === undefined) throw new Error(`${op.operationId}: a 409 needs the operation's own words in conflict`);
+	return { description: op.conflict, content: { 'application/json': { schema: { $ref: schemaRef('Error') } } } };
+}
+
 function securityOf(op: ApiOperation): Record<string, string[]>[] {
 	if (op.minimumRole === 'anyone') return [];
 	if (op.apiToken === 'refused' || op.apiToken === 'not-needed') return [{ cookieAuth: [] }];
@@ -181,7 +188,7 @@ export function buildOpenApiDocument(operations: readonly ApiOperation[], option
 	for (const op of operations) {
 		const answers: Record<string, unknown> = {};
 		for (const spec of [op.response, ...(op.otherResponses ?? [])]) answers[String(spec.status)] = successResponse(spec, responses.nameOf);
-		for (const status of errorStatusesOf(op)) answers[String(status)] = { $ref: `#/components/responses/${errorResponses[status].name}` };
+		for (const status of errorStatusesOf(op)) answers[String(status)] = errorResponse(op, status);
 
 		const entry: OpenApiOperation = {
 			operationId: op.operationId,

@@ -110,7 +110,9 @@ export interface ApiOperation {
 	/** Other answers that are not refusals (the health check's 503). */
 	otherResponses?: ResponseSpec[];
 	/** Refusals beyond those that follow from the role, the body and the path (see errorStatusesOf). */
-	otherErrors?: ErrorStatus[];
+	otherErrors?: Exclude<ErrorStatus, 409>[];
+	/** What a 409 means for this operation, in its own words; an operation without it never answers 409. */
+	conflict?: string;
 }
 
 /** Path placeholders, the same wherever they appear. */
@@ -383,7 +385,8 @@ export const apiOperations: ApiOperation[] = [
 		apiToken: 'read-write',
 		requestBody: jsonBody(withScenarioDocument(updateScenarioBody, 'The whole scenario document as it should be saved.'), true),
 		response: { status: 200, description: 'The scenario at its new revision', json: scenarioEnvelope },
-		otherErrors: [409]
+		conflict:
+			'Someone saved the scenario since the revision you sent (currentRevision says where it is now), or it is archived and must be restored first; nothing was saved'
 	},
 	{
 		operationId: 'deleteScenario',
@@ -395,7 +398,7 @@ export const apiOperations: ApiOperation[] = [
 		minimumRole: 'owner',
 		apiToken: 'read-write',
 		response: { status: 204, description: 'Deleted' },
-		otherErrors: [409]
+		conflict: 'The scenario is not archived: archive it first, then delete it'
 	},
 	{
 		operationId: 'archiveScenario',
@@ -418,7 +421,7 @@ export const apiOperations: ApiOperation[] = [
 		minimumRole: 'analyst',
 		apiToken: 'read-write',
 		response: { status: 200, description: 'The scenario, now the base case', json: scenarioEnvelope },
-		otherErrors: [409]
+		conflict: 'The scenario is archived: restore it before making it the base case'
 	},
 	{
 		operationId: 'duplicateScenario',
@@ -551,7 +554,8 @@ export const apiOperations: ApiOperation[] = [
 			description: 'The scenario at its new revision and the section that changed',
 			json: z.object({ scenario: scenarioJsonSchema, section: z.enum(['resource', 'device']) })
 		},
-		otherErrors: [409]
+		conflict:
+			'The scenario moved on since the revision you sent (currentRevision says where it is now), or it is archived and must be restored first; nothing was changed'
 	},
 	{
 		operationId: 'downloadUploadFile',
@@ -575,11 +579,12 @@ export function pathPlaceholders(path: string): string[] {
 /**
  * The refusals an operation can answer with: 401 once sign-in is needed,
  * 404 for anything named in the path, 403 for a role above viewer or a
- * read-write token, 400/422 for a body, 429 for token rate limits, and the
- * operation's own.
+ * read-write token, 400/422 for a body, 429 for token rate limits, 409 where
+ * the operation says what a conflict means, and the operation's own.
  */
 export function errorStatusesOf(op: ApiOperation): ErrorStatus[] {
 	const statuses = new Set<ErrorStatus>(op.otherErrors ?? []);
+	if (op.conflict !== undefined) statuses.add(409);
 	if (op.minimumRole !== 'anyone') statuses.add(401);
 	if (roleRank[op.minimumRole] > roleRank.viewer || op.apiToken === 'read-write') statuses.add(403);
 	if (pathPlaceholders(op.path).length > 0) statuses.add(404);

@@ -17,6 +17,7 @@ describe('schemaTypeLabel', () => {
 		expect(schemaTypeLabel({ type: 'integer' })).toBe('whole number');
 		expect(schemaTypeLabel({ type: 'string', enum: ['csv', 'xlsx'] })).toBe('one of: csv, xlsx');
 		expect(schemaTypeLabel({ type: 'array', items: { type: 'number' } })).toBe('list of number');
+		expect(schemaTypeLabel({ type: 'array', items: { type: 'object', properties: { low: { type: 'number' } } } })).toBe('list of objects');
 		expect(schemaTypeLabel({ $ref: '#/components/schemas/ScenarioDocumentInput' })).toBe('scenario document');
 		expect(schemaTypeLabel({ anyOf: [{ $ref: '#/components/schemas/DecimalString' }, { type: 'null' }] })).toBe('decimal string or null');
 		expect(schemaTypeLabel({ type: 'string', format: 'binary' })).toBe('file');
@@ -53,6 +54,29 @@ describe('objectFields', () => {
 		expect(fields[0]).toMatchObject({ name: 'document', type: 'scenario document', required: false });
 		expect(fields[0].description).toMatch(/unsaved draft/);
 	});
+
+	it('writes out the fields of each item of a list of objects', () => {
+		const fields = objectFields({ $ref: '#/components/schemas/RunTornadoRequest' }, document.components.schemas);
+		const drivers = fields.find((f) => f.name === 'drivers')!;
+		expect(drivers.type).toBe('list of objects');
+		expect(drivers.itemFields.map((f) => [f.name, f.type, f.required])).toEqual([
+			['driver', expect.stringMatching(/^one of: capex, opex, /), true],
+			['low', 'number', true],
+			['high', 'number', true]
+		]);
+		expect(drivers.itemFields.every((f) => f.description !== '')).toBe(true);
+		expect(fields.find((f) => f.name === 'metric')!.itemFields).toEqual([]);
+	});
+
+	it('leaves no field of any request body without a description', () => {
+		const bodies = Object.values(document.paths).flatMap((item) =>
+			Object.values(item).flatMap((op) => (op.requestBody ? [{ id: op.operationId, schema: Object.values(op.requestBody.content)[0].schema }] : []))
+		);
+		expect(bodies.length).toBeGreaterThan(8);
+		const undescribed = (fields: ReturnType<typeof objectFields>, prefix: string): string[] =>
+			fields.flatMap((f) => [...(f.description === '' ? [`${prefix}${f.name}`] : []), ...undescribed(f.itemFields, `${prefix}${f.name}[].`)]);
+		expect(bodies.flatMap(({ id, schema }) => undescribed(objectFields(schema, document.components.schemas), `${id}: `))).toEqual([]);
+	});
 });
 
 describe('apiReference', () => {
@@ -69,7 +93,7 @@ describe('apiReference', () => {
 		expect(save.tokens).toBe('Read-write API tokens only');
 		expect(save.parameters).toEqual([expect.objectContaining({ name: 'scenarioId', where: 'path', type: 'id (uuid)', required: true })]);
 		expect(save.body?.fields.find((f) => f.name === 'revision')).toMatchObject({ type: 'whole number', required: true });
-		expect(save.errors.find((e) => e.status === 409)?.description).toMatch(/changed since you read it/);
+		expect(save.errors.find((e) => e.status === 409)?.description).toMatch(/saved the scenario since the revision you sent/);
 
 		const exported = groups.flatMap((g) => g.operations).find((op) => op.operationId === 'exportScenario')!;
 		expect(exported.parameters.map((p) => [p.name, p.where, p.type])).toEqual([
@@ -78,5 +102,16 @@ describe('apiReference', () => {
 			['table', 'query', 'one of: cash-flow, metrics']
 		]);
 		expect(exported.body).toBeNull();
+	});
+
+	it("gives each operation's 409 its own words", () => {
+		const conflicts = groups.flatMap((g) => g.operations).flatMap((op) => op.errors.filter((e) => e.status === 409).map((e) => [op.operationId, e.description]));
+		expect(Object.fromEntries(conflicts)).toEqual({
+			saveScenario: expect.stringMatching(/currentRevision/),
+			deleteScenario: expect.stringMatching(/archive it first/),
+			markBaseCase: expect.stringMatching(/restore it before making it the base case/),
+			applyUpload: expect.stringMatching(/currentRevision/)
+		});
+		expect(new Set(conflicts.map(([, text]) => text)).size).toBe(conflicts.length);
 	});
 });

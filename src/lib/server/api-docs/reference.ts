@@ -15,9 +15,11 @@ export interface FieldView {
 	description: string;
 	/** Limits and the default, such as "1 to 200 characters · default: EUR"; empty when there are none. */
 	rules: string;
+	/** For a list of objects (or an object) written out in place: the fields of each item; empty otherwise. */
+	itemFields: FieldView[];
 }
 
-export interface ParameterView extends FieldView {
+export interface ParameterView extends Omit<FieldView, 'itemFields'> {
 	where: 'path' | 'query';
 }
 
@@ -95,7 +97,8 @@ export function schemaTypeLabel(schema: JsonSchema): string {
 			return 'null';
 		case 'array': {
 			const items = schema.items as JsonSchema | undefined;
-			return items ? `list of ${schemaTypeLabel(items)}` : 'list';
+			if (!items) return 'list';
+			return isInlineObject(items) ? 'list of objects' : `list of ${schemaTypeLabel(items)}`;
 		}
 		case 'object':
 			return 'object';
@@ -124,7 +127,19 @@ export function schemaRules(schema: JsonSchema): string {
 	return rules.filter((rule): rule is string => rule !== null).join(' · ');
 }
 
-/** The top-level fields of an object schema (following a $ref to its component). */
+/** An object written out in place (not a named component), whose fields can be listed where it is used. */
+function isInlineObject(schema: JsonSchema): boolean {
+	return schema.type === 'object' && typeof schema.properties === 'object' && schema.properties !== null;
+}
+
+/** The fields of an inline object, or of the inline objects a list holds; none for anything else. */
+function nestedFields(property: JsonSchema, components: Record<string, JsonSchema>): FieldView[] {
+	if (isInlineObject(property)) return objectFields(property, components);
+	const items = property.type === 'array' ? (property.items as JsonSchema | undefined) : undefined;
+	return items && isInlineObject(items) ? objectFields(items, components) : [];
+}
+
+/** The fields of an object schema (following a $ref to its component), with the fields of inline objects inside. */
 export function objectFields(schema: JsonSchema, components: Record<string, JsonSchema>): FieldView[] {
 	const target = resolveRef(schema.$ref, components) ?? schema;
 	const properties = (target.properties ?? {}) as Record<string, JsonSchema>;
@@ -136,14 +151,16 @@ export function objectFields(schema: JsonSchema, components: Record<string, Json
 			type: schemaTypeLabel(property),
 			required: required.has(name),
 			description: typeof described === 'string' ? described : '',
-			rules: schemaRules(property)
+			rules: schemaRules(property),
+			itemFields: nestedFields(property, components)
 		};
 	});
 }
 
-/** The description of a refusal, read from the shared response its $ref names. */
+/** The description of a refusal: the operation's own words, or those of the shared response its $ref names. */
 function errorDescription(response: unknown, document: OpenApiDocument): string {
-	const ref = (response as { $ref?: unknown } | undefined)?.$ref;
+	const { $ref: ref, description: own } = (response ?? {}) as { $ref?: unknown; description?: unknown };
+	if (typeof own === 'string') return own;
 	const name = typeof ref === 'string' ? ref.split('/').pop()! : '';
 	return document.components.responses[name]?.description ?? '';
 }
