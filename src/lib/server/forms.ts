@@ -28,8 +28,24 @@ export function requestContext(event: RequestEvent): RequestContext {
 	};
 }
 
-/** Only same-site paths may be a post-sign-in destination. */
-export function safeNextPath(next: string | null | undefined, fallback = '/app'): string {
-	if (!next || !next.startsWith('/') || next.startsWith('//') || next.startsWith('/\\')) return fallback;
-	return next;
+/**
+ * Where to go after signing in: only a path on this app's own origin. The
+ * value is parsed as a URL against the origin the way a browser would read it
+ * (browsers drop tabs and newlines and treat `\` as `/`, so "/\t/evil.example"
+ * means "//evil.example"); anything with control characters or backslashes,
+ * anything that is not a plain path, and anything that resolves elsewhere
+ * goes to `fallback`.
+ */
+export function safeNextPath(next: string | null | undefined, origin: string, fallback = '/app'): string {
+	if (!next || !next.startsWith('/')) return fallback;
+	// eslint-disable-next-line no-control-regex
+	if (/[\u0000-\u001f\u007f\\]/.test(next)) return fallback;
+	let url: URL;
+	try {
+		url = new URL(next, origin);
+	} catch {
+		return fallback;
+	}
+	if (url.origin !== new URL(origin).origin) return fallback;
+	return url.pathname + url.search + url.hash;
 }

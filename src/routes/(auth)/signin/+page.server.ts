@@ -7,7 +7,7 @@ import { fieldErrors, readForm, requestContext, safeNextPath } from '$lib/server
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ locals, url }) => {
-	const next = safeNextPath(url.searchParams.get('next'));
+	const next = safeNextPath(url.searchParams.get('next'), url.origin);
 	if (locals.user) redirect(303, next);
 	return { next, notice: url.searchParams.get('notice') };
 };
@@ -15,7 +15,7 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 export const actions: Actions = {
 	default: async (event) => {
 		const fields = await readForm(event.request);
-		const echo = { email: fields.email ?? '', next: safeNextPath(fields.next) };
+		const echo = { email: fields.email ?? '', next: safeNextPath(fields.next, event.url.origin) };
 		const parsed = signInForm.safeParse(fields);
 		if (!parsed.success) return fail(400, { ...echo, errors: fieldErrors(parsed.error), message: null });
 
