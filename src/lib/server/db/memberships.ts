@@ -94,15 +94,16 @@ export async function changeMemberRole(
 	});
 }
 
-/** Removes a member (or lets one leave); refuses to remove the last owner. */
+/** Removes a member (or lets one leave); refuses to remove the last owner. False, with nothing written, for someone who is not a member. */
 export async function removeMember(workspaceId: string, userId: string, knex: Knex = db()): Promise<boolean> {
 	return knex.transaction(async (trx) => {
 		const owners = await lockOwners(workspaceId, trx);
 		if (owners.includes(userId) && owners.length <= 1) throw new LastOwnerError();
 		const removed = await trx('memberships').where({ workspace_id: workspaceId, user_id: userId }).delete();
+		if (removed === 0) return false;
 		await trx('sessions').where({ user_id: userId, workspace_id: workspaceId }).update({ workspace_id: null });
 		// A member who leaves takes no live token along: coming back later does not revive old tokens.
 		await trx('api_tokens').where({ user_id: userId, workspace_id: workspaceId }).whereNull('revoked_at').update({ revoked_at: trx.fn.now() });
-		return removed > 0;
+		return true;
 	});
 }

@@ -30,6 +30,7 @@ export const load: PageServerLoad = async (event) => {
 };
 
 const memberTarget = z.object({ userId: z.string().uuid('Choose a member.') });
+const notAMember = 'That person is not a member of this workspace (any more): nothing was changed.';
 
 /** Records a workspace event done by the signed-in owner or member. */
 function audit(event: RequestEvent, access: Pick<WorkspaceAccess, 'user' | 'membership'>, name: AuditEventName, detail?: Record<string, unknown>) {
@@ -74,7 +75,7 @@ export const actions: Actions = {
 		if (!target.success || !isWorkspaceRole(fields.role)) return fail(400, { action: 'changeRole', tone: 'error' as const, message: 'Choose a member and a role.' });
 		try {
 			const previous = await changeMemberRole(membership.workspaceId, target.data.userId, fields.role);
-			if (!previous) return fail(404, { action: 'changeRole', tone: 'error' as const, message: 'That person is not a member.' });
+			if (!previous) return fail(404, { action: 'changeRole', tone: 'error' as const, message: notAMember });
 			await audit(event, { user, membership }, 'role-changed', { memberId: target.data.userId, from: previous, to: fields.role });
 		} catch (error) {
 			if (error instanceof LastOwnerError) return fail(409, { action: 'changeRole', tone: 'error' as const, message: error.message });
@@ -88,7 +89,8 @@ export const actions: Actions = {
 		const target = memberTarget.safeParse(await readForm(event.request));
 		if (!target.success) return fail(400, { action: 'remove', tone: 'error' as const, message: 'Choose a member.' });
 		try {
-			await removeMember(membership.workspaceId, target.data.userId);
+			const removed = await removeMember(membership.workspaceId, target.data.userId);
+			if (!removed) return fail(404, { action: 'remove', tone: 'error' as const, message: notAMember });
 		} catch (error) {
 			if (error instanceof LastOwnerError) return fail(409, { action: 'remove', tone: 'error' as const, message: error.message });
 			throw error;

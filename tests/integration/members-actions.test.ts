@@ -1,0 +1,93 @@
+/**
+ * The members page's owner actions on someone who is not a member: a 404 in
+ * words, nothing changed and no audit event (a security log that records a
+ * removal that never happened would mislead the owner reading it).
+ */
+import { isActionFailure, type RequestEvent } from '@sveltejs/kit';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestDatabase, type TestDatabase } from '../helpers/db';
+import { setAppEnv } from '../helpers/app-env';
+import type { SessionUser } from '../../src/lib/server/auth/session';
+import { addMember, getMembership } from '../../src/lib/server/db/memberships';
+import { createUser } from '../../src/lib/server/db/users';
+import { createWorkspaceWithOwner } from '../../src/lib/server/db/workspaces';
+import { actions } from '../../src/routes/(app)/app/w/[workspaceId]/members/+page.server';
+
+let database: TestDatabase;
+let counter = 0;
+
+beforeAll(async () => {
+	database = await createTestDatabase();
+	setAppEnv({ DATABASE_URL: database.url });
+});
+afterAll(() => database.drop());
+
+async function newUser(): Promise<SessionUser> {
+	counter += 1;
+	const row = await createUser({ email: `crew-${counter}@test.example`, name: `Crew ${counter}`, passwordHash: 'unused' }, database.knex);
+	return { id: row.id, email: row.email, name: row.name, emailVerified: true };
+}
+
+async function newWorkspace() {
+	const owner = await newUser();
+	counter += 1;
+	const workspace = await createWorkspaceWithOwner(`Brinehold Partners ${counter}`, owner.id, database.knex);
+	return { owner, workspaceId: workspace.id };
+}
+
+function actionEvent(user: SessionUser, workspaceId: string, action: string, fields: Record<string, string>) {
+	const url = new URL(`http://127.0.0.1/app/w/${workspaceId}/members?/${action}`);
+	const session = { id: 'unused', userId: user.id, expiresAt: new Date(Date.now() + 60_000), workspaceId };
+	return {
+		params: { workspaceId },
+		url,
+		request: new Request(url, { method: 'POST', body: new URLSearchParams(fields) }),
+		locals: { principal: { kind: 'member', user, session }, user, session },
+		getClientAddress: () => '127.0.0.1'
+	} as unknown as RequestEvent<{ workspaceId: string }>;
+}
+
+async function auditEvents(workspaceId: string) {
+	return database.knex('audit_events').select('event').where({ workspace_id: workspaceId });
+}
+
+type Outcome = { status?: number; data?: { message?: string } } & Record<string, unknown>;
+
+describe('members action remove', () => {
+	it('answers 404 in words for someone who is not a member, and writes no audit event', async () => {
+		const { owner, workspaceId } = await newWorkspace();
+		const stranger = await newUser();
+		const outcome = (await actions.remove(actionEvent(owner, workspaceId, 'remove', { userId: stranger.id }))) as Outcome;
+		expect(isActionFailure(outcome)).toBe(true);
+		expect(outcome.status).toBe(404);
+		expect(outcome.data?.message).toMatch(/not a member/);
+		expect(await auditEvents(workspaceId)).toEqual([]);
+	});
+
+	it('removes a member and records it once', async () => {
+		const { owner, workspaceId } = await newWorkspace();
+		const analyst = await newUser();
+		await addMember(workspaceId, analyst.id, 'analyst', database.knex);
+		const outcome = (await actions.remove(actionEvent(owner, workspaceId, 'remove', { userId: analyst.id }))) as Outcome;
+		expect(isActionFailure(outcome)).toBe(false);
+		expect(await getMembership(workspaceId, analyst.id, database.knex)).toBeUndefined();
+		expect(await auditEvents(workspaceId)).toEqual([{ event: 'member-removed' }]);
+
+		const again = (await actions.remove(actionEvent(owner, workspaceId, 'remove', { userId: analyst.id }))) as Outcome;
+		expect(again.status).toBe(404);
+		expect(await auditEvents(workspaceId)).toEqual([{ event: 'member-removed' }]);
+	});
+});
+
+describe('members action changeRole', () => {
+	it('answers 404 in words for someone who is not a member, and writes no audit event', async () => {
+		const { owner, workspaceId } = await newWorkspace();
+		const stranger = await newUser();
+		const outcome = (await actions.changeRole(actionEvent(owner, workspaceId, 'changeRole', { userId: stranger.id, role: 'viewer' }))) as Outcome;
+		expect(isActionFailure(outcome)).toBe(true);
+		expect(outcome.status).toBe(404);
+		expect(outcome.data?.message).toMatch(/not a member/);
+		expect(await getMembership(workspaceId, stranger.id, database.knex)).toBeUndefined();
+		expect(await auditEvents(workspaceId)).toEqual([]);
+	});
+});
