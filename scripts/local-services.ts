@@ -6,6 +6,7 @@ import { clusterSettingsFromEnv, databaseUrl, startCluster, stopCluster } from '
 import { migrateAndSeed } from './migrate';
 import { mailSinkPortsFromEnv, startMailSink } from '../docker-local/mail-sink';
 import { demoUsers } from '../seeds/02_demo_users';
+import { isLoopbackHost } from '../src/lib/server/loopback';
 
 export interface RunningService {
 	name: string;
@@ -42,14 +43,14 @@ async function startMailSinkService(): Promise<RunningService> {
 	};
 }
 
-/** What a newcomer needs to sign in at once. */
-export function demoCredentialsText(origin: string): string {
+/** What a newcomer needs to sign in at once, and where the app's mail can be read. */
+export function demoCredentialsText(origin: string, host: string): string {
 	const lines = Object.entries(demoUsers).map(
 		([persona, u]) => `  ${persona.padEnd(9)} ${u.email.padEnd(40)} ${u.password}`
 	);
-	return [
-		'Demo users (invented people; sign in at ' + origin + '/signin):',
-		...lines,
-		`Mail sent by the app lands in the dev inbox: ${origin}/dev/mail`
-	].join('\n');
+	const loopback = isLoopbackHost(host) && isLoopbackHost(new URL(origin).hostname);
+	const inbox = loopback
+		? `Mail sent by the app lands in the dev inbox: ${origin}/dev/mail (a local demo's: served on loopback only, to signed-in users)`
+		: `The dev inbox is off: HOST ${host} is not loopback, and the inbox shows password-reset links. Mail lands in the local sink on this machine.`;
+	return ['Demo users (invented people; sign in at ' + origin + '/signin):', ...lines, inbox].join('\n');
 }

@@ -99,7 +99,7 @@ async function main() {
 			void shutdown(code ?? 1);
 		}
 	});
-	console.log(`\n${demoCredentialsText(origin)}\n\nTidewright is starting on ${origin}\n`);
+	console.log(`\n${demoCredentialsText(origin, host)}\n\nTidewright is starting on ${origin}\n`);
 }
 
 main().catch(async (error) => {

@@ -5,7 +5,8 @@ import { SESSION_COOKIE, deleteSessionCookie, setSessionCookie, validateSessionT
 import { authenticateApiToken, bearerToken, recordRefusedToken, recordTokenRequest, takeTokenRequest } from '$lib/server/auth/api-tokens';
 import { anonymous } from '$lib/server/auth/principal';
 import { apiError } from '$lib/server/api';
-import { SettingsError, checkSettings, cookiesAreSecure } from '$lib/server/settings';
+import { SettingsError, checkSettings, cookiesAreSecure, webSettings } from '$lib/server/settings';
+import { crossSiteRefusal } from '$lib/server/cross-site';
 import { devInboxEnabled } from '$lib/server/mail/dev-inbox';
 
 /** Stops the start when a setting is missing or malformed, naming each one. */
@@ -78,14 +79,28 @@ const authenticate: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
-/** Whole areas: the workbench needs a signed-in user; the dev inbox exists only beside the local mail sink. */
+/**
+ * Every state-changing request from a browser page must come from the app's
+ * own origin; a token-authenticated API call (no cookie rides along) is the
+ * one exception. See cross-site.ts.
+ */
+const refuseCrossSite: Handle = async ({ event, resolve }) => {
+	if (event.locals.principal.kind === 'token') return resolve(event);
+	const refusal = crossSiteRefusal(event.request, webSettings().origin ?? event.url.origin);
+	if (refusal === null) return resolve(event);
+	if (isApiPath(event.url.pathname)) return apiError(403, refusal);
+	return new Response(refusal, { status: 403, headers: { 'content-type': 'text/plain; charset=utf-8' } });
+};
+
+/** Whole areas: the workbench needs a signed-in user; the dev inbox exists only for a local demo on loopback, for signed-in users. */
 const guardAreas: Handle = async ({ event, resolve }) => {
 	const path = event.url.pathname;
 	if ((path === '/app' || path.startsWith('/app/')) && !event.locals.user) {
 		redirect(303, `/signin?next=${encodeURIComponent(path + event.url.search)}`);
 	}
-	if (path.startsWith('/dev/') && !devInboxEnabled()) {
-		return new Response('Not found', { status: 404 });
+	if (path === '/dev' || path.startsWith('/dev/')) {
+		if (!devInboxEnabled()) return new Response('Not found', { status: 404 });
+		if (!event.locals.user) redirect(303, `/signin?next=${encodeURIComponent(path + event.url.search)}`);
 	}
 	return resolve(event);
 };
@@ -98,7 +113,7 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(securityHeaders, authenticate, guardAreas);
+export const handle = sequence(securityHeaders, authenticate, refuseCrossSite, guardAreas);
 
 /** Log the real error on the server; show the user a safe message with an id to quote. */
 export const handleError: HandleServerError = ({ error, status, message }) => {

@@ -135,8 +135,8 @@ const matrix: Row[] = [
 	{ route: '/invite/[token]', method: 'GET', expect: everyone(200) },
 	{ route: '/invite/[token]', method: 'POST', action: 'accept', expect: { ...signedIn(400), anonymous: '303 /signin?next=' } },
 	{ route: '/invite/[token]', method: 'POST', action: 'join', body: { form: { name: '', password: '' } }, expect: everyone(400) },
-	// Dev-only inbox: present beside the local mail sink the browser tests run (absent without it).
-	{ route: '/dev/mail', method: 'GET', expect: everyone(200) },
+	// Dev-only inbox: a local demo's (loopback, beside the mail sink the browser tests run), for signed-in users only.
+	{ route: '/dev/mail', method: 'GET', expect: signedIn(200) },
 
 	// Workbench pages
 	{ route: '/app', method: 'GET', expect: signedIn('303 /app/w/') },
@@ -375,6 +375,30 @@ test.describe('role x route matrix', () => {
 			expect(actual).toEqual(expected);
 		});
 	}
+
+	test('every state-changing route refuses a body-less request from a foreign origin, and nothing changes', async () => {
+		const writes = matrix.filter((row) => row.method !== 'GET');
+		expect(writes.length).toBeGreaterThan(30);
+		for (const row of writes) {
+			for (const headers of [{ origin: 'https://evil.example' }, { origin: baseURL, 'sec-fetch-site': 'cross-site' }] as Record<string, string>[]) {
+				for (const persona of ['owner', 'anonymous'] as const) {
+					const response = await clients[persona].fetch(urlOf(row), { method: row.method, headers: { ...headers, accept: 'text/html' }, maxRedirects: 0, failOnStatusCode: false });
+					expect(response.status(), `${row.method} ${row.route}${row.action ? ` ?/${row.action}` : ''} as ${persona} with ${JSON.stringify(headers)}`).toBe(403);
+				}
+			}
+		}
+		// The probe scenario and project are as they were: not archived, still there.
+		const scenario = await clients.owner.get(`/api/v1/scenarios/${ids.scenarioId}`);
+		expect(scenario.status()).toBe(200);
+		expect((await scenario.json()).scenario.archivedAt).toBeNull();
+		const projects = await clients.owner.get(`/api/v1/workspaces/${ids.workspaceId}/projects`);
+		expect(((await projects.json()).projects as { id: string }[]).some((p) => p.id === ids.projectId)).toBe(true);
+		// The owner is still signed in: the refused sign-out did nothing.
+		expect((await clients.owner.get('/api/v1/workspaces')).status()).toBe(200);
+		// A token-authenticated call is the one exception: no cookie rides along, so a foreign Origin is no forgery.
+		const viaToken = await clients.writeToken.post(`/api/v1/scenarios/${ids.scenarioId}/base-case`, { headers: { origin: 'https://evil.example' } });
+		expect(viaToken.status()).toBe(200);
+	});
 
 	test('ids that name nothing answer 404 to every signed-in persona and 401 to anonymous', async () => {
 		const nowhere = '00000000-0000-4000-8000-000000000000';

@@ -6,6 +6,7 @@
  */
 import { z } from 'zod';
 import { env } from '$env/dynamic/private';
+import { isLoopbackHost } from './loopback';
 
 export class SettingsError extends Error {
 	constructor(readonly problems: string[]) {
@@ -41,6 +42,7 @@ const sections = {
 	}),
 	web: z.object({
 		ORIGIN: originUrl.optional(),
+		HOST: z.string().trim().optional(),
 		NODE_ENV: z.string().optional()
 	}),
 	mail: z.object({
@@ -94,11 +96,17 @@ export interface WebSettings {
 	/** The public origin the app is served at, when set (adapter-node's ORIGIN). */
 	origin: string | null;
 	production: boolean;
+	/** True when the app listens on loopback only and its origin (if set) is a loopback address: a local demo. */
+	loopbackOnly: boolean;
 }
 
 export function webSettings(): WebSettings {
 	const web = section('web');
-	return { origin: web.ORIGIN?.replace(/\/$/, '') ?? null, production: web.NODE_ENV === 'production' };
+	const origin = web.ORIGIN?.replace(/\/$/, '') ?? null;
+	// adapter-node listens on every interface when HOST is unset.
+	const listensOnLoopback = web.HOST !== undefined && isLoopbackHost(web.HOST);
+	const originOnLoopback = origin === null || isLoopbackHost(new URL(origin).hostname);
+	return { origin, production: web.NODE_ENV === 'production', loopbackOnly: listensOnLoopback && originOnLoopback };
 }
 
 /** Secure cookies wherever the app is served over https; plain http only on a local http origin. */
