@@ -7,6 +7,7 @@ import { anonymous } from '$lib/server/auth/principal';
 import { apiError } from '$lib/server/api';
 import { SettingsError, checkSettings, cookiesAreSecure, webSettings } from '$lib/server/settings';
 import { crossSiteRefusal } from '$lib/server/cross-site';
+import { DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from '$lib/server/db/errors';
 import { devInboxEnabled } from '$lib/server/mail/dev-inbox';
 
 /** Stops the start when a setting is missing or malformed, naming each one. */
@@ -23,6 +24,17 @@ export const init: ServerInit = () => {
 function isApiPath(path: string) {
 	return path === '/api/v1' || path.startsWith('/api/v1/');
 }
+
+/** The API answers in its one error shape even when the database fails under the request's own checks (sessions, tokens). */
+const apiFailuresAsJson: Handle = async ({ event, resolve }) => {
+	if (!isApiPath(event.url.pathname)) return resolve(event);
+	try {
+		return await resolve(event);
+	} catch (e) {
+		if (isDatabaseUnavailable(e)) return apiError(503, DATABASE_UNAVAILABLE_MESSAGE);
+		throw e;
+	}
+};
 
 /**
  * Resolves the principal. On /api/v1 a `Authorization: Bearer` token decides
@@ -113,22 +125,19 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(securityHeaders, authenticate, refuseCrossSite, guardAreas);
+export const handle = sequence(securityHeaders, apiFailuresAsJson, authenticate, refuseCrossSite, guardAreas);
 
-/** Log the real error on the server; show the user a safe message with an id to quote. */
+/**
+ * Log the real failure on the server; show the user a safe message with an id
+ * to quote. Refusals below 500 (404, 405, 413 for a body over the limit...)
+ * are answers, not server errors, and are not logged as such.
+ */
 export const handleError: HandleServerError = ({ error, status, message }) => {
-	if (status === 404) return { message };
+	if (status < 500) return { message };
 	const errorId = randomUUID();
 	console.error(`[error ${errorId}]`, error);
 	return {
-		message: isConnectionError(error)
-			? 'The database is not answering right now. Your saved work is safe; try again in a moment.'
-			: 'Something went wrong on our side.',
+		message: isDatabaseUnavailable(error) ? DATABASE_UNAVAILABLE_MESSAGE : 'Something went wrong on our side.',
 		errorId
 	};
 };
-
-function isConnectionError(error: unknown): boolean {
-	const text = error instanceof Error ? `${error.name} ${error.message} ${(error as { code?: string }).code ?? ''}` : '';
-	return /ECONNREFUSED|ECONNRESET|KnexTimeoutError|57P01|Connection terminated/i.test(text);
-}

@@ -19,6 +19,11 @@ test('a database outage turns health to 503 and the pages to a clear error, then
 		expect(down.status()).toBe(503);
 		expect(await down.json()).toMatchObject({ db: 'down' });
 
+		// The API keeps its one error shape, with a status that says "try again", not a crash.
+		const projects = await page.request.get('/api/v1/workspaces');
+		expect(projects.status()).toBe(503);
+		expect(await projects.json()).toMatchObject({ error: { message: expect.stringContaining('database is not answering'), issues: [] } });
+
 		await page.reload();
 		await expect(page.getByRole('alert')).toContainText('not answering');
 		await expect(page.getByRole('alert')).toContainText('database is not answering');

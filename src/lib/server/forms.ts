@@ -1,12 +1,19 @@
-import type { RequestEvent } from '@sveltejs/kit';
+import { error, type RequestEvent } from '@sveltejs/kit';
+import { UNSTORABLE_TEXT_MESSAGE, unstorableTextPaths } from './storable-text';
 import type { z } from 'zod';
 import type { RequestContext } from './auth/accounts';
 
-/** Reads a form into a plain object of strings (files and repeats are not used by these forms). */
+/**
+ * Reads a form into a plain object of strings (files and repeats are not used
+ * by these forms). A field holding text the database cannot store is refused
+ * here, by name, before any action looks at it.
+ */
 export async function readForm(request: Request): Promise<Record<string, string>> {
 	const data = await request.formData();
 	const fields: Record<string, string> = {};
 	for (const [key, value] of data) if (typeof value === 'string') fields[key] = value;
+	const unstorable = unstorableTextPaths(fields);
+	if (unstorable.length > 0) error(400, `The field "${unstorable[0]}" ${UNSTORABLE_TEXT_MESSAGE}.`);
 	return fields;
 }
 

@@ -6,6 +6,8 @@
 import { isHttpError, isRedirect, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { apiError, type ApiIssue } from '../api';
+import { DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable, isUnstorableTextError } from '../db/errors';
+import { UNSTORABLE_TEXT_MESSAGE, unstorableTextPaths } from '../storable-text';
 import { ArchivedScenarioError, StaleRevisionError } from '../db/scenarios';
 import { parseScenario, SCHEMA_VERSION, type Scenario } from '../../schemas/scenario';
 import { safeParseStrict, type FieldIssue } from '../../schemas/strict-parse';
@@ -32,6 +34,9 @@ function responseFor(e: unknown): Response | null {
 	}
 	if (e instanceof ArchivedScenarioError) return apiError(409, e.message);
 	if (isHttpError(e)) return apiError(e.status, e.body.message);
+	// Backstops: the same error shape when the database is down, and words instead of a 500 for text it refuses.
+	if (isDatabaseUnavailable(e)) return apiError(503, DATABASE_UNAVAILABLE_MESSAGE);
+	if (isUnstorableTextError(e)) return apiError(422, `Some text ${UNSTORABLE_TEXT_MESSAGE}.`);
 	return null;
 }
 
@@ -73,11 +78,17 @@ export async function readJsonBody(request: Request, options: { optional?: boole
 		if (options.optional) return {};
 		throw new ApiProblem(400, 'The request needs a JSON body.');
 	}
+	let body: unknown;
 	try {
-		return JSON.parse(text);
+		body = JSON.parse(text);
 	} catch {
 		throw new ApiProblem(400, 'The request body is not valid JSON.');
 	}
+	const unstorable = unstorableTextPaths(body);
+	if (unstorable.length > 0) {
+		throw new ApiProblem(422, 'Some text cannot be stored.', unstorable.map((path) => ({ path, message: UNSTORABLE_TEXT_MESSAGE })));
+	}
+	return body;
 }
 
 export function validateBody<S extends z.ZodType>(schema: S, value: unknown): z.output<S> {
