@@ -44,7 +44,7 @@ function actionEvent(user: SessionUser, workspaceId: string, action: string, fie
 		request: new Request(url, { method: 'POST', body: new URLSearchParams(fields) }),
 		locals: { principal: { kind: 'member', user, session }, user, session },
 		getClientAddress: () => '127.0.0.1'
-	} as unknown as RequestEvent<{ workspaceId: string }>;
+	} as unknown as RequestEvent as never;
 }
 
 async function auditEvents(workspaceId: string) {

@@ -200,6 +200,6 @@ describe('errorStatusesOf', () => {
 
 	it('adds 403 for a higher role, 400 and 422 for a body, and the operation own refusals', () => {
 		expect(errorStatusesOf(byId('saveScenario'))).toEqual([400, 401, 403, 404, 409, 422, 429]);
-		expect(errorStatusesOf(byId('createUpload'))).toEqual([400, 401, 403, 404, 413, 415, 422, 429]);
+		expect(errorStatusesOf(byId('createUpload'))).toEqual([400, 401, 403, 404, 409, 413, 415, 422, 429]);
 	});
 });

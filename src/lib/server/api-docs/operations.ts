@@ -254,7 +254,8 @@ export const apiOperations: ApiOperation[] = [
 		minimumRole: 'analyst',
 		apiToken: 'read-write',
 		requestBody: jsonBody(updateProjectBody, true),
-		response: { status: 200, description: 'The project as changed', json: projectEnvelope }
+		response: { status: 200, description: 'The project as changed', json: projectEnvelope },
+		conflict: 'The project is archived: restore it first; nothing was changed'
 	},
 	{
 		operationId: 'archiveProject',
@@ -306,7 +307,8 @@ export const apiOperations: ApiOperation[] = [
 			withScenarioDocument(createScenarioBody, "The scenario document; leave it out to start from the example of the project's technology."),
 			true
 		),
-		response: { status: 201, description: 'The new scenario at revision 1', json: scenarioEnvelope }
+		response: { status: 201, description: 'The new scenario at revision 1', json: scenarioEnvelope },
+		conflict: 'The project is archived: restore it before adding scenarios; nothing was created'
 	},
 	{
 		operationId: 'listUploads',
@@ -337,7 +339,8 @@ export const apiOperations: ApiOperation[] = [
 			})
 		},
 		response: { status: 201, description: 'The stored upload with its parsed preview', json: z.object({ upload: uploadJsonSchema }) },
-		otherErrors: [413, 415]
+		otherErrors: [413, 415],
+		conflict: 'The project is archived: restore it before uploading files to it; nothing was stored'
 	},
 	{
 		operationId: 'compareScenarios',
@@ -386,7 +389,7 @@ export const apiOperations: ApiOperation[] = [
 		requestBody: jsonBody(withScenarioDocument(updateScenarioBody, 'The whole scenario document as it should be saved.'), true),
 		response: { status: 200, description: 'The scenario at its new revision', json: scenarioEnvelope },
 		conflict:
-			'Someone saved the scenario since the revision you sent (currentRevision says where it is now), or it is archived and must be restored first; nothing was saved'
+			'Someone saved the scenario since the revision you sent (currentRevision says where it is now), or the scenario or its project is archived and must be restored first; nothing was saved'
 	},
 	{
 		operationId: 'deleteScenario',
@@ -398,7 +401,7 @@ export const apiOperations: ApiOperation[] = [
 		minimumRole: 'owner',
 		apiToken: 'read-write',
 		response: { status: 204, description: 'Deleted' },
-		conflict: 'The scenario is not archived: archive it first, then delete it'
+		conflict: 'The scenario is not archived: archive it first, then delete it; or its project is archived and must be restored first'
 	},
 	{
 		operationId: 'archiveScenario',
@@ -409,7 +412,8 @@ export const apiOperations: ApiOperation[] = [
 		description: 'An archived scenario is no longer the base case.',
 		minimumRole: 'analyst',
 		apiToken: 'read-write',
-		response: { status: 200, description: 'The archived scenario', json: scenarioEnvelope }
+		response: { status: 200, description: 'The archived scenario', json: scenarioEnvelope },
+		conflict: 'The project is archived: restore it before archiving its scenarios'
 	},
 	{
 		operationId: 'markBaseCase',
@@ -421,7 +425,7 @@ export const apiOperations: ApiOperation[] = [
 		minimumRole: 'analyst',
 		apiToken: 'read-write',
 		response: { status: 200, description: 'The scenario, now the base case', json: scenarioEnvelope },
-		conflict: 'The scenario is archived: restore it before making it the base case'
+		conflict: 'The scenario is archived: restore it before making it the base case; or its project is archived and must be restored first'
 	},
 	{
 		operationId: 'duplicateScenario',
@@ -433,7 +437,8 @@ export const apiOperations: ApiOperation[] = [
 		minimumRole: 'analyst',
 		apiToken: 'read-write',
 		requestBody: jsonBody(duplicateScenarioBody, false),
-		response: { status: 201, description: 'The copy', json: scenarioEnvelope }
+		response: { status: 201, description: 'The copy', json: scenarioEnvelope },
+		conflict: 'The project is archived: restore it before copying its scenarios; nothing was copied'
 	},
 	{
 		operationId: 'evaluateScenario',
@@ -478,7 +483,8 @@ export const apiOperations: ApiOperation[] = [
 		summary: 'Bring an archived scenario back to the live list',
 		minimumRole: 'analyst',
 		apiToken: 'read-write',
-		response: { status: 200, description: 'The restored scenario', json: scenarioEnvelope }
+		response: { status: 200, description: 'The restored scenario', json: scenarioEnvelope },
+		conflict: 'The project is archived: restore the project before restoring its scenarios'
 	},
 	{
 		operationId: 'listScenarioRevisions',
@@ -555,7 +561,7 @@ export const apiOperations: ApiOperation[] = [
 			json: z.object({ scenario: scenarioJsonSchema, section: z.enum(['resource', 'device']) })
 		},
 		conflict:
-			'The scenario moved on since the revision you sent (currentRevision says where it is now), or it is archived and must be restored first; nothing was changed'
+			'The scenario moved on since the revision you sent (currentRevision says where it is now), or the scenario or its project is archived and must be restored first; nothing was changed'
 	},
 	{
 		operationId: 'downloadUploadFile',

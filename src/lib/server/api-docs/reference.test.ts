@@ -107,10 +107,16 @@ describe('apiReference', () => {
 	it("gives each operation's 409 its own words", () => {
 		const conflicts = groups.flatMap((g) => g.operations).flatMap((op) => op.errors.filter((e) => e.status === 409).map((e) => [op.operationId, e.description]));
 		expect(Object.fromEntries(conflicts)).toEqual({
-			saveScenario: expect.stringMatching(/currentRevision/),
-			deleteScenario: expect.stringMatching(/archive it first/),
-			markBaseCase: expect.stringMatching(/restore it before making it the base case/),
-			applyUpload: expect.stringMatching(/currentRevision/)
+			updateProject: expect.stringMatching(/project is archived/),
+			createScenario: expect.stringMatching(/project is archived/),
+			createUpload: expect.stringMatching(/project is archived/),
+			saveScenario: expect.stringMatching(/currentRevision.*its project is archived/),
+			deleteScenario: expect.stringMatching(/archive it first.*its project is archived/),
+			archiveScenario: expect.stringMatching(/project is archived/),
+			markBaseCase: expect.stringMatching(/restore it before making it the base case.*its project is archived/),
+			duplicateScenario: expect.stringMatching(/project is archived/),
+			restoreScenario: expect.stringMatching(/project is archived/),
+			applyUpload: expect.stringMatching(/currentRevision.*its project is archived/)
 		});
 		expect(new Set(conflicts.map(([, text]) => text)).size).toBe(conflicts.length);
 	});

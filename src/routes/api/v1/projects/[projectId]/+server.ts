@@ -5,6 +5,7 @@ import { authorize } from '$lib/server/auth/access';
 import { apiRoute, readJsonBody, validateBody } from '$lib/server/workbench/api-route';
 import { projectJson } from '$lib/server/workbench/serialize';
 import type { RequestHandler } from './$types';
+import { requireLiveProject } from '$lib/server/workbench/live-project';
 
 export const GET: RequestHandler = apiRoute(async (event) => {
 	const { project, membership } = await authorize(event, event.params, 'viewer');
@@ -13,6 +14,7 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 
 export const PATCH: RequestHandler = apiRoute(async (event) => {
 	const { project } = await authorize(event, event.params, 'analyst');
+	requireLiveProject(project);
 	const changes = validateBody(updateProjectBody, await readJsonBody(event.request));
 	const updated = await updateProject(project.id, changes);
 	return json({ project: projectJson(updated!) });

@@ -7,6 +7,7 @@ import { loadScenario } from '$lib/server/workbench/evaluation';
 import { projectJson, scenarioJson } from '$lib/server/workbench/serialize';
 import { storeResultOfSave } from '$lib/server/workbench/stored-results';
 import type { RequestHandler } from './$types';
+import { requireLiveProject } from '$lib/server/workbench/live-project';
 
 export const GET: RequestHandler = apiRoute(async (event) => {
 	const { project, membership } = await authorize(event, event.params, 'viewer');
@@ -21,6 +22,7 @@ export const GET: RequestHandler = apiRoute(async (event) => {
  */
 export const PUT: RequestHandler = apiRoute(async (event) => {
 	const { project, user, scenarioId } = await authorize(event, event.params, 'analyst');
+	requireLiveProject(project);
 	const body = validateBody(updateScenarioBody, await readJsonBody(event.request));
 	const current = await loadScenario(scenarioId);
 	const name = body.name ?? current.name;
@@ -33,7 +35,8 @@ export const PUT: RequestHandler = apiRoute(async (event) => {
 
 /** Deletes for good, with its history: owners only, and only a scenario archived first. */
 export const DELETE: RequestHandler = apiRoute(async (event) => {
-	const { scenarioId } = await authorize(event, event.params, 'owner');
+	const { scenarioId, project } = await authorize(event, event.params, 'owner');
+	requireLiveProject(project);
 	const outcome = await deleteArchivedScenario(scenarioId);
 	if (outcome === 'not-archived') throw new ApiProblem(409, 'Archive the scenario before deleting it for good.');
 	if (outcome === 'missing') throw new ApiProblem(404, 'No such scenario, or it is not yours.');

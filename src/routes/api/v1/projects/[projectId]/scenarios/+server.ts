@@ -7,6 +7,7 @@ import { projectJson, scenarioJson, scenarioSummaryJson } from '$lib/server/work
 import { starterDocument } from '$lib/server/workbench/starter-documents';
 import { storeResultOfSave, storedKeyFigures } from '$lib/server/workbench/stored-results';
 import type { RequestHandler } from './$types';
+import { requireLiveProject } from '$lib/server/workbench/live-project';
 
 /** The project's scenarios without their documents, with their stored key figures; `?archived=1` lists the archived ones. */
 export const GET: RequestHandler = apiRoute(async (event) => {
@@ -20,6 +21,7 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 /** A new scenario from the document sent, or from the starter document of the project's technology. */
 export const POST: RequestHandler = apiRoute(async (event) => {
 	const { project, user } = await authorize(event, event.params, 'analyst');
+	requireLiveProject(project);
 	const body = validateBody(createScenarioBody, await readJsonBody(event.request));
 	const candidate = body.document !== undefined ? body.document : starterDocument(project.technology, { name: body.name, currency: project.currency, siteName: project.site_name });
 	if (candidate === undefined) {

@@ -7,6 +7,7 @@ import { receiveUpload } from '$lib/server/workbench/receive-upload';
 import { readUploadForm } from '$lib/server/workbench/upload-form';
 import { uploadJson, uploadSummaryJson } from '$lib/server/workbench/serialize';
 import type { RequestHandler } from './$types';
+import { requireLiveProject } from '$lib/server/workbench/live-project';
 
 export const GET: RequestHandler = apiRoute(async (event) => {
 	const { project } = await authorize(event, event.params, 'viewer');
@@ -20,6 +21,7 @@ export const GET: RequestHandler = apiRoute(async (event) => {
  */
 export const POST: RequestHandler = apiRoute(async (event) => {
 	const { project, user } = await authorize(event, event.params, 'analyst');
+	requireLiveProject(project);
 	const form = await readUploadForm(event.request);
 	const received = await receiveUpload({ projectId: project.id, userId: user.id, ...form });
 	if (!received.ok) {

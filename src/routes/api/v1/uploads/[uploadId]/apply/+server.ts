@@ -10,6 +10,7 @@ import { loadScenario } from '$lib/server/workbench/evaluation';
 import { scenarioJson } from '$lib/server/workbench/serialize';
 import { storeResultOfSave } from '$lib/server/workbench/stored-results';
 import type { RequestHandler } from './$types';
+import { requireLiveProject } from '$lib/server/workbench/live-project';
 
 /**
  * `?scenarioId=`: puts the upload's parsed data into that scenario's document
@@ -18,6 +19,7 @@ import type { RequestHandler } from './$types';
  */
 export const POST: RequestHandler = apiRoute(async (event) => {
 	const { project, user, uploadId } = await authorize(event, event.params, 'analyst');
+	requireLiveProject(project);
 	const body = validateBody(applyUploadBody, await readJsonBody(event.request, { optional: true }));
 	const scenarioId = event.url.searchParams.get('scenarioId') ?? '';
 	const place = isUuid(scenarioId) ? await getScenarioPlace(scenarioId) : undefined;

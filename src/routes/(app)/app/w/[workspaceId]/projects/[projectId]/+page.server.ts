@@ -4,10 +4,15 @@ import { listScenariosInProject } from '$lib/server/db/scenarios';
 import { listUploadsInProject } from '$lib/server/db/uploads';
 import { projectJson, scenarioSummaryJson, uploadSummaryJson } from '$lib/server/workbench/serialize';
 import { storedKeyFigures } from '$lib/server/workbench/stored-results';
+import { isArchivedProject } from '$lib/server/workbench/live-project';
 import { asJson, type ProjectJson, type ScenarioSummaryJson, type UploadSummaryJson } from '$lib/workbench/api-types';
 import type { PageServerLoad } from './$types';
 
-/** The project, its live scenarios with their stored key figures, and its uploads; changes go through the API and the page refetches from it. */
+/**
+ * The project, its live scenarios with their stored key figures, and its
+ * uploads; changes go through the API and the page refetches from it. An
+ * archived project is shown read only, with a restore button for owners.
+ */
 export const load: PageServerLoad = async (event) => {
 	const { project, membership } = await authorize(event, event.params, 'viewer');
 	const [scenarios, uploads] = await Promise.all([listScenariosInProject(project.id), listUploadsInProject(project.id)]);
@@ -17,6 +22,7 @@ export const load: PageServerLoad = async (event) => {
 		scenarios: asJson<ScenarioSummaryJson[]>(scenarios.map((s) => ({ ...scenarioSummaryJson(s), keyFigures: figures[s.id] }))),
 		uploads: asJson<UploadSummaryJson[]>(uploads.map(uploadSummaryJson)),
 		role: membership.role,
-		canEdit: roleAtLeast(membership.role, 'analyst')
+		canEdit: roleAtLeast(membership.role, 'analyst') && !isArchivedProject(project),
+		canRestore: isArchivedProject(project) && roleAtLeast(membership.role, 'owner')
 	};
 };
