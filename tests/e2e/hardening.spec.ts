@@ -58,7 +58,7 @@ test('text the database cannot store is refused by name on every endpoint that s
 	for (const attempt of attempts) {
 		const response = await attempt.send();
 		expect(response.status(), attempt.what).toBe(422);
-		const body = await response.json();
+		const body = (await response.json()) as { error: { issues: unknown[] } };
 		expect(body.error.issues, attempt.what).toContainEqual({ path: attempt.path, message: expect.stringContaining('cannot be stored') });
 	}
 	// Nothing was written: the scenario is at the revision it was.

@@ -13,13 +13,13 @@
  *   accounts, members, tokens or billing (`requireBrowserSession`).
  */
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
-import { getMembership, listWorkspacesForUser, type WorkspaceMembership } from '../db/memberships';
+import { listWorkspacesForUser, type WorkspaceMembership } from '../db/memberships';
 import { getProjectById, getProjectOfScenario, getProjectOfUpload, type ProjectRow } from '../db/projects';
 import { roleAtLeast, type WorkspaceRole } from './roles';
 import type { ApiTokenPrincipal, MemberPrincipal, Principal } from './principal';
 import type { SessionUser } from './session';
 
-type AccessEvent = Pick<RequestEvent, 'locals' | 'url'>;
+type AccessEvent = Pick<RequestEvent, 'locals' | 'url'> & Partial<Pick<RequestEvent, 'request'>>;
 
 const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -91,12 +91,34 @@ function article(role: WorkspaceRole) {
 	return role === 'viewer' ? 'a' : 'an';
 }
 
+/**
+ * The caller's memberships, read once per page view: a layout and its page
+ * both ask, and each would otherwise query again. Only reads share it; a form
+ * action (which may change memberships) always reads afresh.
+ */
+const membershipsOfView = new WeakMap<App.Locals, Promise<WorkspaceMembership[]>>();
+
+function membershipsOf(event: AccessEvent, userId: string): Promise<WorkspaceMembership[]> {
+	const method = event.request?.method ?? 'GET';
+	if (method !== 'GET' && method !== 'HEAD') return listWorkspacesForUser(userId);
+	let memberships = membershipsOfView.get(event.locals);
+	if (!memberships) {
+		memberships = listWorkspacesForUser(userId);
+		membershipsOfView.set(event.locals, memberships);
+	}
+	return memberships;
+}
+
+async function membershipIn(event: AccessEvent, workspaceId: string, userId: string): Promise<WorkspaceMembership | undefined> {
+	return (await membershipsOf(event, userId)).find((m) => m.workspaceId === workspaceId);
+}
+
 async function workspaceAccess(event: AccessEvent, workspaceId: string, minimum: WorkspaceRole, notFound: string): Promise<WorkspaceAccess> {
 	const principal = principalOf(event);
 	if (principal.kind === 'anonymous') refuseAnonymous(event);
 	if (!isUuid(workspaceId)) error(404, notFound);
 	if (principal.kind === 'token' && principal.token.workspaceId !== workspaceId) error(404, notFound);
-	const membership = await getMembership(workspaceId, principal.user.id);
+	const membership = await membershipIn(event, workspaceId, principal.user.id);
 	if (!membership) error(404, notFound);
 	const role = effectiveRole(principal, membership.role);
 	if (!roleAtLeast(role, minimum)) {
@@ -158,7 +180,7 @@ export function canAct(access: WorkspaceAccess, minimum: WorkspaceRole): boolean
 export async function visibleWorkspaces(event: AccessEvent): Promise<WorkspaceMembership[]> {
 	const principal = principalOf(event);
 	if (principal.kind === 'anonymous') refuseAnonymous(event);
-	const memberships = await listWorkspacesForUser(principal.user.id);
+	const memberships = await membershipsOf(event, principal.user.id);
 	return memberships
 		.filter((m) => principal.kind !== 'token' || m.workspaceId === principal.token.workspaceId)
 		.map((m) => ({ ...m, role: effectiveRole(principal, m.role) }));
