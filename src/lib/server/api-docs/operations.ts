@@ -568,7 +568,9 @@ export const apiOperations: ApiOperation[] = [
 		method: 'GET',
 		path: '/api/v1/uploads/{uploadId}/file',
 		tag: 'Uploads',
-		summary: 'Download the file exactly as it was uploaded',
+		summary: 'Download the file as it was uploaded',
+		description:
+			'Byte for byte, except that a cell a spreadsheet would run as a formula (starting with =, +, -, @, a tab or a carriage return, and not a number) gets a leading apostrophe, as in the exports.',
 		minimumRole: 'viewer',
 		apiToken: 'read-only',
 		response: { status: 200, description: 'The CSV file, as an attachment', fileTypes: ['text/csv'] }

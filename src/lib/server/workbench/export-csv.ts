@@ -7,8 +7,11 @@ import type { ExportTable } from './export-tables';
 
 const BOM = '\uFEFF';
 
-/** Text cells that a spreadsheet would run as a formula get a leading apostrophe (common practice against CSV injection). */
-function neutralise(cell: string): string {
+/**
+ * Text cells that a spreadsheet would run as a formula get a leading apostrophe (common practice against CSV injection).
+ * The one rule for every CSV the app hands out: exports here, and uploaded files downloaded back (upload-download.ts).
+ */
+export function neutralise(cell: string): string {
 	return /^[=+\-@\t\r]/.test(cell) && !/^-?\d/.test(cell) ? `'${cell}` : cell;
 }
 
