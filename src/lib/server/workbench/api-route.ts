@@ -12,13 +12,14 @@ import { ArchivedScenarioError, StaleRevisionError } from '../db/scenarios';
 import { parseScenario, SCHEMA_VERSION, type Scenario } from '../../schemas/scenario';
 import { safeParseStrict, type FieldIssue } from '../../schemas/strict-parse';
 
-/** A refusal with a status, a message, field issues and any extra facts for the client. */
+/** A refusal with a status, a message, field issues, any extra facts for the client and any headers (such as Retry-After). */
 export class ApiProblem extends Error {
 	constructor(
 		readonly status: number,
 		message: string,
 		readonly issues: ApiIssue[] = [],
-		readonly details: Record<string, unknown> = {}
+		readonly details: Record<string, unknown> = {},
+		readonly headers: Record<string, string> = {}
 	) {
 		super(message);
 		this.name = 'ApiProblem';
@@ -26,7 +27,11 @@ export class ApiProblem extends Error {
 }
 
 function responseFor(e: unknown): Response | null {
-	if (e instanceof ApiProblem) return apiError(e.status, e.message, e.issues, e.details);
+	if (e instanceof ApiProblem) {
+		const response = apiError(e.status, e.message, e.issues, e.details);
+		for (const [name, value] of Object.entries(e.headers)) response.headers.set(name, value);
+		return response;
+	}
 	if (e instanceof StaleRevisionError) {
 		return apiError(409, e.message, [{ path: 'revision', message: `the scenario is now at revision ${e.currentRevision}` }], {
 			currentRevision: e.currentRevision

@@ -5,23 +5,29 @@
 import { error } from '@sveltejs/kit';
 import { roleAtLeast } from '../auth/roles';
 import { getScenarioById, type ScenarioRecord } from '../db/scenarios';
-import { evaluateScenario, type EngineResult } from '../engine/evaluate';
+import type { EngineResult } from '../engine/evaluate';
+import { evaluateOnPool } from '../compute/pool';
 import type { Scenario } from '../../schemas/scenario';
 import { ApiProblem, validateDocument } from './api-route';
 import type { ScenarioAccess } from '../auth/access';
 
-/** Runs an engine call, turning the engine's refusals of an input (RangeError) into a 422 answer. */
-export function runEngine<T>(compute: () => T): T {
+/**
+ * Runs an engine call (on the compute pool, or here), turning the engine's
+ * refusals of an input (RangeError, also when it crossed back from a worker
+ * thread) into a 422 answer.
+ */
+export async function runEngine<T>(compute: () => T | Promise<T>): Promise<T> {
 	try {
-		return compute();
+		return await compute();
 	} catch (e) {
 		if (e instanceof RangeError) throw new ApiProblem(422, `The engine cannot evaluate this scenario: ${e.message}.`);
 		throw e;
 	}
 }
 
-export function evaluateDocument(document: Scenario): EngineResult {
-	return runEngine(() => evaluateScenario(document));
+/** The engine's result for a document, computed on the compute pool. */
+export function evaluateDocument(document: Scenario): Promise<EngineResult> {
+	return runEngine(() => evaluateOnPool(document));
 }
 
 export async function loadScenario(scenarioId: string): Promise<ScenarioRecord> {

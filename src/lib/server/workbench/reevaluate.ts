@@ -6,6 +6,7 @@
 import type { Knex } from 'knex';
 import { deleteResultsOfOtherEngines, listCurrentRevisions } from '../db/scenario-results';
 import { getScenarioById } from '../db/scenarios';
+import { evaluateScenario } from '../engine/evaluate';
 import { ENGINE_VERSION } from '../engine/version';
 import { ApiProblem } from './api-route';
 import { resultOfSavedScenario, type StoredResultOptions } from './stored-results';
@@ -27,7 +28,7 @@ export async function reevaluateStoredResults(
 		const scenario = await getScenarioById(scenarioId, knex);
 		if (!scenario) continue;
 		try {
-			const saved = await resultOfSavedScenario(scenario, { technology }, { knex, engineVersion, evaluate: options.evaluate });
+			const saved = await resultOfSavedScenario(scenario, { technology }, { knex, engineVersion, evaluate: options.evaluate ?? evaluateScenario });
 			if (saved.reused) tally.alreadyStored += 1;
 			else tally.computed += 1;
 		} catch (e) {

@@ -9,7 +9,8 @@ import { db } from '../db/knex';
 import { getStoredMetricsOf, getStoredResult, putStoredResult } from '../db/scenario-results';
 import type { MetricKey } from '../../metrics/catalogue';
 import type { ScenarioRecord } from '../db/scenarios';
-import { evaluateScenario, type EngineResult } from '../engine/evaluate';
+import type { EngineResult } from '../engine/evaluate';
+import { evaluateOnPool } from '../compute/pool';
 import { ENGINE_VERSION } from '../engine/version';
 import type { Scenario } from '../../schemas/scenario';
 import { ApiProblem, validateDocument } from './api-route';
@@ -24,8 +25,8 @@ export interface SavedResult {
 }
 
 export interface StoredResultOptions {
-	/** The engine to run when nothing is stored (tests count its calls). */
-	evaluate?: (document: Scenario) => EngineResult;
+	/** The engine to run when nothing is stored: the compute pool unless given (tests count its calls; scripts call the engine directly). */
+	evaluate?: (document: Scenario) => EngineResult | Promise<EngineResult>;
 	engineVersion?: string;
 	knex?: Knex;
 }
@@ -43,8 +44,8 @@ export async function resultOfSavedScenario(
 	const stored = await getStoredResult(scenario.id, scenario.revision, engineVersion, knex);
 	if (stored) return { result: stored.result, engineVersion, computedAt: stored.computedAt, reused: true };
 	const document = validateDocument(scenario.document, project);
-	const evaluate = options.evaluate ?? evaluateScenario;
-	const result = runEngine(() => evaluate(document));
+	const evaluate = options.evaluate ?? evaluateOnPool;
+	const result = await runEngine(() => evaluate(document));
 	await putStoredResult({ scenarioId: scenario.id, revision: scenario.revision, engineVersion, result }, knex);
 	return { result, engineVersion, computedAt: new Date(), reused: false };
 }

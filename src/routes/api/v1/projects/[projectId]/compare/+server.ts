@@ -5,6 +5,7 @@ import { authorize } from '$lib/server/auth/access';
 import { ApiProblem, apiRoute } from '$lib/server/workbench/api-route';
 import { compareScenarios, type CompareEntry } from '$lib/server/workbench/compare';
 import { resultOfSavedScenario } from '$lib/server/workbench/stored-results';
+import { takeComputeAllowance } from '$lib/server/compute/limits';
 import type { ProjectRow } from '$lib/server/db/projects';
 import type { RequestHandler } from './$types';
 
@@ -23,7 +24,7 @@ async function entryOf(scenario: ScenarioRecord, project: ProjectRow): Promise<C
  * scenarios), each with its differences from the project's base case.
  */
 export const GET: RequestHandler = apiRoute(async (event) => {
-	const { project } = await authorize(event, event.params, 'viewer');
+	const { project, user } = await authorize(event, event.params, 'viewer');
 	const idsParam = event.url.searchParams.get('ids');
 	let ids: string[];
 	if (idsParam === null || idsParam.trim() === '') {
@@ -38,6 +39,7 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 	const found = new Set(scenarios.map((s) => s.id));
 	const missing = ids.flatMap((id, i) => (found.has(id) ? [] : [{ path: `ids[${i}]`, message: 'no such scenario in this project' }]));
 	if (missing.length > 0) throw new ApiProblem(404, 'Some of these scenarios are not in this project.', missing);
+	await takeComputeAllowance(user.id, 'compare');
 
 	const entries = await Promise.all(scenarios.map((s) => entryOf(s, project)));
 	const base = entries.find((e) => e.isBaseCase) ?? null;

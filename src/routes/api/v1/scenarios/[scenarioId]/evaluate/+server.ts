@@ -4,13 +4,15 @@ import { authorize } from '$lib/server/auth/access';
 import { apiRoute, readJsonBody, validateBody } from '$lib/server/workbench/api-route';
 import { documentToEvaluate, evaluateDocument } from '$lib/server/workbench/evaluation';
 import { resultOfSavedScenario } from '$lib/server/workbench/stored-results';
+import { takeComputeAllowance } from '$lib/server/compute/limits';
 import { ENGINE_VERSION } from '$lib/server/engine/version';
 import type { RequestHandler } from './$types';
 
 /**
  * The engine's result for the saved scenario (empty body: a read, open to
  * viewers; the stored result of its revision) or for an unsaved draft
- * `{ document }` (analysts and owners; evaluated live, never stored).
+ * `{ document }` (analysts and owners; evaluated live on the compute pool,
+ * never stored, within the user's limit of draft evaluations).
  */
 export const POST: RequestHandler = apiRoute(async (event) => {
 	const access = await authorize(event, event.params, 'viewer');
@@ -20,5 +22,6 @@ export const POST: RequestHandler = apiRoute(async (event) => {
 		const saved = await resultOfSavedScenario(scenario, access.project);
 		return json({ scenarioId: scenario.id, revision: scenario.revision, source, engineVersion: saved.engineVersion, computedAt: saved.computedAt, result: saved.result });
 	}
-	return json({ scenarioId: scenario.id, revision: scenario.revision, source, engineVersion: ENGINE_VERSION, result: evaluateDocument(document) });
+	await takeComputeAllowance(access.user.id, 'evaluate-draft');
+	return json({ scenarioId: scenario.id, revision: scenario.revision, source, engineVersion: ENGINE_VERSION, result: await evaluateDocument(document) });
 });

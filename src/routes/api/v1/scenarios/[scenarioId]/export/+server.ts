@@ -2,7 +2,9 @@ import { authorize } from '$lib/server/auth/access';
 import { ApiProblem, apiRoute } from '$lib/server/workbench/api-route';
 import { loadScenario } from '$lib/server/workbench/evaluation';
 import { resultOfSavedScenario } from '$lib/server/workbench/stored-results';
-import { buildExport, csvTables, exportFormats, type CsvTableName, type ExportFormat } from '$lib/server/workbench/export';
+import { csvTables, exportFormats, type CsvTableName, type ExportFormat } from '$lib/server/workbench/export';
+import { buildExportOnPool } from '$lib/server/compute/pool';
+import { takeComputeAllowance } from '$lib/server/compute/limits';
 import type { RequestHandler } from './$types';
 
 /**
@@ -11,7 +13,7 @@ import type { RequestHandler } from './$types';
  * table, or `&table=metrics`, the cautions after a blank line).
  */
 export const GET: RequestHandler = apiRoute(async (event) => {
-	const { project, scenarioId } = await authorize(event, event.params, 'viewer');
+	const { project, scenarioId, user } = await authorize(event, event.params, 'viewer');
 	const format = event.url.searchParams.get('format') ?? 'xlsx';
 	const table = event.url.searchParams.get('table') ?? 'cash-flow';
 	if (!(exportFormats as readonly string[]).includes(format)) {
@@ -21,8 +23,9 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 		throw new ApiProblem(422, 'Choose a table to export.', [{ path: 'table', message: `table must be ${csvTables.join(' or ')}` }]);
 	}
 	const scenario = await loadScenario(scenarioId);
+	await takeComputeAllowance(user.id, 'export');
 	const { result } = await resultOfSavedScenario(scenario, project);
-	const file = await buildExport(
+	const file = await buildExportOnPool(
 		result,
 		{ projectName: project.name, scenarioName: scenario.name, revision: scenario.revision, generatedAt: new Date() },
 		format as ExportFormat,

@@ -1,5 +1,7 @@
 import { json } from '@sveltejs/kit';
-import { defaultDrivers, spider } from '$lib/server/engine/sensitivity';
+import { defaultDrivers } from '$lib/server/engine/sensitivity';
+import { spiderOnPool } from '$lib/server/compute/pool';
+import { takeComputeAllowance } from '$lib/server/compute/limits';
 import { authorize } from '$lib/server/auth/access';
 import { apiRoute, readJsonBody, validateBody } from '$lib/server/workbench/api-route';
 import { documentToEvaluate, runEngine } from '$lib/server/workbench/evaluation';
@@ -12,6 +14,7 @@ export const POST: RequestHandler = apiRoute(async (event) => {
 	const body = validateBody(spiderBody, await readJsonBody(event.request, { optional: true }));
 	const { document, source, scenario } = await documentToEvaluate(access, body.document);
 	const drivers = body.drivers ?? defaultDrivers(document).map((d) => d.driver);
-	const result = runEngine(() => spider(document, drivers, body.metric, body.changes));
+	await takeComputeAllowance(access.user.id, 'spider');
+	const result = await runEngine(() => spiderOnPool(document, drivers, body.metric, body.changes));
 	return json({ scenarioId: scenario.id, revision: scenario.revision, source, spider: result });
 });

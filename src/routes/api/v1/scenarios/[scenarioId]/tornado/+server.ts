@@ -1,5 +1,7 @@
 import { json } from '@sveltejs/kit';
-import { defaultDrivers, tornado } from '$lib/server/engine/sensitivity';
+import { defaultDrivers } from '$lib/server/engine/sensitivity';
+import { tornadoOnPool } from '$lib/server/compute/pool';
+import { takeComputeAllowance } from '$lib/server/compute/limits';
 import { authorize } from '$lib/server/auth/access';
 import { apiRoute, readJsonBody, validateBody } from '$lib/server/workbench/api-route';
 import { documentToEvaluate, runEngine } from '$lib/server/workbench/evaluation';
@@ -15,6 +17,7 @@ export const POST: RequestHandler = apiRoute(async (event) => {
 	const body = validateBody(tornadoBody, await readJsonBody(event.request, { optional: true }));
 	const { document, source, scenario } = await documentToEvaluate(access, body.document);
 	const drivers = body.drivers ?? defaultDrivers(document);
-	const result = runEngine(() => tornado(document, drivers, body.metric));
+	await takeComputeAllowance(access.user.id, 'tornado');
+	const result = await runEngine(() => tornadoOnPool(document, drivers, body.metric));
 	return json({ scenarioId: scenario.id, revision: scenario.revision, source, drivers, tornado: result });
 });
