@@ -4,6 +4,7 @@ import { authorize } from '$lib/server/auth/access';
 import { apiError } from '$lib/server/api';
 import { apiRoute } from '$lib/server/workbench/api-route';
 import { receiveUpload } from '$lib/server/workbench/receive-upload';
+import { takeComputeAllowance } from '$lib/server/compute/limits';
 import { readUploadForm } from '$lib/server/workbench/upload-form';
 import { uploadJson, uploadSummaryJson } from '$lib/server/workbench/serialize';
 import type { RequestHandler } from './$types';
@@ -17,12 +18,14 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 /**
  * Multipart `kind` + `file`. A file with any bad row answers 422 with every
  * row and column error (issues with `row` and `column`) and stores nothing;
- * a good file is stored with its parsed data, answered as the preview.
+ * a good file is stored with its parsed data, answered as the preview. The
+ * parse runs on the compute pool, within the user's limit of uploads.
  */
 export const POST: RequestHandler = apiRoute(async (event) => {
 	const { project, user } = await authorize(event, event.params, 'analyst');
 	requireLiveProject(project);
 	const form = await readUploadForm(event.request);
+	await takeComputeAllowance(user.id, 'upload');
 	const received = await receiveUpload({ projectId: project.id, userId: user.id, ...form });
 	if (!received.ok) {
 		const count = received.errors.length;
