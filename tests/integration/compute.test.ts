@@ -15,7 +15,16 @@ import { DRIVER_IDS } from '../../src/lib/server/engine/sensitivity';
 import { COMPUTE_LIMITS, takeComputeAllowance } from '../../src/lib/server/compute/limits';
 import { computePool, spiderOnPool } from '../../src/lib/server/compute/pool';
 import { ApiProblem, apiRoute } from '../../src/lib/server/workbench/api-route';
+import { tornado } from '../../src/lib/server/engine/sensitivity';
+import { evaluateScenario } from '../../src/lib/server/engine/evaluate';
+import { createProject } from '../../src/lib/server/db/projects';
+import { createScenario } from '../../src/lib/server/db/scenarios';
+import { createWorkspaceWithOwner } from '../../src/lib/server/db/workspaces';
+import { callRoute, newSessionUser } from '../helpers/route-event';
+import { tidalDocument } from '../fixtures/scenario-documents';
 import * as healthRoute from '../../src/routes/api/v1/health/+server';
+import * as evaluateRoute from '../../src/routes/api/v1/scenarios/[scenarioId]/evaluate/+server';
+import * as tornadoRoute from '../../src/routes/api/v1/scenarios/[scenarioId]/tornado/+server';
 
 let database: TestDatabase;
 
@@ -69,6 +78,44 @@ describe('takeComputeAllowance', () => {
 		const body = await response.json();
 		expect(body.error.message).toMatch(/^Too many uploads: each user may make 20 in a minute\. Try again in \d+ seconds?\.$/);
 		expect(body.error.issues).toEqual([]);
+	});
+});
+
+describe('the expensive routes', () => {
+	async function tidalScenario() {
+		const owner = await newSessionUser(database.knex, 'analyst');
+		const workspace = await createWorkspaceWithOwner(`Kestle Analysis ${randomUUID()}`, owner.id, database.knex);
+		const project = await createProject({ workspaceId: workspace.id, name: 'Kestle Narrows', technology: 'tidal-stream' }, database.knex);
+		const scenario = await createScenario({ projectId: project.id, name: 'Base', document: tidalDocument, userId: owner.id }, database.knex);
+		return { owner, scenarioId: scenario.id };
+	}
+
+	it("answer the engine's figures computed on the pool: a draft evaluation and a tornado", async () => {
+		const { owner, scenarioId } = await tidalScenario();
+		const draft = { ...tidalDocument, array: { ...tidalDocument.array, availability: 0.9 } };
+		const evaluated = await callRoute(evaluateRoute.POST, owner, { method: 'POST', path: `/api/v1/scenarios/${scenarioId}/evaluate`, params: { scenarioId }, body: { document: draft } });
+		expect(evaluated.status).toBe(200);
+		expect((await evaluated.json()).result).toEqual(JSON.parse(JSON.stringify(evaluateScenario(draft))));
+
+		const drivers = [{ driver: 'capex' as const, low: 0.8, high: 1.2 }];
+		const tornadoAnswer = await callRoute(tornadoRoute.POST, owner, { method: 'POST', path: `/api/v1/scenarios/${scenarioId}/tornado`, params: { scenarioId }, body: { metric: 'lcoeReal', drivers } });
+		expect(tornadoAnswer.status).toBe(200);
+		expect((await tornadoAnswer.json()).tornado).toEqual(tornado(tidalDocument, drivers, 'lcoeReal'));
+	});
+
+	it("refuse a user's tornado past the limit with 429, Retry-After and the usual error shape", async () => {
+		const { owner, scenarioId } = await tidalScenario();
+		await useUp(owner.id, 'tornado', COMPUTE_LIMITS.tornado.points);
+		const call = { method: 'POST', path: `/api/v1/scenarios/${scenarioId}/tornado`, params: { scenarioId }, body: { drivers: [{ driver: 'capex', low: 0.8, high: 1.2 }] } };
+		const refused = await callRoute(tornadoRoute.POST, owner, call);
+		expect(refused.status).toBe(429);
+		expect(Number(refused.headers.get('retry-after'))).toBeGreaterThanOrEqual(1);
+		const body = await refused.json();
+		expect(body.error.message).toMatch(/^Too many tornado runs: each user may make 30 in a minute\. Try again in \d+ seconds?\.$/);
+		expect(body.error.retryAfterSeconds).toBe(Number(refused.headers.get('retry-after')));
+		// A body the route refuses anyway costs nothing: it still answers 422, not 429.
+		const bad = await callRoute(tornadoRoute.POST, owner, { ...call, body: { metric: 'no-such-metric' } });
+		expect(bad.status).toBe(422);
 	});
 });
 

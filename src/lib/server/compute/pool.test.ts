@@ -1,4 +1,5 @@
 import { readFileSync } from 'node:fs';
+import ExcelJS from 'exceljs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parseScenario, type Scenario } from '../../schemas/scenario';
 import { evaluateScenario } from '../engine/evaluate';
@@ -96,6 +97,20 @@ describe('ComputePool.run', () => {
 		const direct = await buildExport(result, context, 'csv', 'cash-flow');
 		expect(pooled.fileName).toBe(direct.fileName);
 		expect(new TextDecoder().decode(pooled.body)).toBe(new TextDecoder().decode(direct.body));
+	});
+
+	it('builds the workbook export with the same sheets and cells as on this thread', async () => {
+		const result = evaluateScenario(examples.tidal);
+		const context = { projectName: 'Kestle Narrows', scenarioName: 'Base', revision: 1, generatedAt: new Date('2026-01-02T03:04:05Z') };
+		const pooled = await pool.run('buildExport', { result, context, format: 'xlsx', table: 'cash-flow' });
+		const direct = await buildExport(result, context, 'xlsx');
+		const sheets = async (body: Uint8Array) => {
+			const book = new ExcelJS.Workbook();
+			await book.xlsx.load(body as unknown as ArrayBuffer);
+			return book.worksheets.map((sheet) => ({ name: sheet.name, rows: sheet.getSheetValues().map((row) => JSON.stringify(row)) }));
+		};
+		expect(pooled.fileName).toBe('base-r1.xlsx');
+		expect(await sheets(pooled.body)).toEqual(await sheets(direct.body));
 	});
 
 	it("brings an engine refusal back as a RangeError, answered 422 in the engine's words", async () => {

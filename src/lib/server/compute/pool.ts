@@ -73,8 +73,11 @@ export class ComputePool {
 	}
 
 	static async start(options: ComputePoolOptions = {}): Promise<ComputePool> {
-		// Imported for its address only, and only dynamically, so the build keeps it as its own file.
-		const { tasksFileUrl } = await import('./worker');
+		// Imported only dynamically, so the build keeps it as a file of its own; its entry point is
+		// named here so the build cannot shake the tasks out of that file as unused.
+		const tasks = await import('./worker');
+		if (typeof tasks.runTask !== 'function') throw new Error('The compute worker file has no runTask.');
+		const { tasksFileUrl } = tasks;
 		// From the sources (Vite's dev server, vitest) a thread needs tsx to read TypeScript; a build is plain JavaScript.
 		const fromSources = tasksFileUrl.endsWith('.ts');
 		const threads = options.threads ?? computeThreadCount();

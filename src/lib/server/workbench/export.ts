@@ -2,7 +2,6 @@
 import { CAUTIONS } from '../../cautions';
 import type { EngineResult } from '../engine/evaluate';
 import { tableToCsv } from './export-csv';
-import { tablesToXlsx } from './export-xlsx';
 import { aboutTable, cashFlowTable, cautionsTable, metricsCsvTable, metricsSheetTable, warningsTable, type ExportContext } from './export-tables';
 
 export const exportFormats = ['csv', 'xlsx'] as const;
@@ -39,6 +38,8 @@ export async function buildExport(
 		const csv = tableToCsv(table === 'metrics' ? metricsCsvTable(result) : cashFlowTable(result), CAUTIONS);
 		return { body: new TextEncoder().encode(csv), contentType: 'text/csv; charset=utf-8', fileName: `${stem}-${table}.csv` };
 	}
+	// exceljs takes over half a second to load: only where a workbook is built (a compute-pool thread).
+	const { tablesToXlsx } = await import('./export-xlsx');
 	const body = await tablesToXlsx(
 		[aboutTable(result, context), cashFlowTable(result), metricsSheetTable(result), warningsTable(result), cautionsTable()],
 		{ title: `${context.projectName}: ${context.scenarioName}` }
