@@ -17,8 +17,19 @@ api() {
 		-H "Authorization: Bearer ${TIDEWRIGHT_TOKEN}" -H 'Accept: application/json' "$@"
 }
 
+# Lists come a page at a time: each page's nextCursor goes back as ?cursor= until it is null.
+every_page() {
+	local url="$1" cursor='' page
+	while :; do
+		page=$(api "${url}?limit=500${cursor:+&cursor=${cursor}}")
+		jq -c '.' <<<"$page"
+		cursor=$(jq -r '.nextCursor // empty' <<<"$page")
+		[ -n "$cursor" ] || break
+	done
+}
+
 workspace=$(api "${base}/api/v1/workspaces" | jq -r '.workspaces[0].id')
-projects=$(api "${base}/api/v1/workspaces/${workspace}/projects")
+projects=$(every_page "${base}/api/v1/workspaces/${workspace}/projects" | jq -s '{ workspace: .[0].workspace, projects: (map(.projects) | add) }')
 echo "Projects in $(jq -r '.workspace.name' <<<"$projects"):"
 jq -r '.projects[] | "  \(.name) · \(.technology) · \(.id)"' <<<"$projects"
 
@@ -32,7 +43,7 @@ figures='def shown(p): if . == null then "n/a" else (tonumber * pow(10; p) | rou
 	"    Net annual energy, P50   \(.result.metrics.netAepMWh | shown(0)) MWh/yr"'
 
 jq -r '.projects[] | "\(.id)\t\(.name)"' <<<"$projects" | while IFS=$'\t' read -r project name; do
-	# The base case, or the first live scenario when none is marked.
+	# The base case (listed first), or the first live scenario when none is marked.
 	scenario=$(api "${base}/api/v1/projects/${project}/scenarios" | jq -r '([.scenarios[] | select(.isBaseCase)] + .scenarios)[0].id // empty')
 	if [ -z "$scenario" ]; then
 		echo "${name}: no scenarios yet"

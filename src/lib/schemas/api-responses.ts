@@ -6,6 +6,7 @@
  * they do not produce them.
  */
 import { z } from 'zod';
+import { nextCursorSchema } from './paging';
 import { scenarioSchema } from './scenario';
 import { technologies, uploadKinds } from './workbench';
 
@@ -75,6 +76,18 @@ export const scenarioListItemJsonSchema = scenarioSummaryJsonSchema.extend({
 		.describe('Null when the revision has no stored result of the current engine yet (for example just after an engine change)')
 });
 
+export const projectListJsonSchema = z.object({
+	workspace: workspaceJsonSchema,
+	projects: z.array(projectJsonSchema).describe('By name, then id'),
+	nextCursor: nextCursorSchema
+});
+
+export const scenarioListJsonSchema = z.object({
+	project: projectJsonSchema,
+	scenarios: z.array(scenarioListItemJsonSchema).describe('The base case first, then by name, then oldest first'),
+	nextCursor: nextCursorSchema
+});
+
 export const scenarioJsonSchema = scenarioSummaryJsonSchema.extend({
 	document: scenarioSchema.describe('The scenario document in the current format (an older stored one is upgraded in the answer, not in storage)'),
 	upgradedFrom: z.number().int().nullable().describe('The format version the stored document was upgraded from for this answer; null when stored in the current format'),
@@ -100,6 +113,11 @@ export const uploadSummaryJsonSchema = z.object({
 	sha256: z.string().regex(/^[0-9a-f]{64}$/),
 	uploadedBy: personRefSchema.nullable(),
 	createdAt: isoDateTime
+});
+
+export const uploadListJsonSchema = z.object({
+	uploads: z.array(uploadSummaryJsonSchema).describe('Newest first'),
+	nextCursor: nextCursorSchema
 });
 
 export const uploadJsonSchema = uploadSummaryJsonSchema.extend({

@@ -19,17 +19,21 @@ import {
 	metricsJsonSchema,
 	personRefSchema,
 	projectJsonSchema,
+	projectListJsonSchema,
 	revisionJsonSchema,
 	scenarioJsonSchema,
 	scenarioListItemJsonSchema,
+	scenarioListJsonSchema,
 	spiderResponseSchema,
 	tornadoResponseSchema,
 	uploadJsonSchema,
+	uploadListJsonSchema,
 	uploadSummaryJsonSchema,
 	workspaceJsonSchema,
 	workspaceRoleSchema,
 	workspaceWithPlanJsonSchema
 } from '../../schemas/api-responses';
+import { pageCursorSchema, pageLimitSchema } from '../../schemas/paging';
 import { scenarioSchema } from '../../schemas/scenario';
 import {
 	applyUploadBody,
@@ -140,6 +144,14 @@ const archivedQuery: QueryParameter = {
 	schema: z.enum(['1'])
 };
 
+/** Every list is paged: follow nextCursor until it is null. */
+const pageQuery: QueryParameter[] = [
+	{ name: 'limit', required: false, description: pageLimitSchema.description!, schema: pageLimitSchema },
+	{ name: 'cursor', required: false, description: pageCursorSchema.description!, schema: pageCursorSchema }
+];
+
+const pagedDescription = 'A page at a time: send the answer\'s nextCursor back as ?cursor= for the next page, until it is null. A cursor this list did not give out is refused (422, cursor).';
+
 const draftDocument =
 	'An unsaved draft to calculate instead of the saved scenario (needs the analyst role, and with an API token a read-write one). Leave it out to use the saved scenario.';
 
@@ -213,14 +225,12 @@ export const apiOperations: ApiOperation[] = [
 		path: '/api/v1/workspaces/{workspaceId}/projects',
 		tag: 'Projects',
 		summary: "List a workspace's projects",
+		description: pagedDescription,
 		minimumRole: 'viewer',
 		apiToken: 'read-only',
-		query: [archivedQuery],
-		response: {
-			status: 200,
-			description: 'The workspace and its projects',
-			json: z.object({ workspace: workspaceJsonSchema, projects: z.array(projectJsonSchema) })
-		}
+		query: [archivedQuery, ...pageQuery],
+		response: { status: 200, description: 'The workspace and a page of its projects, by name', json: projectListJsonSchema },
+		otherErrors: [422]
 	},
 	{
 		operationId: 'createProject',
@@ -284,14 +294,12 @@ export const apiOperations: ApiOperation[] = [
 		path: '/api/v1/projects/{projectId}/scenarios',
 		tag: 'Scenarios',
 		summary: "List a project's scenarios with their key figures (without their documents)",
+		description: pagedDescription,
 		minimumRole: 'viewer',
 		apiToken: 'read-only',
-		query: [archivedQuery],
-		response: {
-			status: 200,
-			description: 'The project and its scenarios',
-			json: z.object({ project: projectJsonSchema, scenarios: z.array(scenarioListItemJsonSchema) })
-		}
+		query: [archivedQuery, ...pageQuery],
+		response: { status: 200, description: 'The project and a page of its scenarios, the base case first', json: scenarioListJsonSchema },
+		otherErrors: [422]
 	},
 	{
 		operationId: 'createScenario',
@@ -316,9 +324,12 @@ export const apiOperations: ApiOperation[] = [
 		path: '/api/v1/projects/{projectId}/uploads',
 		tag: 'Uploads',
 		summary: "List a project's uploads, newest first",
+		description: pagedDescription,
 		minimumRole: 'viewer',
 		apiToken: 'read-only',
-		response: { status: 200, description: 'The uploads without their data', json: z.object({ uploads: z.array(uploadSummaryJsonSchema) }) }
+		query: pageQuery,
+		response: { status: 200, description: 'A page of the uploads, without their data', json: uploadListJsonSchema },
+		otherErrors: [422]
 	},
 	{
 		operationId: 'createUpload',

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { db } from './knex';
+import { keysetPage, type KeysetPage, type KeysetRequest } from './keyset';
 
 export const projectColumns = [
 	'id',
@@ -27,12 +28,15 @@ export interface ProjectRow {
 	archived_at: Date | null;
 }
 
+/** Projects are listed by name, then id (so two of the same name keep one order). */
+const projectOrder = [{ column: 'name' }, { column: 'id' }];
+
 export async function listProjectsInWorkspace(workspaceId: string, knex: Knex = db()): Promise<ProjectRow[]> {
 	return knex('projects')
 		.select(projectColumns)
 		.where({ workspace_id: workspaceId })
 		.whereNull('archived_at')
-		.orderBy('name');
+		.orderBy(projectOrder);
 }
 
 export async function listArchivedProjectsInWorkspace(workspaceId: string, knex: Knex = db()): Promise<ProjectRow[]> {
@@ -40,7 +44,24 @@ export async function listArchivedProjectsInWorkspace(workspaceId: string, knex:
 		.select(projectColumns)
 		.where({ workspace_id: workspaceId })
 		.whereNotNull('archived_at')
-		.orderBy('name');
+		.orderBy(projectOrder);
+}
+
+/** Where a project sits in the list: its name and id. */
+export type ProjectListKey = [name: string, id: string];
+
+/** One page of the workspace's live (or archived) projects, in list order, after `after`. */
+export async function listProjectsPage(
+	workspaceId: string,
+	request: KeysetRequest<ProjectListKey> & { archived?: boolean },
+	knex: Knex = db()
+): Promise<KeysetPage<ProjectRow, ProjectListKey>> {
+	const query = knex('projects').select(projectColumns).where({ workspace_id: workspaceId });
+	if (request.archived) query.whereNotNull('archived_at');
+	else query.whereNull('archived_at');
+	if (request.after) query.whereRaw('(name, id) > (?, ?::uuid)', request.after);
+	const rows: ProjectRow[] = await query.orderBy(projectOrder).limit(request.limit + 1);
+	return keysetPage(rows, request.limit, (row): ProjectListKey => [row.name, row.id]);
 }
 
 /** Any project, archived or not; callers check the workspace membership. */

@@ -11,6 +11,7 @@
  */
 import type { Knex } from 'knex';
 import { db } from './knex';
+import { exactTimestamp, keysetPage, type KeysetPage, type KeysetRequest } from './keyset';
 import type { Scenario } from '../../schemas/scenario';
 import { changedSections, describeEdit } from '../workbench/document-changes';
 
@@ -134,6 +135,13 @@ function summaries(knex: Knex) {
 		.leftJoin('users as updater', 'updater.id', 'scenarios.updated_by');
 }
 
+/**
+ * The base case first, then by name, then oldest first, then by id: every
+ * column ascending (the base case as `not is_base_case`), so one row
+ * comparison pages through the list.
+ */
+const scenarioListOrder = 'not scenarios.is_base_case, scenarios.name, scenarios.created_at, scenarios.id';
+
 export async function listScenariosInProject(
 	projectId: string,
 	options: { archived?: boolean } = {},
@@ -142,12 +150,30 @@ export async function listScenariosInProject(
 	const query = summaries(knex).select(summaryColumns).where('scenarios.project_id', projectId);
 	if (options.archived) query.whereNotNull('scenarios.archived_at');
 	else query.whereNull('scenarios.archived_at');
-	const rows: SummaryDbRow[] = await query.orderBy([
-		{ column: 'scenarios.is_base_case', order: 'desc' },
-		{ column: 'scenarios.name' },
-		{ column: 'scenarios.created_at' }
-	]);
+	const rows: SummaryDbRow[] = await query.orderByRaw(scenarioListOrder);
 	return rows.map(toSummary);
+}
+
+/** Where a scenario sits in the list: base case or not, name, when it was created (to the microsecond), id. */
+export type ScenarioListKey = [isBaseCase: boolean, name: string, createdAt: string, id: string];
+
+/** One page of the project's live (or archived) scenarios, in list order, after `after`. */
+export async function listScenariosPage(
+	projectId: string,
+	request: KeysetRequest<ScenarioListKey> & { archived?: boolean },
+	knex: Knex = db()
+): Promise<KeysetPage<ScenarioSummary, ScenarioListKey>> {
+	const query = summaries(knex)
+		.select([...summaryColumns, knex.raw(`${exactTimestamp('scenarios.created_at')} as created_at_key`)])
+		.where('scenarios.project_id', projectId);
+	if (request.archived) query.whereNotNull('scenarios.archived_at');
+	else query.whereNull('scenarios.archived_at');
+	if (request.after) {
+		query.whereRaw(`(${scenarioListOrder}) > (not ?::boolean, ?, ?::timestamptz, ?::uuid)`, request.after);
+	}
+	const rows: (SummaryDbRow & { created_at_key: string })[] = await query.orderByRaw(scenarioListOrder).limit(request.limit + 1);
+	const page = keysetPage(rows, request.limit, (row): ScenarioListKey => [row.is_base_case, row.name, row.created_at_key, row.id]);
+	return { items: page.items.map(toSummary), nextKey: page.nextKey };
 }
 
 export async function getScenarioById(id: string, knex: Knex = db()): Promise<ScenarioRecord | undefined> {

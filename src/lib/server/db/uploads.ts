@@ -6,6 +6,7 @@
 import type { Knex } from 'knex';
 import { createHash } from 'node:crypto';
 import { db } from './knex';
+import { exactTimestamp, keysetPage, type KeysetPage, type KeysetRequest } from './keyset';
 import type { UploadKind } from '../../schemas/workbench';
 import type { PersonRef } from './scenarios';
 
@@ -107,13 +108,34 @@ export async function storeUpload(input: NewUpload, knex: Knex = db()): Promise<
 	return (await getUploadById(row.id, knex))!;
 }
 
+/** Newest first, then by id (both descending, so one row comparison pages through them). */
+const uploadOrder = [
+	{ column: 'uploads.created_at', order: 'desc' },
+	{ column: 'uploads.id', order: 'desc' }
+];
+
 /** Newest first, without file contents or parsed data. */
 export async function listUploadsInProject(projectId: string, knex: Knex = db()): Promise<UploadSummary[]> {
-	const rows: SummaryDbRow[] = await withUploader(knex)
-		.select(summaryColumns)
-		.where('uploads.project_id', projectId)
-		.orderBy([{ column: 'uploads.created_at', order: 'desc' }, { column: 'uploads.id' }]);
+	const rows: SummaryDbRow[] = await withUploader(knex).select(summaryColumns).where('uploads.project_id', projectId).orderBy(uploadOrder);
 	return rows.map(toSummary);
+}
+
+/** Where an upload sits in the list: when it came, to the microsecond, and its id. */
+export type UploadListKey = [createdAt: string, id: string];
+
+/** One page of the project's uploads, newest first, after `after`. */
+export async function listUploadsPage(
+	projectId: string,
+	request: KeysetRequest<UploadListKey>,
+	knex: Knex = db()
+): Promise<KeysetPage<UploadSummary, UploadListKey>> {
+	const query = withUploader(knex)
+		.select([...summaryColumns, knex.raw(`${exactTimestamp('uploads.created_at')} as created_at_key`)])
+		.where('uploads.project_id', projectId);
+	if (request.after) query.whereRaw('(uploads.created_at, uploads.id) < (?::timestamptz, ?::uuid)', request.after);
+	const rows: (SummaryDbRow & { created_at_key: string })[] = await query.orderBy(uploadOrder).limit(request.limit + 1);
+	const page = keysetPage(rows, request.limit, (row): UploadListKey => [row.created_at_key, row.id]);
+	return { items: page.items.map(toSummary), nextKey: page.nextKey };
 }
 
 /** An upload with its parsed data, without the file contents. */

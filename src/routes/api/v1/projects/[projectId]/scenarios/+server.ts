@@ -1,21 +1,34 @@
 import { json } from '@sveltejs/kit';
-import { createScenario, listScenariosInProject } from '$lib/server/db/scenarios';
+import { z } from 'zod';
+import { createScenario, listScenariosPage } from '$lib/server/db/scenarios';
 import { createScenarioBody } from '$lib/schemas/workbench';
 import { authorize } from '$lib/server/auth/access';
+import { exactTimestampPattern } from '$lib/server/db/keyset';
 import { ApiProblem, apiRoute, readJsonBody, validateBody, validateDocument, withName } from '$lib/server/workbench/api-route';
 import { projectJson, scenarioJson, scenarioSummaryJson } from '$lib/server/workbench/serialize';
 import { starterDocument } from '$lib/server/workbench/starter-documents';
+import { nextCursor, readPageRequest } from '$lib/server/workbench/paging';
 import { storeResultOfSave, storedKeyFigures } from '$lib/server/workbench/stored-results';
 import type { RequestHandler } from './$types';
 import { requireLiveProject } from '$lib/server/workbench/live-project';
 
-/** The project's scenarios without their documents, with their stored key figures; `?archived=1` lists the archived ones. */
+const scenarioKey = z.tuple([z.boolean(), z.string(), z.string().regex(exactTimestampPattern), z.uuid()]);
+
+/**
+ * The project's scenarios without their documents, with their stored key
+ * figures, the base case first, a page at a time (`?limit=`, `?cursor=`);
+ * `?archived=1` lists the archived ones.
+ */
 export const GET: RequestHandler = apiRoute(async (event) => {
 	const { project } = await authorize(event, event.params, 'viewer');
 	const archived = event.url.searchParams.get('archived') === '1';
-	const scenarios = await listScenariosInProject(project.id, { archived });
-	const figures = await storedKeyFigures(scenarios);
-	return json({ project: projectJson(project), scenarios: scenarios.map((s) => ({ ...scenarioSummaryJson(s), keyFigures: figures[s.id] })) });
+	const page = await listScenariosPage(project.id, { archived, ...readPageRequest(event.url, 'scenarios', scenarioKey) });
+	const figures = await storedKeyFigures(page.items);
+	return json({
+		project: projectJson(project),
+		scenarios: page.items.map((s) => ({ ...scenarioSummaryJson(s), keyFigures: figures[s.id] })),
+		nextCursor: nextCursor('scenarios', page.nextKey)
+	});
 });
 
 /** A new scenario from the document sent, or from the starter document of the project's technology. */

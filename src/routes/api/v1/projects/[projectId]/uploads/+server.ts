@@ -1,8 +1,11 @@
 import { json } from '@sveltejs/kit';
-import { listUploadsInProject } from '$lib/server/db/uploads';
+import { z } from 'zod';
+import { exactTimestampPattern } from '$lib/server/db/keyset';
+import { listUploadsPage } from '$lib/server/db/uploads';
 import { authorize } from '$lib/server/auth/access';
 import { apiError } from '$lib/server/api';
 import { apiRoute } from '$lib/server/workbench/api-route';
+import { nextCursor, readPageRequest } from '$lib/server/workbench/paging';
 import { receiveUpload } from '$lib/server/workbench/receive-upload';
 import { takeComputeAllowance } from '$lib/server/compute/limits';
 import { readUploadForm } from '$lib/server/workbench/upload-form';
@@ -10,9 +13,13 @@ import { uploadJson, uploadSummaryJson } from '$lib/server/workbench/serialize';
 import type { RequestHandler } from './$types';
 import { requireLiveProject } from '$lib/server/workbench/live-project';
 
+const uploadKey = z.tuple([z.string().regex(exactTimestampPattern), z.uuid()]);
+
+/** The project's uploads, newest first, a page at a time (`?limit=`, `?cursor=`). */
 export const GET: RequestHandler = apiRoute(async (event) => {
 	const { project } = await authorize(event, event.params, 'viewer');
-	return json({ uploads: (await listUploadsInProject(project.id)).map(uploadSummaryJson) });
+	const page = await listUploadsPage(project.id, readPageRequest(event.url, 'uploads', uploadKey));
+	return json({ uploads: page.items.map(uploadSummaryJson), nextCursor: nextCursor('uploads', page.nextKey) });
 });
 
 /**

@@ -1,17 +1,25 @@
 import { json } from '@sveltejs/kit';
+import { z } from 'zod';
 import { authorize } from '$lib/server/auth/access';
-import { createProject, listArchivedProjectsInWorkspace, listProjectsInWorkspace } from '$lib/server/db/projects';
+import { createProject, listProjectsPage } from '$lib/server/db/projects';
 import { createProjectBody } from '$lib/schemas/workbench';
 import { apiRoute, readJsonBody, validateBody } from '$lib/server/workbench/api-route';
+import { nextCursor, readPageRequest } from '$lib/server/workbench/paging';
 import { projectJson } from '$lib/server/workbench/serialize';
 import type { RequestHandler } from './$types';
 
-/** The workspace's projects; `?archived=1` lists the archived ones instead. */
+const projectKey = z.tuple([z.string(), z.uuid()]);
+
+/** The workspace's projects by name, a page at a time (`?limit=`, `?cursor=`); `?archived=1` lists the archived ones instead. */
 export const GET: RequestHandler = apiRoute(async (event) => {
 	const { membership } = await authorize(event, event.params, 'viewer');
 	const archived = event.url.searchParams.get('archived') === '1';
-	const rows = archived ? await listArchivedProjectsInWorkspace(membership.workspaceId) : await listProjectsInWorkspace(membership.workspaceId);
-	return json({ workspace: { id: membership.workspaceId, name: membership.workspaceName, role: membership.role }, projects: rows.map(projectJson) });
+	const page = await listProjectsPage(membership.workspaceId, { archived, ...readPageRequest(event.url, 'projects', projectKey) });
+	return json({
+		workspace: { id: membership.workspaceId, name: membership.workspaceName, role: membership.role },
+		projects: page.items.map(projectJson),
+		nextCursor: nextCursor('projects', page.nextKey)
+	});
 });
 
 export const POST: RequestHandler = apiRoute(async (event) => {
