@@ -29,6 +29,7 @@ export const COMPUTE_TIMEOUT_MS = 20_000;
 const QUEUE_PER_THREAD = 16;
 const BUSY_RETRY_SECONDS = 5;
 const MAX_THREADS = 64;
+const COMPUTE_NICE_INCREMENT = 10;
 
 /** Worker threads from the COMPUTE_THREADS setting, else min(2, cores - 1), at least 1. */
 export function computeThreadCount(setting: string | undefined = process.env.COMPUTE_THREADS, cores: number = availableParallelism()): number {
@@ -89,7 +90,9 @@ export class ComputePool {
 			maxThreads: threads,
 			// A built app keeps its threads warm; from the sources idle threads end, so the next one reads edited code.
 			minThreads: fromSources ? 0 : threads,
-			idleTimeout: fromSources ? 10_000 : 0
+			idleTimeout: fromSources ? 10_000 : 0,
+			// Lower CPU priority (Linux nice, per thread): when cores are short, answering requests comes first.
+			niceIncrement: COMPUTE_NICE_INCREMENT
 		});
 		return new ComputePool(piscina, threads, options.timeoutMs ?? COMPUTE_TIMEOUT_MS, maxQueue);
 	}
