@@ -7,6 +7,7 @@ import { anonymous } from '$lib/server/auth/principal';
 import { apiError } from '$lib/server/api';
 import { SettingsError, checkSettings, cookiesAreSecure, webSettings } from '$lib/server/settings';
 import { crossSiteRefusal } from '$lib/server/cross-site';
+import { computePool } from '$lib/server/compute/pool';
 import { DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from '$lib/server/db/errors';
 import { devInboxEnabled } from '$lib/server/mail/dev-inbox';
 
@@ -19,6 +20,8 @@ export const init: ServerInit = () => {
 		console.error(e.message);
 		process.exit(78); // EX_CONFIG: a configuration error, not a crash
 	}
+	// The compute threads load the engine off the request thread; start them now rather than on the first evaluation.
+	void computePool().catch((e: unknown) => console.error('[compute] the worker pool did not start:', e));
 };
 
 function isApiPath(path: string) {

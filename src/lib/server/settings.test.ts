@@ -1,6 +1,6 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { env } from '$env/dynamic/private';
-import { SettingsError, checkSettings, cookiesAreSecure, databaseSettings, mailSettings, webSettings } from './settings';
+import { SettingsError, checkSettings, computeSettings, cookiesAreSecure, databaseSettings, mailSettings, webSettings } from './settings';
 
 const appEnv = env as Record<string, string | undefined>;
 const saved = { ...appEnv };
@@ -75,6 +75,28 @@ describe('mailSettings', () => {
 	it('reads a full set', () => {
 		use({ SMTP_HOST: 'mail.example', SMTP_PORT: '2525', SMTP_SECURE: 'true', SMTP_USER: 'u', SMTP_PASSWORD: 'p', MAIL_FROM: 'Ops <ops@example.test>' });
 		expect(mailSettings()).toMatchObject({ host: 'mail.example', port: 2525, secure: true, auth: { user: 'u', pass: 'p' }, from: 'Ops <ops@example.test>' });
+	});
+});
+
+describe('computeSettings', () => {
+	it('refuses a thread count that is not a whole number from 1 to 64', () => {
+		for (const bad of ['0', 'two', '1.5', '65']) {
+			use({ COMPUTE_THREADS: bad });
+			expect(problemsOf(() => computeSettings()), bad).toEqual([expect.stringMatching(/^COMPUTE_THREADS must be a whole number/)]);
+		}
+		use({ COMPUTE_THREADS: '3' });
+		expect(computeSettings().threads).toBe(3);
+	});
+
+	it('lifts the engine limits for the benchmark only on a loopback demo, never in production', () => {
+		use({ TIDEWRIGHT_BENCH: '1', HOST: '127.0.0.1', ORIGIN: 'http://127.0.0.1:3200', NODE_ENV: undefined });
+		expect(computeSettings().benchLimitsLifted).toBe(true);
+		use({ HOST: '0.0.0.0' });
+		expect(computeSettings().benchLimitsLifted).toBe(false);
+		use({ HOST: '127.0.0.1', NODE_ENV: 'production' });
+		expect(computeSettings().benchLimitsLifted).toBe(false);
+		use({ NODE_ENV: undefined, TIDEWRIGHT_BENCH: undefined });
+		expect(computeSettings().benchLimitsLifted).toBe(false);
 	});
 });
 

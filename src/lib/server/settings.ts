@@ -45,6 +45,15 @@ const sections = {
 		HOST: z.string().trim().optional(),
 		NODE_ENV: z.string().optional()
 	}),
+	compute: z.object({
+		COMPUTE_THREADS: z.coerce
+			.number({ message: 'must be a whole number of worker threads from 1 to 64' })
+			.int('must be a whole number of worker threads from 1 to 64')
+			.min(1, 'must be a whole number of worker threads from 1 to 64')
+			.max(64, 'must be a whole number of worker threads from 1 to 64')
+			.optional(),
+		TIDEWRIGHT_BENCH: z.enum(['1'], { message: 'must be 1 or unset' }).optional()
+	}),
 	mail: z.object({
 		SMTP_HOST: z.string({ message: 'is not set: Tidewright sends verification, reset and invitation mail (`npm start` points it at the local sink)' }).trim().min(1, 'is empty'),
 		SMTP_PORT: port.default(587),
@@ -112,6 +121,22 @@ export function webSettings(): WebSettings {
 /** Secure cookies wherever the app is served over https; plain http only on a local http origin. */
 export function cookiesAreSecure(requestUrl: URL): boolean {
 	return (webSettings().origin ?? requestUrl.origin).startsWith('https://');
+}
+
+export interface ComputeSettings {
+	/** Worker threads for engine and parsing work; null: the pool's own default. */
+	threads: number | null;
+	/**
+	 * `npm run bench:http` lifts the per-user limits on engine routes so its load
+	 * is real load. Honoured only for a local demo on loopback, never in production.
+	 */
+	benchLimitsLifted: boolean;
+}
+
+export function computeSettings(): ComputeSettings {
+	const compute = section('compute');
+	const web = webSettings();
+	return { threads: compute.COMPUTE_THREADS ?? null, benchLimitsLifted: compute.TIDEWRIGHT_BENCH === '1' && web.loopbackOnly && !web.production };
 }
 
 export interface MailSettings {

@@ -9,6 +9,7 @@
 import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
 import { db } from '../db/knex';
 import { ApiProblem } from '../workbench/api-route';
+import { computeSettings } from '../settings';
 
 /** Requests each user may make per window, by kind of work. */
 export const COMPUTE_LIMITS = {
@@ -58,6 +59,7 @@ function secondsWords(seconds: number): string {
  * and checked, just before the work, so a refused body costs nothing.
  */
 export async function takeComputeAllowance(userId: string, action: ComputeAction): Promise<void> {
+	if (computeSettings().benchLimitsLifted) return;
 	try {
 		await limiterFor(action).consume(userId);
 	} catch (rejection) {

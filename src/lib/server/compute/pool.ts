@@ -13,6 +13,7 @@
 import { availableParallelism } from 'node:os';
 import { Piscina } from 'piscina';
 import { ApiProblem } from '../workbench/api-route';
+import { computeSettings } from '../settings';
 import type { EngineResult } from '../engine/evaluate';
 import type { DriverId, DriverRange, TornadoResult } from '../engine/sensitivity';
 import type { UploadResult } from '../uploads';
@@ -31,8 +32,8 @@ const BUSY_RETRY_SECONDS = 5;
 const MAX_THREADS = 64;
 const COMPUTE_NICE_INCREMENT = 10;
 
-/** Worker threads from the COMPUTE_THREADS setting, else min(2, cores - 1), at least 1. */
-export function computeThreadCount(setting: string | undefined = process.env.COMPUTE_THREADS, cores: number = availableParallelism()): number {
+/** Worker threads from the COMPUTE_THREADS setting (checked at start-up in settings.ts), else min(2, cores - 1), at least 1. */
+export function computeThreadCount(setting: string | undefined = computeSettings().threads?.toString(), cores: number = availableParallelism()): number {
 	if (setting === undefined || setting.trim() === '') return Math.max(1, Math.min(2, cores - 1));
 	const threads = Number(setting.trim());
 	if (!Number.isInteger(threads) || threads < 1 || threads > MAX_THREADS) {
