@@ -6,6 +6,9 @@ import { vitePreprocess } from '@sveltejs/vite-plugin-svelte';
  * from the app's own origin only, plus SvelteKit's own inline start-up script,
  * which it marks with a per-response nonce ('auto': a hash instead on any
  * prerendered page); no 'unsafe-inline' and no 'unsafe-eval' for scripts.
+ * A nonce rather than 'hash' on rendered pages because that start-up script
+ * carries the page's data (130 KB on the scenario editor), and SvelteKit
+ * would hash it in JavaScript on every request.
  *
  * Styles allow 'unsafe-inline' on purpose: pages carry style attributes that
  * SvelteKit cannot hash (app.html's `display: contents` wrapper, a chart's
