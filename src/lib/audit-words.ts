@@ -9,6 +9,7 @@ export const auditEventWords: Record<string, string> = {
 	'sign-out': 'Signed out',
 	'sign-out-everywhere': 'Signed out on every device',
 	'sign-up': 'Made an account',
+	'sign-up-existing-address': 'Someone tried to make a second account with this address',
 	'email-verified': 'Confirmed e-mail address',
 	'password-reset-requested': 'Asked for a password reset',
 	'password-reset': 'Reset password by e-mail',

@@ -1,87 +1,68 @@
 /**
- * Brute-force limits on sign-in, kept in PostgreSQL so every app process
- * shares them (rate-limiter-flexible's Postgres store). Each attempt takes its
- * point before the password is checked, so a burst of parallel guesses cannot
- * all pass a check made before any of them is counted; a success clears the
- * account's counter and hands the address's point back, so in effect only
- * failures count. The key is the e-mail as typed, so unknown and known
- * addresses behave alike.
+ * The tools every limit in the app is built from: counters kept in PostgreSQL
+ * (rate-limiter-flexible's Postgres store, table rate_limits) so every app
+ * process shares them, a key for an e-mail address that neither stores the
+ * address nor depends on whether it has an account, and the wait in words.
+ * The policies live beside their journeys (sign-in-limits.ts, mail-limits.ts).
  */
 import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
 import { db } from '../db/knex';
+import { normaliseEmail } from '../db/users';
+import { hashToken } from './tokens';
 
-const FIFTEEN_MINUTES = 15 * 60;
+export const RATE_LIMIT_TABLE = 'rate_limits';
 
-let limiters: { account: RateLimiterPostgres; ip: RateLimiterPostgres; resetMail: RateLimiterPostgres } | undefined;
-
-function make(keyPrefix: string, points: number, duration: number, blockDuration = 0) {
+export function storedLimiter(keyPrefix: string, points: number, durationSeconds: number, blockSeconds = 0): RateLimiterPostgres {
 	return new RateLimiterPostgres({
 		storeClient: db(),
 		storeType: 'knex',
-		tableName: 'rate_limits',
+		tableName: RATE_LIMIT_TABLE,
 		tableCreated: true,
 		keyPrefix,
 		points,
-		duration,
-		blockDuration
+		duration: durationSeconds,
+		blockDuration: blockSeconds
 	});
 }
 
-function get() {
-	limiters ??= {
-		account: make('signin-account', 5, FIFTEEN_MINUTES, FIFTEEN_MINUTES),
-		ip: make('signin-ip', 50, FIFTEEN_MINUTES, FIFTEEN_MINUTES),
-		resetMail: make('reset-mail', 5, 60 * 60)
-	};
-	return limiters;
-}
-
-export interface LimitState {
-	blocked: boolean;
-	retryAfterSeconds: number;
-}
-
-function refusal(outcome: PromiseSettledResult<RateLimiterRes>): RateLimiterRes | null {
-	if (outcome.status === 'fulfilled') return null;
-	if (outcome.reason instanceof RateLimiterRes) return outcome.reason;
-	throw outcome.reason;
-}
-
 /**
- * Counts one sign-in attempt against the account and the address; blocked
- * once the account has used its 5 attempts or the address its 50. A blocked
- * attempt leaves the other counter as it was.
+ * An address as a counter key: the sha256 of its normalised form. The same
+ * for an address with an account and one without; fits the store's 255
+ * characters whatever the address's length; keeps addresses out of the table.
  */
-export async function reserveSignInAttempt(email: string, ip: string): Promise<LimitState> {
-	const { account, ip: byIp } = get();
-	const key = email.toLowerCase();
-	const [a, i] = await Promise.allSettled([account.consume(key), byIp.consume(ip)]);
-	const accountRefusal = refusal(a);
-	const ipRefusal = refusal(i);
-	const refused = accountRefusal ?? ipRefusal;
-	if (!refused) return { blocked: false, retryAfterSeconds: 0 };
-	if (!accountRefusal) await account.reward(key, 1);
-	if (!ipRefusal) await byIp.reward(ip, 1);
-	return { blocked: true, retryAfterSeconds: Math.ceil(refused.msBeforeNext / 1000) };
+export function addressKey(email: string): string {
+	return hashToken(normaliseEmail(email));
 }
 
-/** A right password: the account starts afresh and the attempt no longer counts against the address. */
-export async function signInSucceeded(email: string, ip: string): Promise<void> {
-	const { account, ip: byIp } = get();
-	await Promise.all([account.delete(email.toLowerCase()), byIp.reward(ip, 1)]);
-}
+export type Take = { allowed: true; used: number } | { allowed: false; retryAfterSeconds: number };
 
-export async function clearSignInFailures(email: string): Promise<void> {
-	await get().account.delete(email.toLowerCase());
-}
-
-/** True when another reset mail to this address may go out now (5 an hour). */
-export async function mayRequestResetMail(email: string): Promise<boolean> {
+/** Takes one point; refused once the limiter's points are used up, with the seconds until it frees up. */
+export async function take(limiter: RateLimiterPostgres, key: string, options: { customDuration?: number } = {}): Promise<Take> {
 	try {
-		await get().resetMail.consume(email.toLowerCase());
-		return true;
+		const result = await limiter.consume(key, 1, options);
+		return { allowed: true, used: result.consumedPoints };
 	} catch (rejection) {
-		if (rejection instanceof RateLimiterRes) return false;
+		if (rejection instanceof RateLimiterRes) return { allowed: false, retryAfterSeconds: Math.max(1, Math.ceil(rejection.msBeforeNext / 1000)) };
 		throw rejection;
 	}
+}
+
+/** Takes one point from each limiter at once; when any refuses, the others get theirs back and the longest wait is answered. */
+export async function takeAll(
+	takes: { limiter: RateLimiterPostgres; key: string }[]
+): Promise<{ allowed: true; used: number[] } | { allowed: false; retryAfterSeconds: number }> {
+	const outcomes = await Promise.all(takes.map(({ limiter, key }) => take(limiter, key)));
+	const waits = outcomes.flatMap((o) => (o.allowed ? [] : [o.retryAfterSeconds]));
+	if (waits.length === 0) return { allowed: true, used: outcomes.map((o) => (o.allowed ? o.used : 0)) };
+	await Promise.all(takes.map(({ limiter, key }, i) => (outcomes[i].allowed ? limiter.reward(key, 1) : null)));
+	return { allowed: false, retryAfterSeconds: Math.max(...waits) };
+}
+
+/** "42 seconds", "1 minute", "60 minutes", "2 hours": a wait rounded up to the unit a person would use. */
+export function waitInWords(seconds: number): string {
+	const plural = (n: number, unit: string) => `${n} ${unit}${n === 1 ? '' : 's'}`;
+	const whole = Math.max(1, Math.ceil(seconds));
+	if (whole < 60) return plural(whole, 'second');
+	if (whole <= 3600) return plural(Math.ceil(whole / 60), 'minute');
+	return plural(Math.ceil(whole / 3600), 'hour');
 }

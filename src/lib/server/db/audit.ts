@@ -8,6 +8,7 @@ export type AuditEventName =
 	| 'sign-out'
 	| 'sign-out-everywhere'
 	| 'sign-up'
+	| 'sign-up-existing-address'
 	| 'email-verified'
 	| 'password-reset-requested'
 	| 'password-reset'
@@ -45,7 +46,7 @@ export async function recordAuditEvent(input: AuditInput, knex: Knex = db()): Pr
 
 /** The security log's groups of events, for its filter. */
 export const auditEventGroups = {
-	accounts: ['sign-in', 'sign-in-failed', 'sign-in-blocked', 'sign-out', 'sign-out-everywhere', 'sign-up', 'email-verified', 'password-reset-requested', 'password-reset', 'password-changed'],
+	accounts: ['sign-in', 'sign-in-failed', 'sign-in-blocked', 'sign-out', 'sign-out-everywhere', 'sign-up', 'sign-up-existing-address', 'email-verified', 'password-reset-requested', 'password-reset', 'password-changed'],
 	members: ['role-changed', 'member-removed', 'member-left', 'invitation-sent', 'invitation-revoked', 'invitation-accepted'],
 	tokens: ['api-token-created', 'api-token-revoked', 'api-token-used', 'api-token-refused']
 } as const satisfies Record<string, readonly AuditEventName[]>;

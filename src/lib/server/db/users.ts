@@ -26,9 +26,9 @@ export async function getUserByEmail(email: string, knex: Knex = db()): Promise<
 /** The only query that reads a password hash, for sign-in and password change. */
 export async function getUserCredentialsByEmail(email: string, knex: Knex = db()) {
 	return knex('users')
-		.select('id', 'email', 'password_hash')
+		.select('id', 'email', 'password_hash', 'email_verified_at')
 		.whereRaw('lower(email) = ?', [normaliseEmail(email)])
-		.first<{ id: string; email: string; password_hash: string } | undefined>();
+		.first<{ id: string; email: string; password_hash: string; email_verified_at: Date | null } | undefined>();
 }
 
 export async function getPasswordHash(userId: string, knex: Knex = db()): Promise<string | undefined> {

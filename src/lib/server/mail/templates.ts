@@ -73,3 +73,17 @@ export function invitationMessage(input: {
 		'If you do not know this person or workspace, ignore this message.'
 	);
 }
+
+/** Sent instead of a confirmation link when someone signs up with an address that already has an account. */
+export function existingAccountMessage(input: { name: string; signInUrl: string; resetUrl: string }): MailContent {
+	return message(
+		'Your address already has a Tidewright account',
+		[
+			`Hello ${input.name || 'there'},`,
+			'Someone (perhaps you) tried to make a new Tidewright account with this address. It already has one, so nothing was made and nothing changed.',
+			`If it was you, sign in with your password. Forgotten it? Choose a new one here: ${input.resetUrl}`
+		],
+		{ label: 'Sign in', url: input.signInUrl },
+		'If it was not you, you can ignore this message: your account and password stay as they are.'
+	);
+}

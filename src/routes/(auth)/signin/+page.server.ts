@@ -2,6 +2,7 @@ import { fail, redirect } from '@sveltejs/kit';
 import { signInForm } from '$lib/schemas/account';
 import { signIn } from '$lib/server/auth/accounts';
 import { setSessionCookie } from '$lib/server/auth/session';
+import { DEVICE_COOKIE, setDeviceCookie } from '$lib/server/auth/known-devices';
 import { cookiesAreSecure } from '$lib/server/settings';
 import { fieldErrors, readForm, requestContext, safeNextPath } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
@@ -19,9 +20,12 @@ export const actions: Actions = {
 		const parsed = signInForm.safeParse(fields);
 		if (!parsed.success) return fail(400, { ...echo, errors: fieldErrors(parsed.error), message: null });
 
-		const outcome = await signIn(parsed.data, requestContext(event));
+		// The device cookie lets this browser's right password through while strangers' failures slow the account down.
+		const outcome = await signIn(parsed.data, requestContext(event), event.cookies.get(DEVICE_COOKIE));
 		if (!outcome.ok) return fail(400, { ...echo, errors: {} as Record<string, string>, message: outcome.message });
-		setSessionCookie(event.cookies, outcome.sessionToken, outcome.session.expiresAt, cookiesAreSecure(event.url));
+		const secure = cookiesAreSecure(event.url);
+		setSessionCookie(event.cookies, outcome.sessionToken, outcome.session.expiresAt, secure);
+		setDeviceCookie(event.cookies, outcome.device, secure);
 		redirect(303, echo.next);
 	}
 };

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { nameField, passwordField } from '$lib/schemas/account';
 import { getInvitationByToken } from '$lib/server/db/invitations';
 import { acceptInvitationAs, invitationProblem } from '$lib/server/auth/invitations';
-import { signUp } from '$lib/server/auth/accounts';
+import { signUpInvited } from '$lib/server/auth/accounts';
 import { setSessionCookie } from '$lib/server/auth/session';
 import { cookiesAreSecure } from '$lib/server/settings';
 import { getUserByEmail } from '$lib/server/db/users';
@@ -48,11 +48,7 @@ export const actions: Actions = {
 		if (!parsed.success) return fail(400, { message: null, errors: fieldErrors(parsed.error), name: fields.name ?? '' });
 
 		// The invitation reached this mailbox, so the address counts as confirmed.
-		const created = await signUp(
-			{ email: invitation.email, name: parsed.data.name, password: parsed.data.password },
-			requestContext(event),
-			{ emailAlreadyVerified: true, createWorkspace: false }
-		);
+		const created = await signUpInvited({ email: invitation.email, name: parsed.data.name, password: parsed.data.password }, requestContext(event));
 		if (!created.ok) return fail(400, { message: created.errors.email ?? null, errors: created.errors as Record<string, string>, name: parsed.data.name });
 		setSessionCookie(event.cookies, created.sessionToken, created.session.expiresAt, cookiesAreSecure(event.url));
 		const user = { id: created.userId, email: invitation.email, name: parsed.data.name, emailVerified: true };

@@ -5,9 +5,9 @@ import type { Actions, PageServerLoad } from './$types';
 
 // The link only opens this page; the address is confirmed by the button's POST,
 // so link scanners that fetch URLs cannot spend the token.
-export const load: PageServerLoad = async ({ params }) => {
+export const load: PageServerLoad = async ({ params, locals }) => {
 	const check = await peekEmailToken(params.token, 'verify-email');
-	return { tokenProblem: check.ok ? null : tokenProblemWords[check.reason], email: check.ok ? check.email : null };
+	return { tokenProblem: check.ok ? null : tokenProblemWords[check.reason], email: check.ok ? check.email : null, signedIn: locals.user !== null };
 };
 
 export const actions: Actions = {
