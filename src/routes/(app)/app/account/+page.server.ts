@@ -123,7 +123,8 @@ export const actions: Actions = {
 
 	resendVerification: async (event) => {
 		const { user } = requireBrowserSession(event);
-		await resendVerification(user.id, event.url.origin);
+		const outcome = await resendVerification(user.id, event.url.origin);
+		if (!outcome.ok) return fail(429, { action: 'resendVerification', errors: {} as Record<string, string>, message: outcome.message });
 		return { action: 'resendVerification', errors: {} as Record<string, string>, message: `A new link is on its way to ${user.email}.` };
 	}
 };

@@ -5,6 +5,8 @@ import type { RequestEvent } from '@sveltejs/kit';
 import { authorize, type WorkspaceAccess } from '$lib/server/auth/access';
 import { isWorkspaceRole, roleDescriptions } from '$lib/server/auth/roles';
 import { LastOwnerError, changeMemberRole, listMembers, removeMember } from '$lib/server/db/memberships';
+import { takeInvitationAllowance } from '$lib/server/auth/mail-limits';
+import { waitInWords } from '$lib/server/auth/rate-limit';
 import { INVITATION_DAYS, createInvitation, listOpenInvitations, revokeInvitation } from '$lib/server/db/invitations';
 import { recordAuditEvent, type AuditEventName } from '$lib/server/db/audit';
 import { getUserById } from '$lib/server/db/users';
@@ -51,6 +53,11 @@ export const actions: Actions = {
 		const parsed = inviteForm.safeParse(fields);
 		if (!parsed.success) {
 			return fail(400, { action: 'invite', email: fields.email ?? '', role: fields.role ?? 'analyst', errors: fieldErrors(parsed.error) });
+		}
+		const allowance = await takeInvitationAllowance(membership.workspaceId);
+		if (!allowance.allowed) {
+			const message = `This workspace sent 20 invitations in the last hour. Try again in ${waitInWords(allowance.retryAfterSeconds)}.`;
+			return fail(429, { action: 'invite', email: parsed.data.email, role: parsed.data.role, errors: { email: message } as Record<string, string> });
 		}
 		const { id, token } = await createInvitation({ workspaceId: membership.workspaceId, email: parsed.data.email, role: parsed.data.role, invitedBy: user.id });
 		const inviter = await getUserById(user.id);
