@@ -6,7 +6,7 @@ import { demoUsers } from '../../seeds/02_demo_users';
 
 const uniqueEmail = (label: string) => `${label}.${Date.now()}.${Math.floor(Math.random() * 1e6)}@example.org`;
 
-test('sign up, verify from the mail, sign out, forget the password, reset it from the mail, sign in', async ({ page }) => {
+test('sign up, confirm from the mail, sign in, sign out, forget the password, reset it from the mail, sign in', async ({ page }) => {
 	const email = uniqueEmail('nerys');
 	const firstPassword = 'brine shrimp lantern 42';
 	const secondPassword = 'copper kettle drift 77';
@@ -24,14 +24,18 @@ test('sign up, verify from the mail, sign out, forget the password, reset it fro
 
 	await page.getByLabel('Password').fill(firstPassword);
 	await page.getByRole('button', { name: 'Make my account' }).click();
-	await expect(page.getByRole('heading', { name: 'Alder Tidal Consulting' })).toBeVisible();
-	await expect(page.getByText('Confirm your e-mail address')).toBeVisible();
+	// The answer says only where the link went: the same words whether or not the address had an account.
+	await expect(page.getByRole('status')).toContainText(`We sent a link to ${email}: open it to finish making your account`);
 
 	const verification = await latestMailTo(email, 'Confirm your e-mail');
 	await openPage(page, firstLinkIn(verification.text, '/verify-email/'));
 	await page.getByRole('button', { name: 'Confirm my address' }).click();
 	await expect(page.getByText('your address is confirmed')).toBeVisible();
-	await openPage(page, '/app');
+	await page.getByRole('link', { name: 'Sign in' }).click();
+	await page.getByLabel('E-mail').fill(email);
+	await page.getByLabel('Password').fill(firstPassword);
+	await page.getByRole('button', { name: 'Sign in' }).click();
+	await expect(page.getByRole('heading', { name: 'Alder Tidal Consulting' })).toBeVisible();
 	await expect(page.getByText('Confirm your e-mail address')).toHaveCount(0);
 
 	await page.getByRole('button', { name: 'Sign out' }).click();
@@ -57,11 +61,26 @@ test('sign up, verify from the mail, sign out, forget the password, reset it fro
 	await page.getByLabel('E-mail').fill(email);
 	await page.getByLabel('Password').fill(firstPassword);
 	await page.getByRole('button', { name: 'Sign in' }).click();
-	await expect(page.getByRole('alert')).toContainText('do not match an account');
+	await expect(page.getByRole('alert')).toContainText('do not match a confirmed account');
 
 	await page.getByLabel('Password').fill(secondPassword);
 	await page.getByRole('button', { name: 'Sign in' }).click();
 	await expect(page.getByRole('heading', { name: 'Alder Tidal Consulting' })).toBeVisible();
+});
+
+test('sign-up answers an address that already has an account as it answers a new one, and mails its owner instead', async ({ page }) => {
+	const owner = demoUsers.viewer;
+	await openPage(page, '/signup');
+	await page.getByLabel('Your name').fill('Someone Else');
+	await page.getByLabel('E-mail').fill(owner.email);
+	await page.getByLabel('Password').fill('another long pass phrase 5');
+	await page.getByRole('button', { name: 'Make my account' }).click();
+	await expect(page.getByRole('status')).toContainText(`We sent a link to ${owner.email}: open it to finish making your account`);
+
+	const note = await latestMailTo(owner.email, 'already has a Tidewright account');
+	expect(note.text).toContain('/forgot-password');
+	// Nothing changed: the owner still signs in with their own password.
+	await signInPage(page, 'viewer');
 });
 
 test('sign-in answers the same words for an unknown address and a wrong password', async ({ page }) => {
