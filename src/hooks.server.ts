@@ -7,7 +7,8 @@ import { anonymous } from '$lib/server/auth/principal';
 import { apiError } from '$lib/server/api';
 import { SettingsError, checkSettings, cookiesAreSecure, webSettings } from '$lib/server/settings';
 import { crossSiteRefusal } from '$lib/server/cross-site';
-import { computePool } from '$lib/server/compute/pool';
+import { closeComputePool, computePool } from '$lib/server/compute/pool';
+import { closeDb } from '$lib/server/db/knex';
 import { DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from '$lib/server/db/errors';
 import { devInboxEnabled } from '$lib/server/mail/dev-inbox';
 
@@ -22,6 +23,10 @@ export const init: ServerInit = () => {
 	}
 	// The compute threads load the engine off the request thread; start them now rather than on the first evaluation.
 	void computePool().catch((e: unknown) => console.error('[compute] the worker pool did not start:', e));
+	// adapter-node stops taking requests on SIGTERM/SIGINT, then says so: close what keeps the process alive.
+	process.once('sveltekit:shutdown', () => {
+		void Promise.allSettled([closeComputePool(), closeDb()]);
+	});
 };
 
 function isApiPath(path: string) {

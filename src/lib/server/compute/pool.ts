@@ -141,6 +141,13 @@ export function computePool(): Promise<ComputePool> {
 	return shared;
 }
 
+/** Stops the pool's threads, if they were started (at shutdown). */
+export async function closeComputePool(): Promise<void> {
+	const started = shared;
+	shared = undefined;
+	if (started) await (await started).close();
+}
+
 export async function evaluateOnPool(document: Scenario): Promise<EngineResult> {
 	return (await computePool()).run('evaluate', { document });
 }

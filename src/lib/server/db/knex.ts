@@ -11,3 +11,10 @@ export function db(): Knex {
 	if (!instance || instance.url !== url) instance = { url, knex: knexFactory(knexConfig(url)) };
 	return instance.knex;
 }
+
+/** Closes the pool, if one was opened (at shutdown). */
+export async function closeDb(): Promise<void> {
+	const open = instance;
+	instance = undefined;
+	await open?.knex.destroy();
+}
