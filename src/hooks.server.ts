@@ -85,11 +85,11 @@ const authenticate: Handle = async ({ event, resolve }) => {
 
 	const token = event.cookies.get(SESSION_COOKIE);
 	if (token) {
-		const { session, user } = await validateSessionToken(token);
+		const { session, user, memberships } = await validateSessionToken(token);
 		const secure = cookiesAreSecure(event.url);
 		if (session) {
 			setSessionCookie(event.cookies, token, session.expiresAt, secure);
-			event.locals.principal = { kind: 'member', user, session };
+			event.locals.principal = { kind: 'member', user, session, memberships };
 			event.locals.user = user;
 			event.locals.session = session;
 		} else {

@@ -92,15 +92,15 @@ describe('validateSessionToken', () => {
 	it('answers nothing for an unknown token or for the stored hash used as a token', async () => {
 		const user = await newUser();
 		const { session } = await newSession(user.id);
-		expect(await validateSessionToken(generateSessionToken(), database.knex)).toEqual({ session: null, user: null });
-		expect(await validateSessionToken(session.id, database.knex)).toEqual({ session: null, user: null });
+		expect(await validateSessionToken(generateSessionToken(), database.knex)).toEqual({ session: null, user: null, memberships: null });
+		expect(await validateSessionToken(session.id, database.knex)).toEqual({ session: null, user: null, memberships: null });
 	});
 
 	it('refuses an expired session and deletes it', async () => {
 		const user = await newUser();
 		const { token, session } = await newSession(user.id);
 		const atExpiry = new Date(session.expiresAt.getTime());
-		expect(await validateSessionToken(token, database.knex, atExpiry)).toEqual({ session: null, user: null });
+		expect(await validateSessionToken(token, database.knex, atExpiry)).toEqual({ session: null, user: null, memberships: null });
 		expect(await sessionRow(session.id)).toBeUndefined();
 		// Gone for good: even "now" no longer finds it.
 		expect((await validateSessionToken(token, database.knex)).session).toBeNull();
@@ -249,5 +249,30 @@ describe('session cookie', () => {
 			options: { httpOnly: true, sameSite: 'lax', secure: true, path: '/', expires: expiresAt }
 		});
 		expect(calls[1].options.secure).toBe(false);
+	});
+});
+
+describe('validateSessionToken memberships', () => {
+	it('reads the member’s workspaces and roles with the session, in one query', async () => {
+		const user = await newUser();
+		const [a] = await database.knex('workspaces').insert({ name: 'Brine Works', slug: `brine-${userCount}` }).returning('id');
+		const [b] = await database.knex('workspaces').insert({ name: 'Alder Tidal', slug: `alder-${userCount}`, plan: 'free' }).returning('id');
+		await database.knex('memberships').insert([
+			{ workspace_id: a.id, user_id: user.id, role: 'viewer' },
+			{ workspace_id: b.id, user_id: user.id, role: 'owner' }
+		]);
+		const { token } = await newSession(user.id);
+		let queries = 0;
+		const count = () => (queries += 1);
+		database.knex.on('query', count);
+		const validated = await validateSessionToken(token, database.knex);
+		database.knex.off('query', count);
+		expect(queries).toBe(1);
+		expect(validated.memberships).toEqual([
+			{ workspaceId: b.id, workspaceName: 'Alder Tidal', workspaceSlug: `alder-${userCount}`, plan: 'free', role: 'owner' },
+			{ workspaceId: a.id, workspaceName: 'Brine Works', workspaceSlug: `brine-${userCount}`, plan: 'free', role: 'viewer' }
+		]);
+		const loner = await newUser();
+		expect((await validateSessionToken((await newSession(loner.id)).token, database.knex)).memberships).toEqual([]);
 	});
 });

@@ -92,9 +92,10 @@ function article(role: WorkspaceRole) {
 }
 
 /**
- * The caller's memberships, read once per page view: a layout and its page
- * both ask, and each would otherwise query again. Only reads share it; a form
- * action (which may change memberships) always reads afresh.
+ * The caller's memberships, read once per page view (with the session itself,
+ * for a signed-in member): a layout and its page both ask, and each would
+ * otherwise query again. Only reads share it; a form action (which may change
+ * memberships) always reads afresh.
  */
 const membershipsOfView = new WeakMap<App.Locals, Promise<WorkspaceMembership[]>>();
 
@@ -102,6 +103,8 @@ function membershipsOf(event: AccessEvent, userId: string): Promise<WorkspaceMem
 	const method = event.request?.method ?? 'GET';
 	if (method !== 'GET' && method !== 'HEAD') return listWorkspacesForUser(userId);
 	let memberships = membershipsOfView.get(event.locals);
+	const principal = principalOf(event);
+	if (!memberships && principal.kind === 'member' && principal.memberships) memberships = Promise.resolve(principal.memberships);
 	if (!memberships) {
 		memberships = listWorkspacesForUser(userId);
 		membershipsOfView.set(event.locals, memberships);

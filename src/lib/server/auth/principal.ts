@@ -3,7 +3,7 @@
  * member signed in with the session cookie, a member's personal API token
  * (on /api/v1 only), or nobody. The access module decides what each may do.
  */
-import type { Session, SessionUser } from './session';
+import type { Session, SessionMembership, SessionUser } from './session';
 import type { TokenAccess } from '../db/api-tokens';
 
 export interface ApiTokenPrincipal {
@@ -16,6 +16,8 @@ export interface MemberPrincipal {
 	kind: 'member';
 	user: SessionUser;
 	session: Session;
+	/** The member's workspaces as read with the session, for this request's reads (actions read afresh). */
+	memberships?: SessionMembership[];
 }
 
 export interface AnonymousPrincipal {

@@ -27,7 +27,18 @@ export interface SessionUser {
 	emailVerified: boolean;
 }
 
-export type SessionValidation = { session: Session; user: SessionUser } | { session: null; user: null };
+/** A member's workspaces and role in each, read with the session so a page view costs one query. */
+export interface SessionMembership {
+	workspaceId: string;
+	workspaceName: string;
+	workspaceSlug: string;
+	plan: string;
+	role: 'owner' | 'analyst' | 'viewer';
+}
+
+export type SessionValidation =
+	| { session: Session; user: SessionUser; memberships: SessionMembership[] }
+	| { session: null; user: null; memberships: null };
 
 export function generateSessionToken(): string {
 	return generateRandomToken();
@@ -68,16 +79,20 @@ export async function validateSessionToken(token: string, knex: Knex = db(), now
 			'sessions.last_seen_at',
 			'users.email',
 			'users.name',
-			'users.email_verified_at'
+			'users.email_verified_at',
+			knex.raw(
+				`(select coalesce(json_agg(json_build_object('workspaceId', m.workspace_id, 'workspaceName', w.name, 'workspaceSlug', w.slug, 'plan', w.plan, 'role', m.role) order by w.name), '[]'::json)
+				from memberships m join workspaces w on w.id = m.workspace_id where m.user_id = sessions.user_id) as memberships`
+			)
 		)
 		.where('sessions.id', id)
 		.first();
-	if (!row) return { session: null, user: null };
+	if (!row) return { session: null, user: null, memberships: null };
 
 	const expiresAt = new Date(row.expires_at);
 	if (now.getTime() >= expiresAt.getTime()) {
 		await knex('sessions').where({ id }).delete();
-		return { session: null, user: null };
+		return { session: null, user: null, memberships: null };
 	}
 	const session: Session = { id, userId: row.user_id, expiresAt, workspaceId: row.workspace_id };
 	if (now.getTime() >= expiresAt.getTime() - SESSION_LIFETIME_MS / 2) {
@@ -89,7 +104,8 @@ export async function validateSessionToken(token: string, knex: Knex = db(), now
 	}
 	return {
 		session,
-		user: { id: row.user_id, email: row.email, name: row.name, emailVerified: row.email_verified_at !== null }
+		user: { id: row.user_id, email: row.email, name: row.name, emailVerified: row.email_verified_at !== null },
+		memberships: row.memberships as SessionMembership[]
 	};
 }
 
