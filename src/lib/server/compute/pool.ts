@@ -126,7 +126,8 @@ export class ComputePool {
 	}
 
 	close(): Promise<void> {
-		return this.#piscina.destroy();
+		// Lets running tasks finish (their requests still get answers) before the threads stop.
+		return this.#piscina.close();
 	}
 }
 
