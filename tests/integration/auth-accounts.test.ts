@@ -151,32 +151,19 @@ describe('signUp', () => {
 		await confirmedAccount(existing);
 		let delivery: Promise<void> = Promise.resolve();
 		const ask = async (email: string) => {
-			const outcome = await signUp({ email, name: 'Timed Person', password: 'timed-pass-phrase-long-4' }, freshContext());
+			const outcome = await signUp({ email, name: 'Probe Person', password: 'timed-pass-phrase-long-4' }, freshContext());
 			if (!outcome.ok) throw new Error(JSON.stringify(outcome));
 			delivery = outcome.delivery;
 		};
-		// No statement of the app's own runs before the answer, for either: the limits and the password hash are all it does.
+		// No statement of the app's own runs before the answer, for either: the limits and the password hash are all it does,
+		// the same for both. (Timing it is left out on purpose: three argon2 hashes on a busy machine vary by more than the
+		// database work the old answer did for a new address, so a timed check would fail by chance.)
 		const forExisting = await statementsWhile(() => ask(existing));
 		await delivery;
 		const forNew = await statementsWhile(() => ask(nextEmail()));
 		await delivery;
 		expect(forExisting).toEqual([]);
 		expect(forNew).toEqual(forExisting);
-
-		// Timed in turns, each after the last one's mail is out, so a busy moment of the machine falls on both alike.
-		// Three turns: with the account's own sign-up and the one above, the address's five an hour are used up.
-		const existingMs: number[] = [];
-		const newMs: number[] = [];
-		for (let i = 0; i < 3; i += 1) {
-			existingMs.push(await medianMs(() => ask(existing), 1));
-			await delivery;
-			newMs.push(await medianMs(() => ask(nextEmail()), 1));
-			await delivery;
-		}
-		const middle = (samples: number[]) => samples.sort((a, b) => a - b)[1];
-		// Generous bounds for a loaded two-core machine: each within a factor of two of the other.
-		expect(middle(existingMs)).toBeGreaterThanOrEqual(middle(newMs) / 2);
-		expect(middle(newMs)).toBeGreaterThanOrEqual(middle(existingMs) / 2);
 	});
 
 	it('refuses a password the policy refuses before making anything', async () => {
