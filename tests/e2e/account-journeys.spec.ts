@@ -36,6 +36,7 @@ test('sign up, confirm from the mail, sign in, sign out, forget the password, re
 	await page.getByLabel('Password').fill(firstPassword);
 	await page.getByRole('button', { name: 'Sign in' }).click();
 	await expect(page.getByRole('heading', { name: 'Alder Tidal Consulting' })).toBeVisible();
+	await expect(page.getByText('Welcome to Tidewright')).toBeVisible();
 	await expect(page.getByText('Confirm your e-mail address')).toHaveCount(0);
 
 	await page.getByRole('button', { name: 'Sign out' }).click();
