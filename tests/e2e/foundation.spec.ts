@@ -12,7 +12,7 @@ test('the home page says what Tidewright is and leads to the workbench', async (
 test('the workbench asks for sign-in, then lists the demo projects fetched from the API', async ({ page }) => {
 	await page.goto('/app');
 	await expect(page).toHaveURL(/\/signin\?next=%2Fapp/);
-	const apiCall = page.waitForResponse((r) => /\/api\/v1\/workspaces\/[^/]+\/projects$/.test(r.url()) && r.status() === 200);
+	const apiCall = page.waitForResponse((r) => /\/api\/v1\/workspaces\/[^/]+\/projects(\?|$)/.test(r.url()) && r.status() === 200);
 	await signInPage(page, 'viewer');
 	await apiCall;
 	const projects = page.getByRole('list', { name: 'Projects' });

@@ -76,7 +76,7 @@ describe('takeComputeAllowance', () => {
 		expect(response.status).toBe(429);
 		expect(Number(response.headers.get('retry-after'))).toBeGreaterThanOrEqual(1);
 		const body = await response.json();
-		expect(body.error.message).toMatch(/^Too many uploads: each user may make 20 in a minute\. Try again in \d+ seconds?\.$/);
+		expect(body.error.message).toMatch(/^Too many uploads: each user may make 60 in a minute\. Try again in \d+ seconds?\.$/);
 		expect(body.error.issues).toEqual([]);
 	});
 });

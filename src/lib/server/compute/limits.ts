@@ -18,7 +18,7 @@ export const COMPUTE_LIMITS = {
 	spider: { points: 30, windowSeconds: 60, words: 'spider runs' },
 	compare: { points: 60, windowSeconds: 60, words: 'comparisons' },
 	export: { points: 60, windowSeconds: 60, words: 'exports' },
-	upload: { points: 20, windowSeconds: 60, words: 'uploads' }
+	upload: { points: 60, windowSeconds: 60, words: 'uploads' }
 } as const satisfies Record<string, { points: number; windowSeconds: number; words: string }>;
 
 export type ComputeAction = keyof typeof COMPUTE_LIMITS;
