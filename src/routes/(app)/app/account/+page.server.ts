@@ -124,7 +124,7 @@ export const actions: Actions = {
 	resendVerification: async (event) => {
 		const { user } = requireBrowserSession(event);
 		const outcome = await resendVerification(user.id, event.url.origin);
-		if (!outcome.ok) return fail(429, { action: 'resendVerification', errors: {} as Record<string, string>, message: outcome.message });
+		if (!outcome.ok) return fail(429, { action: 'resendVerification', errors: {} as Record<string, string>, message: outcome.message, refused: true });
 		return { action: 'resendVerification', errors: {} as Record<string, string>, message: `A new link is on its way to ${user.email}.` };
 	}
 };
