@@ -200,6 +200,12 @@ describe('errorStatusesOf', () => {
 
 	it('adds 403 for a higher role, 400 and 422 for a body, and the operation own refusals', () => {
 		expect(errorStatusesOf(byId('saveScenario'))).toEqual([400, 401, 403, 404, 409, 422, 429]);
-		expect(errorStatusesOf(byId('createUpload'))).toEqual([400, 401, 403, 404, 409, 413, 415, 422, 429]);
+		expect(errorStatusesOf(byId('createUpload'))).toEqual([400, 401, 403, 404, 409, 413, 415, 422, 429, 503]);
+	});
+
+	it('gives work on the compute pool its per-user limit (429) and its time limit (503), and every write the cross-site 403', () => {
+		// evaluate is open to viewers, yet a write method: a browser page on another site is refused.
+		expect(errorStatusesOf(byId('evaluateScenario'))).toEqual([400, 401, 403, 404, 422, 429, 503]);
+		expect(errorStatusesOf(byId('getScenario'))).not.toContain(503);
 	});
 });

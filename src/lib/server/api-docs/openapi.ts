@@ -60,12 +60,13 @@ const schemaRef = (name: string) => `#/components/schemas/${name}`;
 const errorResponses: Record<Exclude<ErrorStatus, 409>, { name: string; description: string }> = {
 	400: { name: 'BadRequest', description: 'The body could not be read (not JSON, or missing where one is needed)' },
 	401: { name: 'Unauthorized', description: 'Not signed in, or the API token is unknown, expired or revoked' },
-	403: { name: 'Forbidden', description: 'Your role in the workspace is too low, or the API token may not do this' },
+	403: { name: 'Forbidden', description: 'Your role in the workspace is too low, the API token may not do this, or a browser sent the request from another site' },
 	404: { name: 'NotFound', description: 'No such thing, or it is in a workspace you are not a member of (the two answer alike)' },
 	413: { name: 'PayloadTooLarge', description: 'The file is over the upload limit' },
 	415: { name: 'UnsupportedMediaType', description: 'The upload was not sent as multipart/form-data' },
 	422: { name: 'UnprocessableContent', description: 'Some fields, parameters or rows have problems; issues name each one' },
-	429: { name: 'TooManyRequests', description: 'Too many requests with this API token; wait and try again' }
+	429: { name: 'TooManyRequests', description: 'Too many requests with this API token, or too many of this kind of calculation by this user a minute; Retry-After says when to try again' },
+	503: { name: 'ServiceUnavailable', description: 'The calculation did not finish in time or the server is busy with others, or the database does not answer; try again shortly' }
 };
 
 const securitySchemes = (sessionCookie: string) => ({

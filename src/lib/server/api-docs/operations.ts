@@ -70,7 +70,7 @@ export const apiTags = {
 export type ApiTag = keyof typeof apiTags;
 
 /** Refusals an operation can answer with, all in the one error shape. */
-export type ErrorStatus = 400 | 401 | 403 | 404 | 409 | 413 | 415 | 422 | 429;
+export type ErrorStatus = 400 | 401 | 403 | 404 | 409 | 413 | 415 | 422 | 429 | 503;
 
 export interface ParameterSpec {
 	description: string;
@@ -595,6 +595,9 @@ export function pathPlaceholders(path: string): string[] {
 	return [...path.matchAll(/\{([^}]+)\}/g)].map((m) => m[1]);
 }
 
+/** Operations whose work runs on the compute pool under per-user limits (src/lib/server/compute/limits.ts). */
+const computeOperations = new Set(['evaluateScenario', 'runTornado', 'runSpider', 'compareScenarios', 'exportScenario', 'createUpload']);
+
 /**
  * The refusals an operation can answer with: 401 once sign-in is needed,
  * 404 for anything named in the path, 403 for a role above viewer or a
@@ -612,5 +615,12 @@ export function errorStatusesOf(op: ApiOperation): ErrorStatus[] {
 		statuses.add(422);
 	}
 	if (op.apiToken === 'read-only' || op.apiToken === 'read-write') statuses.add(429);
+	// Work on the compute pool: per-user limits (429) and a time limit or full queue (503); see src/lib/server/compute.
+	if (computeOperations.has(op.operationId)) {
+		statuses.add(429);
+		statuses.add(503);
+	}
+	// A state-changing call from a browser page on another site is refused (hooks.server.ts, cross-site.ts).
+	if (op.method !== 'GET') statuses.add(403);
 	return [...statuses].sort((a, b) => a - b);
 }
