@@ -41,6 +41,7 @@ export async function readUploadForm(request: Request): Promise<UploadForm> {
 		const message = `The file is ${mb(file.size)}, over the ${mb(MAX_UPLOAD_BYTES)} limit for uploads. Split it into smaller files or average it to a longer interval.`;
 		throw new ApiProblem(413, message, [{ path: 'file', message }]);
 	}
-	const fileName = (file.name || 'upload.csv').replace(/[\u0000-\u001f\u007f]/g, '').slice(0, MAX_FILE_NAME);
+	// A cut at the length limit could split a surrogate pair: make it well formed after cutting.
+	const fileName = (file.name || 'upload.csv').replace(/[\u0000-\u001f\u007f]/g, '').slice(0, MAX_FILE_NAME).toWellFormed();
 	return { kind: kind.data, fileName, contentType: file.type.slice(0, 200), bytes: new Uint8Array(await file.arrayBuffer()) };
 }
