@@ -6,19 +6,18 @@
 import { isHttpError, isRedirect, type RequestEvent } from '@sveltejs/kit';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestDatabase, type TestDatabase } from '../helpers/db';
+import { newPerson, newWorkspaceOf } from '../helpers/people';
 import { setAppEnv } from '../helpers/app-env';
 import { authorize, requireBrowserSession, visibleWorkspaces } from '../../src/lib/server/auth/access';
 import { authenticateApiToken, bearerToken, createApiToken, revokeApiToken } from '../../src/lib/server/auth/api-tokens';
 import type { Principal } from '../../src/lib/server/auth/principal';
+import type { SessionUser } from '../../src/lib/server/auth/session';
 import { hashToken } from '../../src/lib/server/auth/tokens';
 import type { WorkspaceRole } from '../../src/lib/server/auth/roles';
 import { addMember, changeMemberRole, removeMember } from '../../src/lib/server/db/memberships';
 import { createProject } from '../../src/lib/server/db/projects';
-import { createUser } from '../../src/lib/server/db/users';
-import { createWorkspaceWithOwner } from '../../src/lib/server/db/workspaces';
 
 let database: TestDatabase;
-let counter = 0;
 
 beforeAll(async () => {
 	database = await createTestDatabase();
@@ -26,18 +25,14 @@ beforeAll(async () => {
 });
 afterAll(() => database.drop());
 
-async function newUser() {
-	counter += 1;
-	return createUser({ email: `token-${counter}@test.example`, name: `Token User ${counter}`, passwordHash: 'unused' }, database.knex);
-}
+const newUser = () => newPerson(database.knex, 'token');
 
-async function newWorkspace(ownerId: string) {
-	counter += 1;
-	return createWorkspaceWithOwner(`Ebb Partners ${counter}`, ownerId, database.knex);
+async function newWorkspace(owner: SessionUser) {
+	return { id: (await newWorkspaceOf(database.knex, owner)).workspaceId };
 }
 
 async function tokenFor(userId: string, workspaceId: string, access: 'read' | 'read-write', lifetimeDays = 30) {
-	const outcome = await createApiToken(userId, { name: `script ${counter}`, workspaceId, access, lifetimeDays });
+	const outcome = await createApiToken(userId, { name: `script for ${access}`, workspaceId, access, lifetimeDays });
 	if (!outcome.ok) throw new Error(outcome.message);
 	return outcome;
 }
@@ -66,7 +61,7 @@ async function statusOf(promise: Promise<unknown> | (() => unknown)): Promise<nu
 describe('createApiToken', () => {
 	it('shows the token once and stores only its sha256', async () => {
 		const owner = await newUser();
-		const workspace = await newWorkspace(owner.id);
+		const workspace = await newWorkspace(owner);
 		const { token, id } = await tokenFor(owner.id, workspace.id, 'read-write');
 		expect(token).toMatch(/^tw_[a-z2-7]{32}$/);
 		const row = await database.knex('api_tokens').where({ id }).first();
@@ -77,7 +72,7 @@ describe('createApiToken', () => {
 	it('refuses a read-and-write token to a viewer, and any token outside the member’s workspaces', async () => {
 		const owner = await newUser();
 		const viewer = await newUser();
-		const workspace = await newWorkspace(owner.id);
+		const workspace = await newWorkspace(owner);
 		await addMember(workspace.id, viewer.id, 'viewer', database.knex);
 		const refused = await createApiToken(viewer.id, { name: 'x', workspaceId: workspace.id, access: 'read-write', lifetimeDays: 30 });
 		expect(refused).toMatchObject({ ok: false, field: 'access' });
@@ -90,7 +85,7 @@ describe('createApiToken', () => {
 describe('authenticateApiToken', () => {
 	it('refuses unknown, malformed, expired and revoked tokens', async () => {
 		const owner = await newUser();
-		const workspace = await newWorkspace(owner.id);
+		const workspace = await newWorkspace(owner);
 		const { token, id } = await tokenFor(owner.id, workspace.id, 'read', 7);
 		expect((await authenticateApiToken(token)).ok).toBe(true);
 		expect(await authenticateApiToken(`tw_${'a'.repeat(32)}`)).toMatchObject({ ok: false, message: expect.stringMatching(/not valid/) });
@@ -107,7 +102,7 @@ describe('authenticateApiToken', () => {
 	it('revokes the tokens of a member who leaves; coming back does not revive them', async () => {
 		const owner = await newUser();
 		const analyst = await newUser();
-		const workspace = await newWorkspace(owner.id);
+		const workspace = await newWorkspace(owner);
 		await addMember(workspace.id, analyst.id, 'analyst', database.knex);
 		const { token } = await tokenFor(analyst.id, workspace.id, 'read-write');
 		await removeMember(workspace.id, analyst.id, database.knex);
@@ -119,7 +114,7 @@ describe('authenticateApiToken', () => {
 	it('refuses a token whose membership is gone by any other path', async () => {
 		const owner = await newUser();
 		const analyst = await newUser();
-		const workspace = await newWorkspace(owner.id);
+		const workspace = await newWorkspace(owner);
 		await addMember(workspace.id, analyst.id, 'analyst', database.knex);
 		const { token } = await tokenFor(analyst.id, workspace.id, 'read');
 		await database.knex('memberships').where({ workspace_id: workspace.id, user_id: analyst.id }).delete();
@@ -129,7 +124,7 @@ describe('authenticateApiToken', () => {
 	it('only another member’s revocation of their own tokens counts', async () => {
 		const owner = await newUser();
 		const other = await newUser();
-		const workspace = await newWorkspace(owner.id);
+		const workspace = await newWorkspace(owner);
 		const { id } = await tokenFor(owner.id, workspace.id, 'read');
 		expect(await revokeApiToken(other.id, id)).toBeUndefined();
 	});
@@ -151,7 +146,7 @@ describe('authorize with a token', () => {
 	it('acts with exactly the member’s role; a read-only token at most as a viewer', async () => {
 		const owner = await newUser();
 		const analyst = await newUser();
-		const workspace = await newWorkspace(owner.id);
+		const workspace = await newWorkspace(owner);
 		await addMember(workspace.id, analyst.id, 'analyst', database.knex);
 		const cases: [string, WorkspaceRole[]][] = [
 			[(await tokenFor(owner.id, workspace.id, 'read-write')).token, ['viewer', 'analyst', 'owner']],
@@ -170,7 +165,7 @@ describe('authorize with a token', () => {
 	it('follows the member’s current role: a demoted analyst’s read-write token can no longer write', async () => {
 		const owner = await newUser();
 		const analyst = await newUser();
-		const workspace = await newWorkspace(owner.id);
+		const workspace = await newWorkspace(owner);
 		await addMember(workspace.id, analyst.id, 'analyst', database.knex);
 		const { token } = await tokenFor(analyst.id, workspace.id, 'read-write');
 		const event = apiEvent(await principalFor(token));
@@ -181,8 +176,8 @@ describe('authorize with a token', () => {
 
 	it('never reaches another workspace, even one its member belongs to', async () => {
 		const owner = await newUser();
-		const home = await newWorkspace(owner.id);
-		const other = await newWorkspace(owner.id);
+		const home = await newWorkspace(owner);
+		const other = await newWorkspace(owner);
 		const project = await createProject({ workspaceId: other.id, name: 'Elsewhere', technology: 'wave' }, database.knex);
 		const event = apiEvent(await principalFor((await tokenFor(owner.id, home.id, 'read-write')).token));
 		expect(await statusOf(authorize(event, { workspaceId: other.id }, 'viewer'))).toBe(404);
@@ -192,15 +187,15 @@ describe('authorize with a token', () => {
 
 	it('cannot manage accounts, members, tokens or billing', async () => {
 		const owner = await newUser();
-		const workspace = await newWorkspace(owner.id);
+		const workspace = await newWorkspace(owner);
 		const event = apiEvent(await principalFor((await tokenFor(owner.id, workspace.id, 'read-write')).token));
 		expect(await statusOf(() => requireBrowserSession(event))).toBe(403);
 	});
 
 	it('keeps nested ids honest: a project id under the wrong workspace is hidden', async () => {
 		const owner = await newUser();
-		const a = await newWorkspace(owner.id);
-		const b = await newWorkspace(owner.id);
+		const a = await newWorkspace(owner);
+		const b = await newWorkspace(owner);
 		const project = await createProject({ workspaceId: a.id, name: 'Nested', technology: 'tidal-stream' }, database.knex);
 		const member = apiEvent({ kind: 'member', user: { id: owner.id, email: owner.email, name: owner.name, emailVerified: true }, session: { id: 's', userId: owner.id, expiresAt: new Date(), workspaceId: null } }, '/app/w');
 		expect(await statusOf(authorize(member, { workspaceId: a.id, projectId: project.id }, 'viewer'))).toBe('allowed');

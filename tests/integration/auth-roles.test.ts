@@ -1,6 +1,7 @@
 import { isHttpError, isRedirect, type RequestEvent } from '@sveltejs/kit';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestDatabase, type TestDatabase } from '../helpers/db';
+import { newPerson, newWorkspaceOf } from '../helpers/people';
 import { setAppEnv } from '../helpers/app-env';
 import { isWorkspaceRole, roleAtLeast, workspaceRoles, type WorkspaceRole } from '../../src/lib/server/auth/roles';
 import { authorize, requireUser } from '../../src/lib/server/auth/access';
@@ -14,11 +15,8 @@ import {
 	listWorkspacesForUser,
 	removeMember
 } from '../../src/lib/server/db/memberships';
-import { createUser } from '../../src/lib/server/db/users';
-import { createWorkspaceWithOwner } from '../../src/lib/server/db/workspaces';
 
 let database: TestDatabase;
-let counter = 0;
 
 beforeAll(async () => {
 	database = await createTestDatabase();
@@ -27,18 +25,9 @@ beforeAll(async () => {
 });
 afterAll(() => database.drop());
 
-async function newUser(): Promise<SessionUser> {
-	counter += 1;
-	const row = await createUser({ email: `member-${counter}@test.example`, name: `Member ${counter}`, passwordHash: 'unused' }, database.knex);
-	return { id: row.id, email: row.email, name: row.name, emailVerified: true };
-}
+const newUser = () => newPerson(database.knex, 'member');
 
-async function newWorkspace() {
-	const owner = await newUser();
-	counter += 1;
-	const workspace = await createWorkspaceWithOwner(`Sound Partners ${counter}`, owner.id, database.knex);
-	return { owner, workspaceId: workspace.id };
-}
+const newWorkspace = () => newWorkspaceOf(database.knex);
 
 async function roleOf(workspaceId: string, userId: string) {
 	return (await getMembership(workspaceId, userId, database.knex))?.role;

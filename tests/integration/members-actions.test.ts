@@ -6,15 +6,13 @@
 import { isActionFailure, type RequestEvent } from '@sveltejs/kit';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestDatabase, type TestDatabase } from '../helpers/db';
+import { newPerson, newWorkspaceOf } from '../helpers/people';
 import { setAppEnv } from '../helpers/app-env';
 import type { SessionUser } from '../../src/lib/server/auth/session';
 import { addMember, getMembership } from '../../src/lib/server/db/memberships';
-import { createUser } from '../../src/lib/server/db/users';
-import { createWorkspaceWithOwner } from '../../src/lib/server/db/workspaces';
 import { actions } from '../../src/routes/(app)/app/w/[workspaceId]/members/+page.server';
 
 let database: TestDatabase;
-let counter = 0;
 
 beforeAll(async () => {
 	database = await createTestDatabase();
@@ -22,18 +20,9 @@ beforeAll(async () => {
 });
 afterAll(() => database.drop());
 
-async function newUser(): Promise<SessionUser> {
-	counter += 1;
-	const row = await createUser({ email: `crew-${counter}@test.example`, name: `Crew ${counter}`, passwordHash: 'unused' }, database.knex);
-	return { id: row.id, email: row.email, name: row.name, emailVerified: true };
-}
+const newUser = () => newPerson(database.knex, 'crew');
 
-async function newWorkspace() {
-	const owner = await newUser();
-	counter += 1;
-	const workspace = await createWorkspaceWithOwner(`Brinehold Partners ${counter}`, owner.id, database.knex);
-	return { owner, workspaceId: workspace.id };
-}
+const newWorkspace = () => newWorkspaceOf(database.knex);
 
 function actionEvent(user: SessionUser, workspaceId: string, action: string, fields: Record<string, string>) {
 	const url = new URL(`http://127.0.0.1/app/w/${workspaceId}/members?/${action}`);
