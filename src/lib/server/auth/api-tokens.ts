@@ -5,13 +5,13 @@
  * read-only token at most as a viewer. Its use is rate-limited per token and
  * written to the workspace's audit log.
  */
-import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
+import type { RateLimiterPostgres } from 'rate-limiter-flexible';
 import { z } from 'zod';
-import { db } from '../db/knex';
 import { findTokenHolder, insertApiToken, recordTokenUse, revokeTokenOfUser, type TokenAccess } from '../db/api-tokens';
 import { getMembership } from '../db/memberships';
 import { recordAuditEvent } from '../db/audit';
 import { generateRandomToken, hashToken } from './tokens';
+import { storedLimiter, take, type Take } from './rate-limit';
 import type { ApiTokenPrincipal } from './principal';
 
 export const API_TOKEN_PREFIX = 'tw_';
@@ -104,23 +104,9 @@ export async function authenticateApiToken(token: string, now = new Date()): Pro
 let limiter: RateLimiterPostgres | undefined;
 
 /** Takes one request from the token's allowance; answers the seconds to wait when it is used up. */
-export async function takeTokenRequest(tokenId: string): Promise<{ allowed: true } | { allowed: false; retryAfterSeconds: number }> {
-	limiter ??= new RateLimiterPostgres({
-		storeClient: db(),
-		storeType: 'knex',
-		tableName: 'rate_limits',
-		tableCreated: true,
-		keyPrefix: 'api-token',
-		points: TOKEN_REQUESTS_PER_MINUTE,
-		duration: 60
-	});
-	try {
-		await limiter.consume(tokenId);
-		return { allowed: true };
-	} catch (rejection) {
-		if (rejection instanceof RateLimiterRes) return { allowed: false, retryAfterSeconds: Math.max(1, Math.ceil(rejection.msBeforeNext / 1000)) };
-		throw rejection;
-	}
+export async function takeTokenRequest(tokenId: string): Promise<Take> {
+	limiter ??= storedLimiter('api-token', TOKEN_REQUESTS_PER_MINUTE, 60);
+	return take(limiter, tokenId);
 }
 
 /** A refused call with a token the workspace once issued: worth a line in its security log. */

@@ -6,8 +6,8 @@
  * PostgreSQL through rate-limiter-flexible, as the sign-in limits are, so
  * every app process shares them.
  */
-import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
-import { db } from '../db/knex';
+import type { RateLimiterPostgres } from 'rate-limiter-flexible';
+import { storedLimiter, take } from '../auth/rate-limit';
 import { ApiProblem } from '../workbench/api-route';
 import { computeSettings } from '../settings';
 
@@ -29,16 +29,7 @@ function limiterFor(action: ComputeAction): RateLimiterPostgres {
 	limiters ??= new Map();
 	let limiter = limiters.get(action);
 	if (!limiter) {
-		const { points, windowSeconds } = COMPUTE_LIMITS[action];
-		limiter = new RateLimiterPostgres({
-			storeClient: db(),
-			storeType: 'knex',
-			tableName: 'rate_limits',
-			tableCreated: true,
-			keyPrefix: `compute-${action}`,
-			points,
-			duration: windowSeconds
-		});
+		limiter = storedLimiter(`compute-${action}`, COMPUTE_LIMITS[action].points, COMPUTE_LIMITS[action].windowSeconds);
 		limiters.set(action, limiter);
 	}
 	return limiter;
@@ -60,18 +51,15 @@ function secondsWords(seconds: number): string {
  */
 export async function takeComputeAllowance(userId: string, action: ComputeAction): Promise<void> {
 	if (computeSettings().benchLimitsLifted) return;
-	try {
-		await limiterFor(action).consume(userId);
-	} catch (rejection) {
-		if (!(rejection instanceof RateLimiterRes)) throw rejection;
-		const { points, windowSeconds, words } = COMPUTE_LIMITS[action];
-		const retryAfterSeconds = Math.max(1, Math.ceil(rejection.msBeforeNext / 1000));
-		throw new ApiProblem(
-			429,
-			`Too many ${words}: each user may make ${points} in ${windowWords(windowSeconds)}. Try again in ${secondsWords(retryAfterSeconds)}.`,
-			[],
-			{ retryAfterSeconds },
-			{ 'retry-after': String(retryAfterSeconds) }
-		);
-	}
+	const taken = await take(limiterFor(action), userId);
+	if (taken.allowed) return;
+	const { points, windowSeconds, words } = COMPUTE_LIMITS[action];
+	const retryAfterSeconds = taken.retryAfterSeconds;
+	throw new ApiProblem(
+		429,
+		`Too many ${words}: each user may make ${points} in ${windowWords(windowSeconds)}. Try again in ${secondsWords(retryAfterSeconds)}.`,
+		[],
+		{ retryAfterSeconds },
+		{ 'retry-after': String(retryAfterSeconds) }
+	);
 }
