@@ -1,7 +1,7 @@
 import { redirect, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { randomUUID } from 'node:crypto';
-import { SESSION_COOKIE, deleteSessionCookie, setSessionCookie, validateSessionToken } from '$lib/server/auth/session';
+import { SESSION_COOKIE, deleteSessionCookie, setSessionCookie, sessionForRequest } from '$lib/server/auth/session';
 import { authenticateApiToken, bearerToken, recordRefusedToken, recordTokenRequest, takeTokenRequest } from '$lib/server/auth/api-tokens';
 import { anonymous } from '$lib/server/auth/principal';
 import { apiError } from '$lib/server/api';
@@ -83,10 +83,10 @@ const authenticate: Handle = async ({ event, resolve }) => {
 
 	const token = event.cookies.get(SESSION_COOKIE);
 	if (token) {
-		const { session, user, memberships } = await validateSessionToken(token);
+		const { session, user, memberships, extended } = await sessionForRequest(token);
 		const secure = cookiesAreSecure(event.url);
 		if (session) {
-			setSessionCookie(event.cookies, token, session.expiresAt, secure);
+			if (extended) setSessionCookie(event.cookies, token, session.expiresAt, secure);
 			event.locals.principal = { kind: 'member', user, session, memberships };
 			event.locals.user = user;
 			event.locals.session = session;

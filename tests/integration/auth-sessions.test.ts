@@ -11,9 +11,14 @@ import {
 	invalidateSession,
 	invalidateUserSessions,
 	listUserSessions,
+	sessionForRequest,
 	setSessionCookie,
 	validateSessionToken
 } from '../../src/lib/server/auth/session';
+import { SESSION_CACHE_TTL_MS, forgetCachedSessions } from '../../src/lib/server/auth/session-cache';
+import { db } from '../../src/lib/server/db/knex';
+import { createWorkspaceWithOwner } from '../../src/lib/server/db/workspaces';
+import { addMember, changeMemberRole, removeMember } from '../../src/lib/server/db/memberships';
 import { changePassword } from '../../src/lib/server/auth/accounts';
 import { hashPassword, verifyPasswordHash } from '../../src/lib/server/auth/password';
 import { createUser, getPasswordHash } from '../../src/lib/server/db/users';
@@ -92,15 +97,15 @@ describe('validateSessionToken', () => {
 	it('answers nothing for an unknown token or for the stored hash used as a token', async () => {
 		const user = await newUser();
 		const { session } = await newSession(user.id);
-		expect(await validateSessionToken(generateSessionToken(), database.knex)).toEqual({ session: null, user: null, memberships: null });
-		expect(await validateSessionToken(session.id, database.knex)).toEqual({ session: null, user: null, memberships: null });
+		expect(await validateSessionToken(generateSessionToken(), database.knex)).toEqual({ session: null, user: null, memberships: null, extended: false });
+		expect(await validateSessionToken(session.id, database.knex)).toEqual({ session: null, user: null, memberships: null, extended: false });
 	});
 
 	it('refuses an expired session and deletes it', async () => {
 		const user = await newUser();
 		const { token, session } = await newSession(user.id);
 		const atExpiry = new Date(session.expiresAt.getTime());
-		expect(await validateSessionToken(token, database.knex, atExpiry)).toEqual({ session: null, user: null, memberships: null });
+		expect(await validateSessionToken(token, database.knex, atExpiry)).toEqual({ session: null, user: null, memberships: null, extended: false });
 		expect(await sessionRow(session.id)).toBeUndefined();
 		// Gone for good: even "now" no longer finds it.
 		expect((await validateSessionToken(token, database.knex)).session).toBeNull();
@@ -274,5 +279,58 @@ describe('validateSessionToken memberships', () => {
 		]);
 		const loner = await newUser();
 		expect((await validateSessionToken((await newSession(loner.id)).token, database.knex)).memberships).toEqual([]);
+	});
+});
+
+describe('sessionForRequest (the few-second cache in front of validateSessionToken)', () => {
+	it('reads the database once for repeated requests, and sees a sign-out, a role change and a removal at once', async () => {
+		const user = await newUser();
+		const owner = await newUser();
+		const workspace = await createWorkspaceWithOwner('Cache Reef', owner.id, database.knex);
+		await addMember(workspace.id, user.id, 'viewer', database.knex);
+		const { token } = await newSession(user.id);
+		const appDb = db();
+		let queries = 0;
+		const count = () => (queries += 1);
+		appDb.on('query', count);
+		try {
+			expect((await sessionForRequest(token)).memberships?.[0].role).toBe('viewer');
+			const afterFirst = queries;
+			expect((await sessionForRequest(token)).memberships?.[0].role).toBe('viewer');
+			expect(queries).toBe(afterFirst);
+
+			await changeMemberRole(workspace.id, user.id, 'analyst', database.knex);
+			expect((await sessionForRequest(token)).memberships?.[0].role).toBe('analyst');
+
+			await removeMember(workspace.id, user.id, database.knex);
+			expect((await sessionForRequest(token)).memberships).toEqual([]);
+
+			const session = await sessionForRequest(token);
+			await invalidateSession(session.session!.id, database.knex);
+			expect((await sessionForRequest(token)).session).toBeNull();
+		} finally {
+			appDb.off('query', count);
+		}
+	});
+
+	it('reads the database again once the cache time has passed, so another process’s sign-out is seen within it', async () => {
+		const user = await newUser();
+		const { token } = await newSession(user.id);
+		const start = new Date();
+		expect((await sessionForRequest(token, start)).session).not.toBeNull();
+		// A write this process does not see (another app process, or SQL by hand).
+		await database.knex('sessions').where({ user_id: user.id }).delete();
+		expect((await sessionForRequest(token, new Date(start.getTime() + 1_000))).session).not.toBeNull();
+		expect((await sessionForRequest(token, new Date(start.getTime() + SESSION_CACHE_TTL_MS))).session).toBeNull();
+	});
+
+	it('asks for the cookie to be sent again only when the expiry moved', async () => {
+		const user = await newUser();
+		const { token } = await newSession(user.id);
+		expect((await sessionForRequest(token)).extended).toBe(false);
+		await database.knex('sessions').where({ user_id: user.id }).update({ expires_at: new Date(Date.now() + 10 * DAY_MS) });
+		forgetCachedSessions();
+		expect((await sessionForRequest(token)).extended).toBe(true);
+		expect((await sessionForRequest(token)).extended).toBe(false);
 	});
 });

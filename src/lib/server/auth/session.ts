@@ -7,6 +7,7 @@ import type { Knex } from 'knex';
 import type { Cookies } from '@sveltejs/kit';
 import { db } from '../db/knex';
 import { generateRandomToken, hashToken } from './tokens';
+import { cachedSession, forgetCachedSessions, rememberSession } from './session-cache';
 
 export const SESSION_COOKIE = 'tw_session';
 const DAY_MS = 24 * 60 * 60 * 1000;
@@ -37,8 +38,10 @@ export interface SessionMembership {
 }
 
 export type SessionValidation =
-	| { session: Session; user: SessionUser; memberships: SessionMembership[] }
-	| { session: null; user: null; memberships: null };
+	| { session: Session; user: SessionUser; memberships: SessionMembership[]; /** the expiry moved: send the cookie again */ extended: boolean }
+	| { session: null; user: null; memberships: null; extended: false };
+
+const noSession = { session: null, user: null, memberships: null, extended: false } as const;
 
 export function generateSessionToken(): string {
 	return generateRandomToken();
@@ -87,15 +90,17 @@ export async function validateSessionToken(token: string, knex: Knex = db(), now
 		)
 		.where('sessions.id', id)
 		.first();
-	if (!row) return { session: null, user: null, memberships: null };
+	if (!row) return noSession;
 
 	const expiresAt = new Date(row.expires_at);
 	if (now.getTime() >= expiresAt.getTime()) {
 		await knex('sessions').where({ id }).delete();
-		return { session: null, user: null, memberships: null };
+		return noSession;
 	}
 	const session: Session = { id, userId: row.user_id, expiresAt, workspaceId: row.workspace_id };
+	let extended = false;
 	if (now.getTime() >= expiresAt.getTime() - SESSION_LIFETIME_MS / 2) {
+		extended = true;
 		session.expiresAt = new Date(now.getTime() + SESSION_LIFETIME_MS);
 		await knex('sessions').where({ id }).update({ expires_at: session.expiresAt, last_seen_at: now });
 	} else if (now.getTime() - new Date(row.last_seen_at).getTime() >= LAST_SEEN_RESOLUTION_MS) {
@@ -105,19 +110,35 @@ export async function validateSessionToken(token: string, knex: Knex = db(), now
 	return {
 		session,
 		user: { id: row.user_id, email: row.email, name: row.name, emailVerified: row.email_verified_at !== null },
-		memberships: row.memberships as SessionMembership[]
+		memberships: row.memberships as SessionMembership[],
+		extended
 	};
+}
+
+/**
+ * The session behind a request's cookie, from the short-lived cache when this
+ * process read it a moment ago (see session-cache.ts), else from the database.
+ */
+export async function sessionForRequest(token: string, now = new Date()): Promise<SessionValidation> {
+	const cached = cachedSession(hashToken(token), now.getTime());
+	if (cached) return { ...cached, extended: false };
+	const validation = await validateSessionToken(token, db(), now);
+	if (validation.session) rememberSession(validation, now.getTime());
+	return validation;
 }
 
 export async function invalidateSession(sessionId: string, knex: Knex = db()): Promise<void> {
 	await knex('sessions').where({ id: sessionId }).delete();
+	forgetCachedSessions();
 }
 
 /** Ends every session of a user, optionally keeping the one in use. */
 export async function invalidateUserSessions(userId: string, keepSessionId?: string, knex: Knex = db()): Promise<number> {
 	const query = knex('sessions').where({ user_id: userId });
 	if (keepSessionId) query.whereNot({ id: keepSessionId });
-	return query.delete();
+	const ended = await query.delete();
+	forgetCachedSessions();
+	return ended;
 }
 
 export async function listUserSessions(userId: string, knex: Knex = db()) {
@@ -129,6 +150,7 @@ export async function listUserSessions(userId: string, knex: Knex = db()) {
 
 export async function setSessionWorkspace(sessionId: string, workspaceId: string, knex: Knex = db()): Promise<void> {
 	await knex('sessions').where({ id: sessionId }).update({ workspace_id: workspaceId });
+	forgetCachedSessions();
 }
 
 export function setSessionCookie(cookies: Cookies, token: string, expiresAt: Date, secure: boolean) {

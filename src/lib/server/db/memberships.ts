@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { db } from './knex';
+import { forgetCachedSessions } from '../auth/session-cache';
 import type { WorkspaceRole } from '../auth/roles';
 
 export interface WorkspaceMembership {
@@ -61,6 +62,7 @@ export async function addMember(workspaceId: string, userId: string, role: Works
 		.insert({ workspace_id: workspaceId, user_id: userId, role })
 		.onConflict(['workspace_id', 'user_id'])
 		.ignore();
+	forgetCachedSessions();
 }
 
 export class LastOwnerError extends Error {
@@ -84,19 +86,21 @@ export async function changeMemberRole(
 	role: WorkspaceRole,
 	knex: Knex = db()
 ): Promise<WorkspaceRole | null> {
-	return knex.transaction(async (trx) => {
+	const previous = await knex.transaction(async (trx) => {
 		const owners = await lockOwners(workspaceId, trx);
 		const current = await trx('memberships').select('role').where({ workspace_id: workspaceId, user_id: userId }).first();
 		if (!current) return null;
 		if (current.role === 'owner' && role !== 'owner' && owners.length <= 1) throw new LastOwnerError();
 		await trx('memberships').where({ workspace_id: workspaceId, user_id: userId }).update({ role });
-		return current.role;
+		return current.role as WorkspaceRole;
 	});
+	forgetCachedSessions();
+	return previous;
 }
 
 /** Removes a member (or lets one leave); refuses to remove the last owner. False, with nothing written, for someone who is not a member. */
 export async function removeMember(workspaceId: string, userId: string, knex: Knex = db()): Promise<boolean> {
-	return knex.transaction(async (trx) => {
+	const wasMember = await knex.transaction(async (trx) => {
 		const owners = await lockOwners(workspaceId, trx);
 		if (owners.includes(userId) && owners.length <= 1) throw new LastOwnerError();
 		const removed = await trx('memberships').where({ workspace_id: workspaceId, user_id: userId }).delete();
@@ -106,4 +110,6 @@ export async function removeMember(workspaceId: string, userId: string, knex: Kn
 		await trx('api_tokens').where({ user_id: userId, workspace_id: workspaceId }).whereNull('revoked_at').update({ revoked_at: trx.fn.now() });
 		return true;
 	});
+	forgetCachedSessions();
+	return wasMember;
 }

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { db } from './knex';
+import { forgetCachedSessions } from '../auth/session-cache';
 
 export interface UserRow {
 	id: string;
@@ -53,16 +54,19 @@ export async function createUser(
 
 export async function markEmailVerified(userId: string, knex: Knex = db()) {
 	await knex('users').where({ id: userId }).whereNull('email_verified_at').update({ email_verified_at: knex.fn.now() });
+	forgetCachedSessions();
 }
 
 export async function updateUserName(userId: string, name: string, knex: Knex = db()) {
 	await knex('users').where({ id: userId }).update({ name: name.trim(), updated_at: knex.fn.now() });
+	forgetCachedSessions();
 }
 
 export async function updatePasswordHash(userId: string, passwordHash: string, knex: Knex = db()) {
 	await knex('users')
 		.where({ id: userId })
 		.update({ password_hash: passwordHash, password_changed_at: knex.fn.now(), updated_at: knex.fn.now() });
+	forgetCachedSessions();
 }
 
 export function isUniqueViolation(error: unknown): boolean {

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { randomBytes } from 'node:crypto';
 import { db } from './knex';
+import { forgetCachedSessions } from '../auth/session-cache';
 
 export interface WorkspaceRow {
 	id: string;
@@ -32,9 +33,11 @@ function slugFor(name: string): string {
 
 /** A new workspace with its first owner, in one transaction. */
 export async function createWorkspaceWithOwner(name: string, ownerUserId: string, knex: Knex = db()): Promise<WorkspaceRow> {
-	return knex.transaction(async (trx) => {
+	const created = await knex.transaction(async (trx) => {
 		const [workspace] = await trx('workspaces').insert({ name: name.trim(), slug: slugFor(name) }).returning(workspaceColumns);
 		await trx('memberships').insert({ workspace_id: workspace.id, user_id: ownerUserId, role: 'owner' });
 		return workspace;
 	});
+	forgetCachedSessions();
+	return created;
 }
