@@ -112,6 +112,29 @@ function membershipsOf(event: AccessEvent, userId: string): Promise<WorkspaceMem
 	return memberships;
 }
 
+/**
+ * The project behind an id in the address, looked up once per page view: the
+ * workspace layout and the page below it both authorize the same params.
+ * Reads only, like the memberships above.
+ */
+const projectsOfView = new WeakMap<App.Locals, Map<string, Promise<ProjectRow | undefined>>>();
+
+function projectOf(event: AccessEvent, key: string, lookup: () => Promise<ProjectRow | undefined>): Promise<ProjectRow | undefined> {
+	const method = event.request?.method ?? 'GET';
+	if (method !== 'GET' && method !== 'HEAD') return lookup();
+	let view = projectsOfView.get(event.locals);
+	if (!view) {
+		view = new Map();
+		projectsOfView.set(event.locals, view);
+	}
+	let project = view.get(key);
+	if (!project) {
+		project = lookup();
+		view.set(key, project);
+	}
+	return project;
+}
+
 async function membershipIn(event: AccessEvent, workspaceId: string, userId: string): Promise<WorkspaceMembership | undefined> {
 	return (await membershipsOf(event, userId)).find((m) => m.workspaceId === workspaceId);
 }
@@ -157,17 +180,20 @@ export async function authorize(
 	if (principalOf(event).kind === 'anonymous') refuseAnonymous(event);
 	const place = { workspaceId: target.workspaceId, projectId: target.projectId };
 	if (target.scenarioId !== undefined) {
-		const project = isUuid(target.scenarioId) ? await getProjectOfScenario(target.scenarioId) : undefined;
+		const scenarioId = target.scenarioId;
+		const project = isUuid(scenarioId) ? await projectOf(event, `scenario:${scenarioId}`, () => getProjectOfScenario(scenarioId)) : undefined;
 		const access = await projectAccess(event, project, place, minimum, hidden.scenario);
 		return { ...access, scenarioId: target.scenarioId };
 	}
 	if (target.uploadId !== undefined) {
-		const project = isUuid(target.uploadId) ? await getProjectOfUpload(target.uploadId) : undefined;
+		const uploadId = target.uploadId;
+		const project = isUuid(uploadId) ? await projectOf(event, `upload:${uploadId}`, () => getProjectOfUpload(uploadId)) : undefined;
 		const access = await projectAccess(event, project, place, minimum, hidden.upload);
 		return { ...access, uploadId: target.uploadId };
 	}
 	if (target.projectId !== undefined) {
-		const project = isUuid(target.projectId) ? await getProjectById(target.projectId) : undefined;
+		const projectId = target.projectId;
+		const project = isUuid(projectId) ? await projectOf(event, `project:${projectId}`, () => getProjectById(projectId)) : undefined;
 		return projectAccess(event, project, { workspaceId: target.workspaceId }, minimum, hidden.project);
 	}
 	if (target.workspaceId !== undefined) return workspaceAccess(event, target.workspaceId, minimum, hidden.workspace);

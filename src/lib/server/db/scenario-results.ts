@@ -52,7 +52,7 @@ export async function getStoredMetricsOf(
 ): Promise<Map<string, { metrics: EngineResult['metrics']; currency: string }>> {
 	if (revisions.length === 0) return new Map();
 	const rows: { scenario_id: string; metrics: EngineResult['metrics']; currency: string }[] = await knex('scenario_results')
-		.select('scenario_id', knex.raw(`result -> 'metrics' as metrics`), knex.raw(`result ->> 'currency' as currency`))
+		.select('scenario_id', 'metrics', 'currency')
 		.where({ engine_version: engineVersion })
 		.whereIn(['scenario_id', 'revision'], revisions.map((r) => [r.scenarioId, r.revision]));
 	return new Map(rows.map((row) => [row.scenario_id, { metrics: row.metrics, currency: row.currency }]));
