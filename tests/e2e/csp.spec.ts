@@ -112,6 +112,10 @@ test.describe('content security policy', () => {
 				expect(response.status(), path).toBe(200);
 				expectStrictPolicy(path, response.headers()['content-security-policy']);
 			}
+			// The module preloads sit in the page's head once, not repeated as a 1.3 KB Link header on every page.
+			const editor = await owner.get(place.scenarioPath);
+			expect(editor.headers()['link']).toBeUndefined();
+			expect(await editor.text()).toMatch(/<link[^>]+rel="modulepreload"/);
 			// A page that is not there answers its error page under the same policy.
 			const missing = await owner.get(`${w}/projects/00000000-0000-4000-8000-000000000000`);
 			expect(missing.status()).toBe(404);
