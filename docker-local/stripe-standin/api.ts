@@ -23,7 +23,9 @@ import {
 	optionalObject,
 	optionalString,
 	optionalStringList,
-	requiredString
+	optionalUrl,
+	requiredString,
+	requiredUrl
 } from './params';
 import { newId, snapshot, type StandinState } from './state';
 import { cancelSubscriptionNow, updateSubscription } from './subscriptions';
@@ -216,8 +218,8 @@ const createCheckout: Handler = (state, { params }) => {
 		customerEmail,
 		priceId: requiredString(lineItems[0], 'price', 'line_items[0][price]'),
 		quantity,
-		successUrl: requiredString(params, 'success_url'),
-		cancelUrl: optionalString(params, 'cancel_url') ?? null,
+		successUrl: requiredUrl(params, 'success_url'),
+		cancelUrl: optionalUrl(params, 'cancel_url') ?? null,
 		clientReferenceId: optionalString(params, 'client_reference_id') ?? null,
 		metadata: applyMetadata({}, optionalMetadata(params)),
 		subscriptionMetadata: applyMetadata({}, optionalMetadata(subscriptionData, 'metadata', 'subscription_data[metadata]'))
@@ -242,7 +244,7 @@ const createPortalSession: Handler = (state, { params }) => {
 		id,
 		created: state.clock.now(),
 		customer: customer.id,
-		returnUrl: optionalString(params, 'return_url') ?? null,
+		returnUrl: optionalUrl(params, 'return_url') ?? null,
 		url: `${state.baseUrl}/portal/${id}`
 	});
 	state.portalSessions.set(id, session);

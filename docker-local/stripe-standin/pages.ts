@@ -182,9 +182,8 @@ export function portalPage(view: PortalView): string {
 	const customer = view.customer;
 	const who = [customer.name, customer.email].filter(Boolean).join(' · ');
 	const cardButtons =
-		view.card === 'declining'
-			? button(`${base}/card`, 'Use the working test card', { card: 'working' }, true)
-			: button(`${base}/card`, 'Use a card that will be declined', { card: 'declining' });
+		button(`${base}/card`, 'Use the working test card', { card: 'working' }, view.card !== 'working') +
+		button(`${base}/card`, 'Use a card that will be declined', { card: 'declining' });
 	const body = `
 <h1>Local Stripe stand-in billing portal</h1>
 <p>${escapeHtml(who || customer.id)}</p>
@@ -192,7 +191,7 @@ ${view.notice ? notice('ok', view.notice) : ''}
 ${view.subscriptions.length === 0 ? '<p>No subscription.</p>' : view.subscriptions.map((s) => subscriptionSection(base, s)).join('\n')}
 <h2>Payment method</h2>
 <p>${escapeHtml(cardWords[view.card])}</p>
-<p>${cardButtons}${view.card === 'none' ? button(`${base}/card`, 'Use the working test card', { card: 'working' }) : ''}</p>
+<p>${cardButtons}</p>
 <h2>Invoices</h2>
 ${invoiceRows(view.invoices)}
 ${view.session.return_url ? `<p><a href="${escapeHtml(view.session.return_url)}">Return to Tidewright</a></p>` : ''}`;

@@ -53,6 +53,28 @@ export function optionalInteger(
 	return number;
 }
 
+/** An absolute http(s) URL, kept as sent (Stripe fills `{CHECKOUT_SESSION_ID}` in later). */
+export function optionalUrl(params: FormObject, key: string, param = key): string | undefined {
+	const value = optionalString(params, key, param);
+	if (value === undefined || value === '') return undefined;
+	let protocol: string;
+	try {
+		protocol = new URL(value).protocol;
+	} catch {
+		throw new StandinError(400, `Not a valid URL: ${param}`, param, 'url_invalid');
+	}
+	if (protocol !== 'http:' && protocol !== 'https:') {
+		throw new StandinError(400, `Not a valid URL: ${param} must use http or https`, param, 'url_invalid');
+	}
+	return value;
+}
+
+export function requiredUrl(params: FormObject, key: string, param = key): string {
+	const value = optionalUrl(params, key, param);
+	if (value === undefined) throw missing(param);
+	return value;
+}
+
 export function optionalBoolean(params: FormObject, key: string, param = key): boolean | undefined {
 	const value = optionalString(params, key, param);
 	if (value === undefined) return undefined;
