@@ -6,6 +6,7 @@ const port = Number(process.env.E2E_PORT ?? 3100);
 const pgPort = Number(process.env.E2E_PG_PORT ?? 54331);
 export const mailSinkSmtpPort = Number(process.env.MAIL_SINK_SMTP_PORT ?? 54335);
 export const mailSinkHttpPort = Number(process.env.MAIL_SINK_HTTP_PORT ?? 54336);
+export const stripeStandinPort = Number(process.env.STRIPE_STANDIN_PORT ?? 54337);
 export const baseURL = `http://127.0.0.1:${port}`;
 export const e2eClusterDir = `.data/pg-e2e-${pgPort}`;
 export const e2ePgPort = pgPort;
@@ -53,6 +54,7 @@ export default defineConfig({
 			PG_FSYNC: 'off',
 			MAIL_SINK_SMTP_PORT: String(mailSinkSmtpPort),
 			MAIL_SINK_HTTP_PORT: String(mailSinkHttpPort),
+			STRIPE_STANDIN_PORT: String(stripeStandinPort),
 			TIDEWRIGHT_E2E: '1'
 		}
 	}

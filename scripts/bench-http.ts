@@ -55,6 +55,7 @@ function startApp() {
 			PG_FSYNC: 'off',
 			MAIL_SINK_SMTP_PORT: '54345',
 			MAIL_SINK_HTTP_PORT: '54346',
+			STRIPE_STANDIN_PORT: '54347',
 			// Bench-only: lifts the per-user limits on engine routes, so the engine load below is real load, not 429s.
 			TIDEWRIGHT_BENCH: '1'
 		},

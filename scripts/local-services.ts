@@ -5,6 +5,7 @@
 import { clusterSettingsFromEnv, databaseUrl, startCluster, stopCluster } from '../docker-local/postgres';
 import { migrateAndSeed } from './migrate';
 import { mailSinkPortsFromEnv, startMailSink } from '../docker-local/mail-sink';
+import { startStripeStandin, stripeStandinPortFromEnv } from '../docker-local/stripe-standin/index';
 import { demoUsers } from '../seeds/02_demo_users';
 import { isLoopbackHost } from '../src/lib/server/loopback';
 
@@ -27,7 +28,7 @@ export async function startPostgres(options: { seed?: boolean } = {}): Promise<R
 }
 
 /** Stand-ins started after PostgreSQL (mail sink, Stripe stand-in), in order. */
-export const extraServices: Array<() => Promise<RunningService>> = [startMailSinkService];
+export const extraServices: Array<() => Promise<RunningService>> = [startMailSinkService, startStripeStandinService];
 
 async function startMailSinkService(): Promise<RunningService> {
 	const { smtpPort, httpPort } = mailSinkPortsFromEnv();
@@ -40,6 +41,29 @@ async function startMailSinkService(): Promise<RunningService> {
 			MAIL_SINK_URL: `http://127.0.0.1:${httpPort}`
 		},
 		stop: sink.stop
+	};
+}
+
+/**
+ * The local Stripe stand-in, posting its events to the app's webhook route.
+ * ORIGIN and PORT are read when the service starts, so the caller's settings apply.
+ */
+async function startStripeStandinService(): Promise<RunningService> {
+	const port = stripeStandinPortFromEnv();
+	const webhookSecret = 'whsec_local_standin';
+	const appOrigin = process.env.ORIGIN ?? 'http://127.0.0.1:' + (process.env.PORT ?? '3000');
+	const standin = await startStripeStandin({ port, webhookSecret, webhookUrl: `${appOrigin}/api/v1/billing/webhook` });
+	return {
+		name: 'Stripe stand-in',
+		env: {
+			STRIPE_SECRET_KEY: 'sk_test_local_standin',
+			STRIPE_WEBHOOK_SECRET: webhookSecret,
+			STRIPE_API_HOST: '127.0.0.1',
+			STRIPE_API_PORT: String(port),
+			STRIPE_API_PROTOCOL: 'http',
+			STRIPE_STANDIN_URL: `http://127.0.0.1:${port}`
+		},
+		stop: standin.stop
 	};
 }
 
