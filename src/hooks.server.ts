@@ -5,13 +5,14 @@ import { SESSION_COOKIE, deleteSessionCookie, setSessionCookie, sessionForReques
 import { authenticateApiToken, bearerToken, recordRefusedToken, recordTokenRequest, takeTokenRequest } from '$lib/server/auth/api-tokens';
 import { anonymous } from '$lib/server/auth/principal';
 import { apiError } from '$lib/server/api';
-import { SettingsError, checkSettings, cookiesAreSecure, webSettings } from '$lib/server/settings';
+import { SettingsError, billingSettings, checkSettings, cookiesAreSecure, webSettings } from '$lib/server/settings';
 import { crossSiteRefusal } from '$lib/server/cross-site';
 import { closeComputePool, computePool } from '$lib/server/compute/pool';
 import { closeDb } from '$lib/server/db/knex';
 import { DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from '$lib/server/db/errors';
 import { devInboxEnabled } from '$lib/server/mail/dev-inbox';
 import { afterResponse } from '$lib/server/after-response';
+import { isBillingPage, withFormActionOrigins } from '$lib/server/csp-form-action';
 
 /** Stops the start when a setting is missing or malformed, naming each one. */
 export const init: ServerInit = () => {
@@ -131,6 +132,10 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	// SvelteKit repeats every <link rel="modulepreload"> of the page's head as a Link header (1.3 KB a page);
 	// with no proxy here that turns them into early hints, the head's own tags are the ones the browser uses.
 	response.headers.delete('link');
+	const policy = response.headers.get('content-security-policy');
+	if (policy && isBillingPage(event.url.pathname) && billingSettings().enabled) {
+		response.headers.set('content-security-policy', withFormActionOrigins(policy, billingSettings().pageOrigins));
+	}
 	return response;
 };
 

@@ -23,7 +23,8 @@ export const auditEventWords: Record<string, string> = {
 	'api-token-created': 'Created an API token',
 	'api-token-revoked': 'Revoked an API token',
 	'api-token-used': 'Called the API with a token',
-	'api-token-refused': 'Refused an API token'
+	'api-token-refused': 'Refused an API token',
+	'billing-changed': 'Changed the plan or seats'
 };
 
 const accessWords: Record<string, string> = { read: 'read only', 'read-write': 'read and write' };
@@ -50,6 +51,8 @@ export function describeAuditDetail(event: string, detail: Record<string, unknow
 			return `${text(detail.email)} as ${text(detail.role)}`;
 		case 'invitation-accepted':
 			return `as ${text(detail.role)}`;
+		case 'billing-changed':
+			return detail.change === 'seats' ? `seats set to ${text(detail.seats)}` : detail.change === 'resume' ? 'plan resumed' : 'plan to end at the close of the period';
 	}
 	return Object.entries(detail)
 		.filter(([key]) => !key.endsWith('Id'))

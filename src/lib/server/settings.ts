@@ -62,7 +62,25 @@ const sections = {
 		SMTP_PASSWORD: z.string().optional(),
 		MAIL_FROM: z.string().trim().min(3).default('Tidewright <no-reply@tidewright.example>'),
 		MAIL_SINK_URL: z.url({ message: 'must be the local mail sink address, such as http://127.0.0.1:54326' }).optional()
-	})
+	}),
+	billing: z
+		.object({
+			STRIPE_SECRET_KEY: z
+				.string()
+				.trim()
+				.regex(/^(sk|rk)_(test|live)_\w+$/, 'must be a Stripe secret key (sk_test_… or sk_live_…)')
+				.optional(),
+			STRIPE_WEBHOOK_SECRET: z.string().trim().regex(/^whsec_\w+$/, 'must be the webhook endpoint’s signing secret (whsec_…)').optional(),
+			STRIPE_API_HOST: z.string().trim().min(1).optional(),
+			STRIPE_API_PORT: port.optional(),
+			STRIPE_API_PROTOCOL: z.enum(['http', 'https'], { message: 'must be http or https' }).optional(),
+			STRIPE_STANDIN_URL: z.url({ message: 'must be the local Stripe stand-in address, such as http://127.0.0.1:54327' }).optional()
+		})
+		.superRefine((value, ctx) => {
+			if (value.STRIPE_SECRET_KEY && !value.STRIPE_WEBHOOK_SECRET) {
+				ctx.addIssue({ code: 'custom', path: ['STRIPE_WEBHOOK_SECRET'], message: 'is not set: with STRIPE_SECRET_KEY set, the webhook route needs the signing secret' });
+			}
+		})
 } as const;
 
 type SectionName = keyof typeof sections;
@@ -165,6 +183,33 @@ export function mailSettings(): MailSettings {
 export function mailSinkUrl(): string | null {
 	const value = rawEnvironment(['MAIL_SINK_URL']).MAIL_SINK_URL;
 	return value && z.url().safeParse(value).success ? value : null;
+}
+
+export interface BillingSettings {
+	/** False when no Stripe key is set: the billing page says billing is not set up on this server. */
+	enabled: boolean;
+	secretKey: string;
+	webhookSecret: string;
+	testMode: boolean;
+	/** Where the SDK sends its calls when not to Stripe itself (the local stand-in). */
+	api: { host: string; port: number; protocol: 'http' | 'https' } | null;
+	/** Origins of the checkout and portal pages a billing form sends the owner to (the page's form-action). */
+	pageOrigins: string[];
+}
+
+export function billingSettings(): BillingSettings {
+	const billing = section('billing');
+	const standin = billing.STRIPE_STANDIN_URL ? new URL(billing.STRIPE_STANDIN_URL).origin : null;
+	return {
+		enabled: billing.STRIPE_SECRET_KEY !== undefined,
+		secretKey: billing.STRIPE_SECRET_KEY ?? '',
+		webhookSecret: billing.STRIPE_WEBHOOK_SECRET ?? '',
+		testMode: (billing.STRIPE_SECRET_KEY ?? '').includes('_test_'),
+		api: billing.STRIPE_API_HOST
+			? { host: billing.STRIPE_API_HOST, port: billing.STRIPE_API_PORT ?? 443, protocol: billing.STRIPE_API_PROTOCOL ?? 'https' }
+			: null,
+		pageOrigins: standin ? [standin] : ['https://checkout.stripe.com', 'https://billing.stripe.com']
+	};
 }
 
 /** Every section at once, reporting all problems together; throws SettingsError. */

@@ -7,6 +7,7 @@ import type { Knex } from 'knex';
 import type { Cookies } from '@sveltejs/kit';
 import { db } from '../db/knex';
 import { generateRandomToken, hashToken } from './tokens';
+import type { PlanStatus } from '../../billing/plans';
 import { cachedSession, forgetCachedSessions, rememberSession } from './session-cache';
 
 export const SESSION_COOKIE = 'tw_session';
@@ -34,6 +35,8 @@ export interface SessionMembership {
 	workspaceName: string;
 	workspaceSlug: string;
 	plan: string;
+	planStatus: PlanStatus;
+	pastDueSince: string | null;
 	role: 'owner' | 'analyst' | 'viewer';
 }
 
@@ -84,7 +87,7 @@ export async function validateSessionToken(token: string, knex: Knex = db(), now
 			'users.name',
 			'users.email_verified_at',
 			knex.raw(
-				`(select coalesce(json_agg(json_build_object('workspaceId', m.workspace_id, 'workspaceName', w.name, 'workspaceSlug', w.slug, 'plan', w.plan, 'role', m.role) order by w.name), '[]'::json)
+				`(select coalesce(json_agg(json_build_object('workspaceId', m.workspace_id, 'workspaceName', w.name, 'workspaceSlug', w.slug, 'plan', w.plan, 'planStatus', w.plan_status, 'pastDueSince', w.past_due_since, 'role', m.role) order by w.name), '[]'::json)
 				from memberships m join workspaces w on w.id = m.workspace_id where m.user_id = sessions.user_id) as memberships`
 			)
 		)

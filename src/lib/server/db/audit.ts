@@ -22,7 +22,8 @@ export type AuditEventName =
 	| 'api-token-created'
 	| 'api-token-revoked'
 	| 'api-token-used'
-	| 'api-token-refused';
+	| 'api-token-refused'
+	| 'billing-changed';
 
 export interface AuditInput {
 	event: AuditEventName;
@@ -48,7 +49,8 @@ export async function recordAuditEvent(input: AuditInput, knex: Knex = db()): Pr
 export const auditEventGroups = {
 	accounts: ['sign-in', 'sign-in-failed', 'sign-in-blocked', 'sign-out', 'sign-out-everywhere', 'sign-up', 'sign-up-existing-address', 'email-verified', 'password-reset-requested', 'password-reset', 'password-changed'],
 	members: ['role-changed', 'member-removed', 'member-left', 'invitation-sent', 'invitation-revoked', 'invitation-accepted'],
-	tokens: ['api-token-created', 'api-token-revoked', 'api-token-used', 'api-token-refused']
+	tokens: ['api-token-created', 'api-token-revoked', 'api-token-used', 'api-token-refused'],
+	billing: ['billing-changed']
 } as const satisfies Record<string, readonly AuditEventName[]>;
 export type AuditEventGroup = keyof typeof auditEventGroups;
 

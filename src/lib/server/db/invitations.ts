@@ -3,6 +3,7 @@ import { db } from './knex';
 import { generateRandomToken, hashToken } from '../auth/tokens';
 import { normaliseEmail } from './users';
 import type { WorkspaceRole } from '../auth/roles';
+import { SEAT_ROLES, requireFreeSeat } from '../billing/gates';
 
 export const INVITATION_DAYS = 7;
 
@@ -30,6 +31,7 @@ export async function createInvitation(
 			.whereNull('accepted_at')
 			.whereNull('revoked_at')
 			.update({ revoked_at: trx.fn.now() });
+		if ((SEAT_ROLES as readonly string[]).includes(input.role)) await requireFreeSeat(trx, input.workspaceId);
 		const [row] = await trx('invitations')
 			.insert({
 				workspace_id: input.workspaceId,

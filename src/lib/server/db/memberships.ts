@@ -2,6 +2,8 @@ import type { Knex } from 'knex';
 import { db } from './knex';
 import { forgetCachedSessions } from '../auth/session-cache';
 import type { WorkspaceRole } from '../auth/roles';
+import { SEAT_ROLES, requireFreeSeat } from '../billing/gates';
+import type { PlanStatus } from '../../billing/plans';
 
 export interface WorkspaceMembership {
 	workspaceId: string;
@@ -9,7 +11,14 @@ export interface WorkspaceMembership {
 	workspaceSlug: string;
 	/** The workspace's plan (free until billing sets another). */
 	plan: string;
+	planStatus: PlanStatus;
+	/** ISO time a renewal first failed, while past due. */
+	pastDueSince: string | null;
 	role: WorkspaceRole;
+}
+
+function isoOrNull(value: Date | string | null): string | null {
+	return value === null ? null : new Date(value).toISOString();
 }
 
 export async function getMembership(
@@ -19,16 +28,16 @@ export async function getMembership(
 ): Promise<WorkspaceMembership | undefined> {
 	const row = await knex('memberships')
 		.join('workspaces', 'workspaces.id', 'memberships.workspace_id')
-		.select('memberships.workspace_id', 'workspaces.name', 'workspaces.slug', 'workspaces.plan', 'memberships.role')
+		.select('memberships.workspace_id', 'workspaces.name', 'workspaces.slug', 'workspaces.plan', 'workspaces.plan_status', 'workspaces.past_due_since', 'memberships.role')
 		.where({ 'memberships.workspace_id': workspaceId, 'memberships.user_id': userId })
 		.first();
-	return row && { workspaceId: row.workspace_id, workspaceName: row.name, workspaceSlug: row.slug, plan: row.plan, role: row.role };
+	return row && { workspaceId: row.workspace_id, workspaceName: row.name, workspaceSlug: row.slug, plan: row.plan, planStatus: row.plan_status, pastDueSince: isoOrNull(row.past_due_since), role: row.role };
 }
 
 export async function listWorkspacesForUser(userId: string, knex: Knex = db()): Promise<WorkspaceMembership[]> {
 	const rows = await knex('memberships')
 		.join('workspaces', 'workspaces.id', 'memberships.workspace_id')
-		.select('memberships.workspace_id', 'workspaces.name', 'workspaces.slug', 'workspaces.plan', 'memberships.role')
+		.select('memberships.workspace_id', 'workspaces.name', 'workspaces.slug', 'workspaces.plan', 'workspaces.plan_status', 'workspaces.past_due_since', 'memberships.role')
 		.where({ 'memberships.user_id': userId })
 		.orderBy('workspaces.name');
 	return rows.map((row) => ({
@@ -36,6 +45,8 @@ export async function listWorkspacesForUser(userId: string, knex: Knex = db()): 
 		workspaceName: row.name,
 		workspaceSlug: row.slug,
 		plan: row.plan,
+		planStatus: row.plan_status,
+		pastDueSince: isoOrNull(row.past_due_since),
 		role: row.role
 	}));
 }
@@ -91,6 +102,8 @@ export async function changeMemberRole(
 		const current = await trx('memberships').select('role').where({ workspace_id: workspaceId, user_id: userId }).first();
 		if (!current) return null;
 		if (current.role === 'owner' && role !== 'owner' && owners.length <= 1) throw new LastOwnerError();
+		const takesSeat = (SEAT_ROLES as readonly string[]).includes(role) && !(SEAT_ROLES as readonly string[]).includes(current.role);
+		if (takesSeat) await requireFreeSeat(trx, workspaceId);
 		await trx('memberships').where({ workspace_id: workspaceId, user_id: userId }).update({ role });
 		return current.role as WorkspaceRole;
 	});

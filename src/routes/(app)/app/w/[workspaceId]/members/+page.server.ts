@@ -10,6 +10,9 @@ import { waitInWords } from '$lib/server/auth/rate-limit';
 import { INVITATION_DAYS, createInvitation, listOpenInvitations, revokeInvitation } from '$lib/server/db/invitations';
 import { recordAuditEvent, type AuditEventName } from '$lib/server/db/audit';
 import { getUserById } from '$lib/server/db/users';
+import { SeatLimitError, billingPath, seatHolders, seatsUsed } from '$lib/server/billing/gates';
+import { getBillingAccount } from '$lib/server/db/billing';
+import { effectivePlan, seatLimit } from '$lib/billing/plans';
 import { sendMail } from '$lib/server/mail/mailer';
 import { invitationMessage } from '$lib/server/mail/templates';
 import { fieldErrors, readForm } from '$lib/server/forms';
@@ -18,14 +21,22 @@ import type { Actions, PageServerLoad } from './$types';
 export const load: PageServerLoad = async (event) => {
 	const { user, membership } = await authorize(event, event.params, 'viewer');
 	const isOwner = membership.role === 'owner';
-	const [members, invitations] = await Promise.all([
+	const [members, invitations, holders, account] = await Promise.all([
 		listMembers(membership.workspaceId),
-		isOwner ? listOpenInvitations(membership.workspaceId) : Promise.resolve([])
+		isOwner ? listOpenInvitations(membership.workspaceId) : Promise.resolve([]),
+		seatHolders(membership.workspaceId),
+		getBillingAccount(membership.workspaceId)
 	]);
 	return {
 		me: user.id,
 		isOwner,
 		roleDescriptions,
+		seats: {
+			used: seatsUsed(holders),
+			limit: seatLimit(membership, account?.seats ?? null),
+			planName: effectivePlan(membership).plan.name,
+			billingUrl: billingPath(membership.workspaceId)
+		},
 		members: members.map((m) => ({ userId: m.userId, email: m.email, name: m.name, role: m.role })),
 		invitations: invitations.map((i) => ({ id: i.id, email: i.email, role: i.role, expiresAt: i.expiresAt.toISOString() }))
 	};
@@ -59,7 +70,20 @@ export const actions: Actions = {
 			const message = `This workspace sent 20 invitations in the last hour. Try again in ${waitInWords(allowance.retryAfterSeconds)}.`;
 			return fail(429, { action: 'invite', email: parsed.data.email, role: parsed.data.role, errors: { email: message } as Record<string, string> });
 		}
-		const { id, token } = await createInvitation({ workspaceId: membership.workspaceId, email: parsed.data.email, role: parsed.data.role, invitedBy: user.id });
+		let invitation: { id: string; token: string };
+		try {
+			invitation = await createInvitation({ workspaceId: membership.workspaceId, email: parsed.data.email, role: parsed.data.role, invitedBy: user.id });
+		} catch (error) {
+			if (!(error instanceof SeatLimitError)) throw error;
+			return fail(402, {
+				action: 'invite',
+				email: parsed.data.email,
+				role: parsed.data.role,
+				errors: { role: error.message } as Record<string, string>,
+				billingUrl: billingPath(membership.workspaceId)
+			});
+		}
+		const { id, token } = invitation;
 		const inviter = await getUserById(user.id);
 		await sendMail(
 			parsed.data.email,
@@ -86,6 +110,9 @@ export const actions: Actions = {
 			await audit(event, { user, membership }, 'role-changed', { memberId: target.data.userId, from: previous, to: fields.role });
 		} catch (error) {
 			if (error instanceof LastOwnerError) return fail(409, { action: 'changeRole', tone: 'error' as const, message: error.message });
+			if (error instanceof SeatLimitError) {
+				return fail(402, { action: 'changeRole', tone: 'error' as const, message: error.message, billingUrl: billingPath(membership.workspaceId) });
+			}
 			throw error;
 		}
 		return { action: 'changeRole', tone: 'ok' as const, message: 'Role changed.' };

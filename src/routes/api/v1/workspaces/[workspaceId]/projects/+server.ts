@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { authorize } from '$lib/server/auth/access';
 import { createProject, listProjectsPage } from '$lib/server/db/projects';
 import { createProjectBody } from '$lib/schemas/workbench';
+import { withRoomForProject } from '$lib/server/billing/gates';
 import { apiRoute, readJsonBody, validateBody } from '$lib/server/workbench/api-route';
 import { nextCursor, readPageRequest } from '$lib/server/workbench/paging';
 import { projectJson } from '$lib/server/workbench/serialize';
@@ -25,6 +26,6 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 export const POST: RequestHandler = apiRoute(async (event) => {
 	const { membership } = await authorize(event, event.params, 'analyst');
 	const body = validateBody(createProjectBody, await readJsonBody(event.request));
-	const project = await createProject({ workspaceId: membership.workspaceId, ...body });
+	const project = await withRoomForProject(membership.workspaceId, (trx) => createProject({ workspaceId: membership.workspaceId, ...body }, trx));
 	return json({ project: projectJson(project) }, { status: 201 });
 });
