@@ -52,6 +52,13 @@ describe('customers', () => {
 		expect(response.status).toBe(401);
 		expect((await response.json()).error.type).toBe('invalid_request_error');
 	});
+
+	it('takes the key as curl -u sends it (Basic, key as user name)', async () => {
+		const basic = `Basic ${Buffer.from('sk_test_curl:').toString('base64')}`;
+		const response = await fetch(`${harness.standin.url}/v1/customers?limit=1`, { headers: { authorization: basic } });
+		expect(response.status).toBe(200);
+		expect((await response.json()).object).toBe('list');
+	});
 });
 
 describe('idempotency keys', () => {

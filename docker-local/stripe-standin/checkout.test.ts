@@ -66,6 +66,17 @@ describe('createCheckoutSession', () => {
 			})
 		).rejects.toMatchObject({ type: 'StripeInvalidRequestError', param: 'line_items[0][quantity]', statusCode: 400 });
 	});
+
+	it('refuses a success_url that is not http(s), naming the field', async () => {
+		const plan = await seatPlan(harness.stripe);
+		await expect(
+			harness.stripe.checkout.sessions.create({
+				mode: 'subscription',
+				line_items: [{ price: plan.price.id, quantity: 1 }],
+				success_url: 'javascript:alert(1)'
+			})
+		).rejects.toMatchObject({ type: 'StripeInvalidRequestError', param: 'success_url', code: 'url_invalid' });
+	});
 });
 
 describe('checkout page', () => {

@@ -42,12 +42,19 @@ function header(req: IncomingMessage, name: string): string | undefined {
 	return Array.isArray(value) ? value[0] : value;
 }
 
+/** The secret key from `Bearer <key>` (the SDK) or `Basic base64(<key>:)` (curl -u key:). */
+function apiKey(authorization: string): string | undefined {
+	const bearer = /^Bearer (.+)$/.exec(authorization)?.[1];
+	if (bearer) return bearer;
+	const basic = /^Basic (.+)$/.exec(authorization)?.[1];
+	return basic ? Buffer.from(basic, 'base64').toString('utf8').split(':')[0] || undefined : undefined;
+}
+
 /** Only test secret keys are accepted, so a live key pasted by mistake fails loudly here. */
 function checkApiKey(req: IncomingMessage): void {
-	const authorization = header(req, 'authorization') ?? '';
-	const key = /^Bearer (.+)$/.exec(authorization)?.[1];
+	const key = apiKey(header(req, 'authorization') ?? '');
 	if (!key) {
-		throw new StandinError(401, 'You did not provide an API key. The local Stripe stand-in takes any sk_test_ key as a Bearer token.');
+		throw new StandinError(401, 'You did not provide an API key. The local Stripe stand-in takes any sk_test_ key, as a Bearer token or as the Basic user name.');
 	}
 	if (!key.startsWith('sk_test_')) {
 		throw new StandinError(401, 'The local Stripe stand-in accepts test secret keys (sk_test_...) only.');

@@ -62,6 +62,24 @@ describe('subscriptions.update (seats)', () => {
 		expect(change.data.previous_attributes?.items?.data[0].quantity).toBe(3);
 	});
 
+	it('with always_invoice and fewer seats, credits the customer and spends the credit on the renewal', async () => {
+		const { subscription, customer } = await subscribed();
+		const item = subscription.items.data[0];
+		const at = twoThirdsIn(item);
+		// Hand arithmetic: 4900 × (2 − 3) × 1/3 = −1633.33 -> −1633 (a credit); nothing is due now.
+		const updated = await harness.stripe.subscriptions.update(subscription.id, {
+			items: [{ id: item.id, quantity: 2 }],
+			proration_behavior: 'always_invoice',
+			proration_date: at
+		});
+		const credit = await harness.stripe.invoices.retrieve(updated.latest_invoice as string);
+		expect(credit).toMatchObject({ total: -1633, amount_due: 0, status: 'paid', starting_balance: 0, ending_balance: -1633 });
+		expect(await harness.stripe.customers.retrieve(customer.id)).toMatchObject({ balance: -1633 });
+		// The renewal: 2 seats × 4900 = 9800, less the 1633 credit = 8167 due.
+		const preview = await harness.stripe.invoices.createPreview({ subscription: subscription.id });
+		expect(preview).toMatchObject({ total: 9800, amount_due: 8167, starting_balance: -1633 });
+	});
+
 	it('with proration_behavior none, changes seats and bills nothing now', async () => {
 		const { subscription } = await subscribed();
 		const updated = await harness.stripe.subscriptions.update(subscription.id, {

@@ -13,6 +13,10 @@ import { applyMetadata, type MetadataUpdate } from './params';
 import { newId, snapshot, type CardOnFile, type StandinState, type SubscriptionRecord } from './state';
 import { addBillingIntervals } from './clock';
 
+function cancellationReason(reason: Stripe.Subscription.CancellationDetails.Reason | null): Stripe.Subscription.CancellationDetails {
+	return { comment: null, feedback: null, feedback_option: null, reason };
+}
+
 /** Stripe's own test payment methods for the two cards the stand-in offers. */
 const paymentMethodIds: Record<Exclude<CardOnFile, 'none'>, string> = {
 	working: 'pm_card_visa',
@@ -120,12 +124,12 @@ export function updateSubscription(
 		subscription.cancel_at_period_end = true;
 		subscription.cancel_at = item.current_period_end;
 		subscription.canceled_at = now;
-		subscription.cancellation_details = { ...subscription.cancellation_details!, reason: 'cancellation_requested' };
+		subscription.cancellation_details = cancellationReason('cancellation_requested');
 	} else if (change.cancelAtPeriodEnd === false && subscription.cancel_at_period_end) {
 		subscription.cancel_at_period_end = false;
 		subscription.cancel_at = null;
 		subscription.canceled_at = null;
-		subscription.cancellation_details = { ...subscription.cancellation_details!, reason: null };
+		subscription.cancellation_details = cancellationReason(null);
 	}
 	subscription.metadata = applyMetadata(subscription.metadata, change.metadata);
 
@@ -165,7 +169,7 @@ export function cancelSubscriptionNow(state: StandinState, emit: Emit, id: strin
 	subscription.ended_at = now;
 	subscription.cancel_at = null;
 	subscription.cancel_at_period_end = false;
-	subscription.cancellation_details = { ...subscription.cancellation_details!, reason: 'cancellation_requested' };
+	subscription.cancellation_details = cancellationReason('cancellation_requested');
 	record.pendingProrations = [];
 	emit('customer.subscription.deleted', subscription);
 	return subscription;
