@@ -6,7 +6,10 @@ import { tidalDocument } from '../../../tests/fixtures/scenario-documents';
 import { isMethodSlug, METHOD_NOTES } from '../methods';
 import { evaluateScenario } from '../server/engine/evaluate';
 import {
+	CASE_FIGURE_KEYS,
+	CASE_FIGURES,
 	engineValueUnit,
+	figureDefinition,
 	isMetricKey,
 	METRIC_KEYS,
 	METRIC_LIST,
@@ -65,6 +68,22 @@ describe('metricUnit and metricUnitWithBasis', () => {
 		expect(metricUnit('npv', 'EUR')).toBe('EUR');
 		expect(metricUnitWithBasis('lcoeReal', 'EUR')).toBe('EUR/MWh (real, COD-year money)');
 		expect(metricUnitWithBasis('minDscr', 'EUR')).toBe('×');
+	});
+});
+
+describe('CASE_FIGURES and figureDefinition', () => {
+	it('gives the case figures labels of their own, units and method notes that exist, apart from the engine metrics', () => {
+		const slugs = new Set<string>(METHOD_NOTES.map((n) => n.slug));
+		const metricLabels = new Set(METRIC_LIST.map((m) => m.label));
+		for (const key of CASE_FIGURE_KEYS) {
+			expect(isMetricKey(key), key).toBe(false);
+			expect(metricLabels.has(CASE_FIGURES[key].label), key).toBe(false);
+			expect(slugs.has(CASE_FIGURES[key].method), key).toBe(true);
+			expect(figureDefinition(key)).toBe(CASE_FIGURES[key]);
+		}
+		expect(figureDefinition('lcoeReal')).toBe(METRICS.lcoeReal);
+		expect(metricUnit('installedCapacityMW', 'EUR')).toBe('MW');
+		expect(metricUnitWithBasis('capexRealTotal', 'GBP')).toBe('GBP (real, COD-year money, with contingency, before grants)');
 	});
 });
 

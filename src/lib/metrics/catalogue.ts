@@ -101,6 +101,48 @@ export const METRICS: Readonly<Record<MetricKey, MetricDefinition>> = Object.fro
 /** Every metric, in the catalogue's order. */
 export const METRIC_LIST: readonly MetricDefinition[] = METRIC_KEYS.map((key) => METRICS[key]);
 
+/**
+ * Figures of a case that are no engine metric but are read beside the
+ * metrics (the portfolio): the installed capacity and the capex total, both
+ * from the stored result's energy and costs. Same fields as a metric, so one
+ * formatter serves both; not in METRIC_KEYS, which is what the engine computes.
+ */
+export const CASE_FIGURE_KEYS = ['installedCapacityMW', 'capexRealTotal'] as const;
+export type CaseFigureKey = (typeof CASE_FIGURE_KEYS)[number];
+
+export interface CaseFigureDefinition extends Omit<MetricDefinition, 'key'> {
+	key: CaseFigureKey;
+}
+
+const CASE_ENTRIES: Record<CaseFigureKey, Entry> = {
+	installedCapacityMW: { label: 'Installed capacity', unit: 'MW', basis: 'devices × rated power', places: 2, scale: 'plain', betterWhen: 'neither', method: 'capacity-factor' },
+	capexRealTotal: {
+		label: 'Capex',
+		unit: '{currency}',
+		basis: 'real, COD-year money, with contingency, before grants',
+		places: 0,
+		scale: 'plain',
+		betterWhen: 'lower',
+		method: 'costs'
+	}
+};
+
+export const CASE_FIGURES: Readonly<Record<CaseFigureKey, CaseFigureDefinition>> = Object.fromEntries(
+	CASE_FIGURE_KEYS.map((key) => [key, { key, ...CASE_ENTRIES[key] }])
+) as Record<CaseFigureKey, CaseFigureDefinition>;
+
+/** A metric or a case figure: anything the catalogue gives a label, unit and precision. */
+export type FigureKey = MetricKey | CaseFigureKey;
+
+export function isCaseFigureKey(value: string): value is CaseFigureKey {
+	return (CASE_FIGURE_KEYS as readonly string[]).includes(value);
+}
+
+/** The definition of a metric or case figure. */
+export function figureDefinition(key: FigureKey): MetricDefinition | CaseFigureDefinition {
+	return isCaseFigureKey(key) ? CASE_FIGURES[key] : METRICS[key];
+}
+
 export function isMetricKey(value: string): value is MetricKey {
 	return (METRIC_KEYS as readonly string[]).includes(value);
 }
@@ -111,14 +153,14 @@ export function metricDefinition(key: string): MetricDefinition {
 	return METRICS[key];
 }
 
-/** The unit a metric is shown in, with the project's currency: "EUR/MWh", "%/yr", "×". */
-export function metricUnit(key: MetricKey, currency: string): string {
-	return METRICS[key].unit.replaceAll(CURRENCY_PLACEHOLDER, currency);
+/** The unit a metric (or case figure) is shown in, with the project's currency: "EUR/MWh", "%/yr", "×". */
+export function metricUnit(key: FigureKey, currency: string): string {
+	return figureDefinition(key).unit.replaceAll(CURRENCY_PLACEHOLDER, currency);
 }
 
 /** The unit with its basis, for a table with one unit column: "EUR/MWh (real, COD-year money)". */
-export function metricUnitWithBasis(key: MetricKey, currency: string): string {
-	const { basis } = METRICS[key];
+export function metricUnitWithBasis(key: FigureKey, currency: string): string {
+	const { basis } = figureDefinition(key);
 	return basis === '' ? metricUnit(key, currency) : `${metricUnit(key, currency)} (${basis})`;
 }
 

@@ -32,6 +32,11 @@ describe('formatMetric', () => {
 		expect(formatMetric('equityIrr', '0.0915207133')).toBe('9.15');
 		expect(formatMetric('capacityFactor', '0.3063831975')).toBe('30.6');
 	});
+	it('shows the case figures beside the metrics at their own precision', () => {
+		expect(formatMetric('installedCapacityMW', '15.125')).toBe('15.12');
+		expect(formatMetric('capexRealTotal', '86350000.5')).toBe('86,350,000');
+		expect(roundedMetric('capexRealTotal', '86350001.5')).toBe('86350002');
+	});
 	it('shows energy and money whole, prices to the cent, ratios to two places, an absent value as a dash', () => {
 		expect(formatMetric('netAepMWh', '40258.7521467622')).toBe('40,259');
 		expect(formatMetric('npv', '-6441516.97')).toBe('−6,441,517');

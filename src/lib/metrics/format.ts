@@ -7,7 +7,7 @@
  * Safe to import in the browser.
  */
 import DecimalJs from 'decimal.js';
-import { METRICS, metricUnit, type MetricKey } from './catalogue';
+import { figureDefinition, METRICS, metricUnit, type FigureKey, type MetricKey } from './catalogue';
 
 /** Enough digits that scaling an engine value by 100 never rounds it. */
 const Decimal = DecimalJs.clone({ precision: 40, rounding: DecimalJs.ROUND_HALF_EVEN });
@@ -26,20 +26,20 @@ export function groupDigits(value: DecimalJs.Value, places: number): string {
 }
 
 /** An engine value in the metric's display unit, exactly (fractions times 100 for per cent figures). */
-function inDisplayUnit(key: MetricKey, value: DecimalJs.Value): Decimal {
+function inDisplayUnit(key: FigureKey, value: DecimalJs.Value): Decimal {
 	const d = new Decimal(value);
-	return METRICS[key].scale === 'percent' ? d.times(100) : d;
+	return figureDefinition(key).scale === 'percent' ? d.times(100) : d;
 }
 
 /** An engine value in the display unit at the catalogue's precision, as a Decimal. */
-function roundedInDisplayUnit(key: MetricKey, value: DecimalJs.Value): Decimal {
-	return inDisplayUnit(key, value).toDecimalPlaces(METRICS[key].places, Decimal.ROUND_HALF_EVEN);
+function roundedInDisplayUnit(key: FigureKey, value: DecimalJs.Value): Decimal {
+	return inDisplayUnit(key, value).toDecimalPlaces(figureDefinition(key).places, Decimal.ROUND_HALF_EVEN);
 }
 
-/** A metric value as text in its display unit, without the unit: "40,259", "9.15"; a missing value reads as an en dash. */
-export function formatMetric(key: MetricKey, value: string | null): string {
+/** A metric value (or case figure) as text in its display unit, without the unit: "40,259", "9.15"; a missing value reads as an en dash. */
+export function formatMetric(key: FigureKey, value: string | null): string {
 	if (value === null) return NO_VALUE;
-	return groupDigits(inDisplayUnit(key, value), METRICS[key].places);
+	return groupDigits(inDisplayUnit(key, value), figureDefinition(key).places);
 }
 
 /**
@@ -47,10 +47,10 @@ export function formatMetric(key: MetricKey, value: string | null): string {
  * precision, without grouping, with an ASCII minus ("-6441517", "9.15"), so
  * a file and the screen agree to the digit. Null stays null.
  */
-export function roundedMetric(key: MetricKey, value: string | null): string | null {
+export function roundedMetric(key: FigureKey, value: string | null): string | null {
 	if (value === null) return null;
 	const rounded = roundedInDisplayUnit(key, value);
-	return (rounded.isZero() ? rounded.abs() : rounded).toFixed(METRICS[key].places);
+	return (rounded.isZero() ? rounded.abs() : rounded).toFixed(figureDefinition(key).places);
 }
 
 /** A metric value in its display unit with every digit the engine gave ("9.15207133" for 0.0915207133). */
@@ -59,7 +59,7 @@ export function exactMetric(key: MetricKey, value: string | null): string | null
 }
 
 /** A metric value with its unit, for a sentence or a tooltip: "252.64 EUR/MWh", "9.15 %/yr". */
-export function formatMetricWithUnit(key: MetricKey, value: string | null, currency: string): string {
+export function formatMetricWithUnit(key: FigureKey, value: string | null, currency: string): string {
 	return value === null ? NO_VALUE : `${formatMetric(key, value)} ${metricUnit(key, currency)}`;
 }
 
@@ -108,13 +108,13 @@ export function verdictAgainst(key: MetricKey, value: string | null, base: strin
 }
 
 /** A metric value as a chart number in its display unit (per cent figures times 100). Floats, for charts only. */
-export function chartValue(key: MetricKey, value: string | null): number | null {
+export function chartValue(key: FigureKey, value: string | null): number | null {
 	return value === null ? null : inDisplayUnit(key, value).toNumber();
 }
 
 /** A chart number (from chartValue) as text with its unit, for tooltips. */
-export function formatChartValue(key: MetricKey, value: number, currency: string): string {
-	const places = METRICS[key].places;
+export function formatChartValue(key: FigureKey, value: number, currency: string): string {
+	const places = figureDefinition(key).places;
 	const text = value.toLocaleString('en-GB', { minimumFractionDigits: places, maximumFractionDigits: places }).replace('-', '−');
 	return `${text} ${metricUnit(key, currency)}`;
 }

@@ -34,6 +34,7 @@ import {
 	workspaceWithPlanJsonSchema
 } from '../../schemas/api-responses';
 import { pageCursorSchema, pageLimitSchema } from '../../schemas/paging';
+import { portfolioQueryFields, portfolioResponseSchema } from '../../schemas/portfolio';
 import { scenarioSchema } from '../../schemas/scenario';
 import {
 	applyUploadBody,
@@ -65,7 +66,8 @@ export const apiTags = {
 	Projects: 'Projects: one site, one technology, many scenarios.',
 	Scenarios: 'Scenarios: a document of assumptions, saved as numbered revisions.',
 	Results: 'Figures calculated from a scenario: metrics, cash flows, sensitivity, comparison and exports.',
-	Uploads: 'Resource and device data uploaded as CSV files and applied to scenarios.'
+	Uploads: 'Resource and device data uploaded as CSV files and applied to scenarios.',
+	Portfolio: "Every project of your workspaces with its base case's stored key figures, to read side by side."
 } as const;
 export type ApiTag = keyof typeof apiTags;
 
@@ -154,6 +156,17 @@ const pagedDescription = 'A page at a time: send the answer\'s nextCursor back a
 
 const draftDocument =
 	'An unsaved draft to calculate instead of the saved scenario (needs the analyst role, and with an API token a read-write one). Leave it out to use the saved scenario.';
+
+/** The portfolio's filters and order, the same for its JSON and its CSV. */
+const portfolioQuery: QueryParameter[] = (Object.keys(portfolioQueryFields) as (keyof typeof portfolioQueryFields)[]).map((name) => ({
+	name,
+	required: false,
+	description: portfolioQueryFields[name].description!,
+	schema: portfolioQueryFields[name]
+}));
+
+const portfolioDescription =
+	"Each project, live and archived, with its base case (the live scenario marked so) and the figures of that base case's stored result for the current engine. A project without them is listed too, with the reason in missing and reason. A workspaceId you are not a member of answers 404, like any other workspace (an API token reaches its own workspace only).";
 
 const projectEnvelope = z.object({ project: projectJsonSchema });
 const scenarioEnvelope = z.object({ scenario: scenarioJsonSchema });
@@ -573,6 +586,32 @@ export const apiOperations: ApiOperation[] = [
 		},
 		conflict:
 			'The scenario moved on since the revision you sent (currentRevision says where it is now), or the scenario or its project is archived and must be restored first; nothing was changed'
+	},
+	{
+		operationId: 'getPortfolio',
+		method: 'GET',
+		path: '/api/v1/portfolio',
+		tag: 'Portfolio',
+		summary: 'Every project of your workspaces with its base case’s key figures',
+		description: `${portfolioDescription} Figures are numbers in the engine’s units (rates and the capacity factor as fractions), money in the row’s currency.`,
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		query: portfolioQuery,
+		response: { status: 200, description: 'The rows, filtered and ordered as asked, with their counts', json: portfolioResponseSchema },
+		otherErrors: [404, 422]
+	},
+	{
+		operationId: 'exportPortfolio',
+		method: 'GET',
+		path: '/api/v1/portfolio.csv',
+		tag: 'Portfolio',
+		summary: 'Download the portfolio table as CSV',
+		description: `${portfolioDescription} The rows of getPortfolio with the same query, figures rounded as the app shows them in their display units (per cent figures as per cent), units in the headers, the currency of each row beside its money, and the cautions after a blank line.`,
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		query: portfolioQuery,
+		response: { status: 200, description: 'The CSV file, as an attachment', fileTypes: ['text/csv'] },
+		otherErrors: [404, 422]
 	},
 	{
 		operationId: 'downloadUploadFile',
