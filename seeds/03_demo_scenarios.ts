@@ -19,7 +19,7 @@ export const DOWNSIDE_CAPEX_FACTOR = 1.15;
 export const DOWNSIDE_AVAILABILITY_DROP = 0.05;
 
 /** The example scenarios, validated (and upgraded, were one in an older format); an invalid one stops the seed, naming its problems. */
-function readExamples(): Scenario[] {
+export function readExamples(): Scenario[] {
 	if (!existsSync(examplesDirectory)) return [];
 	return readdirSync(examplesDirectory)
 		.filter((file) => file.endsWith('.json'))
@@ -49,10 +49,11 @@ export function downsideOf(base: Scenario, name: string): Scenario {
 	};
 }
 
-async function insertScenario(
+/** A scenario at revision 1 with its revision row; answers its id. */
+export async function insertScenario(
 	trx: Knex.Transaction,
 	row: { projectId: string; name: string; notes: string; document: Scenario; isBaseCase: boolean; userId: string | null }
-) {
+): Promise<string> {
 	const document = { ...row.document, name: row.name };
 	const [scenario] = await trx('scenarios')
 		.insert({
@@ -76,6 +77,7 @@ async function insertScenario(
 		summary: 'Created with the demo data',
 		changed_by: row.userId
 	});
+	return scenario.id;
 }
 
 export async function seed(knex: Knex): Promise<void> {
