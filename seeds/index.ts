@@ -6,8 +6,9 @@ import type { Knex } from 'knex';
 import { seed as seedDemoWorkspace } from './01_demo_workspace';
 import { seed as seedDemoUsers } from './02_demo_users';
 import { seed as seedDemoScenarios } from './03_demo_scenarios';
+import { seed as seedConsultantPortfolio } from './04_consultant_portfolio';
 
-const seeds: Array<(knex: Knex) => Promise<void>> = [seedDemoWorkspace, seedDemoUsers, seedDemoScenarios];
+const seeds: Array<(knex: Knex) => Promise<void>> = [seedDemoWorkspace, seedDemoUsers, seedDemoScenarios, seedConsultantPortfolio];
 
 export async function runSeeds(knex: Knex): Promise<void> {
 	for (const seed of seeds) await seed(knex);
