@@ -72,12 +72,23 @@ async function main() {
 	process.on('SIGINT', () => void shutdown(0));
 	process.on('SIGTERM', () => void shutdown(0));
 
+	// The stand-ins read where the app will listen (the Stripe stand-in posts its events there).
+	process.env.PORT = port;
+	process.env.ORIGIN = origin;
 	if (fresh) removeCluster(clusterSettingsFromEnv());
 	services.push(await startPostgres());
 	for (const startService of extraServices) services.push(await startService());
 	const serviceEnv = Object.assign({}, ...services.map((s) => s.env)) as Record<string, string>;
 	// adapter-node refuses bodies over 512 KB by default; uploads may be up to 20 MB (src/lib/server/uploads).
 	const env = { BODY_SIZE_LIMIT: '26M', ...process.env, ...serviceEnv, HOST: host, PORT: port, ORIGIN: origin };
+
+	if (serviceEnv.STRIPE_STANDIN_URL) {
+		// The stand-in starts empty: give the demo's paid workspaces their subscriptions again.
+		// Not spawnSync: the stand-in answers from this very process.
+		const demoBilling = spawn('npx', ['tsx', '--tsconfig', 'scripts/tsconfig.json', 'scripts/demo-billing.ts'], { cwd: projectRoot, env, stdio: 'inherit' });
+		const status = await new Promise<number | null>((resolve) => demoBilling.once('exit', resolve));
+		if (status !== 0) throw new Error('the demo subscriptions could not be made in the Stripe stand-in');
+	}
 
 	if (dev) {
 		app = spawn('npx', ['vite', 'dev', '--host', host, '--port', port, '--strictPort'], {

@@ -149,7 +149,8 @@ export async function previewSeatChange(workspaceId: string, seats: number): Pro
 	return {
 		seats,
 		currentSeats: item.quantity ?? 0,
-		dueNow: preview.amount_due,
+		// total, not amount_due: a credit for fewer seats is negative here, while amount_due never goes below 0.
+		dueNow: preview.total,
 		perPeriod: price.unitAmount * seats,
 		currency: price.currency,
 		nextRenewal: item.current_period_end ? new Date(item.current_period_end * 1000) : null
