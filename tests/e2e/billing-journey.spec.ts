@@ -42,11 +42,11 @@ test('an owner upgrades, meets the seat limit, adds a seat, cancels, lapses, is 
 		// The owner holds one seat; one analyst fits, a second does not (a viewer would).
 		await openPage(owner, `/app/w/${workspaceId}/members`);
 		await owner.getByLabel('E-mail').fill('first.analyst@penrow.example');
-		await owner.getByLabel('Role').selectOption('analyst');
+		await owner.getByLabel('Role', { exact: true }).selectOption('analyst');
 		await owner.getByRole('button', { name: 'Send invitation' }).click();
 		await expect(owner.getByText('Invitation sent to first.analyst@penrow.example')).toBeVisible();
 		await owner.getByLabel('E-mail').fill('second.analyst@penrow.example');
-		await owner.getByLabel('Role').selectOption('analyst');
+		await owner.getByLabel('Role', { exact: true }).selectOption('analyst');
 		await owner.getByRole('button', { name: 'Send invitation' }).click();
 		const refusal = owner.getByRole('alert').filter({ hasText: 'All 2 seats of this workspace are taken' });
 		await expect(refusal).toBeVisible();
