@@ -51,7 +51,7 @@ const place = {} as {
 };
 
 const query = (given: Partial<PortfolioQuery> = {}) => portfolioQuerySchema.parse(given);
-const workspaceOf = (workspaceId: string, name = 'A') => ({ workspaceId, workspaceName: name, workspaceSlug: name, plan: 'free', role: 'viewer' as const });
+const workspaceOf = (workspaceId: string, name = 'A') => ({ workspaceId, workspaceName: name, role: 'viewer' as const });
 
 async function projectWithBaseCase(workspaceId: string, name: string, document = tidalDocument) {
 	const project = await createProject({ workspaceId, name, technology: document.technology }, database.knex);

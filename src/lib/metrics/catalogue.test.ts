@@ -102,6 +102,7 @@ describe('metricMethodHref', () => {
 			expect(isMethodSlug(slug), key).toBe(true);
 		}
 		expect(metricMethodHref('lcoeFcr')).toBe('/app/methods/lcoe-fixed-charge-rate');
+		expect(metricMethodHref('capexRealTotal')).toBe('/app/methods/costs');
 		expect(metricMethodHref('noSuchMetric')).toBe('/app/methods');
 	});
 });

@@ -173,9 +173,9 @@ export function engineValueUnit(key: MetricKey, currency: string): string {
 	return METRICS[key].scale === 'percent' ? shown.replace('%', 'fraction') : shown;
 }
 
-/** Where a metric's method note lives; a key with no note leads to the index. */
+/** Where a metric's (or case figure's) method note lives; a key with no note leads to the index. */
 export function metricMethodHref(key: string): string {
-	return isMetricKey(key) ? methodNoteHref(METRICS[key].method) : METHODS_INDEX_HREF;
+	return isMetricKey(key) || isCaseFigureKey(key) ? methodNoteHref(figureDefinition(key).method) : METHODS_INDEX_HREF;
 }
 
 /** The metrics a method note explains, in the catalogue's order. */

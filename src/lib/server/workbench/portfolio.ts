@@ -106,7 +106,7 @@ export interface Portfolio {
 
 /** The portfolio of the given workspaces (already authorized), filtered and ordered by the query. */
 export async function loadPortfolio(
-	workspaces: readonly WorkspaceMembership[],
+	workspaces: readonly Pick<WorkspaceMembership, 'workspaceId' | 'workspaceName' | 'role'>[],
 	query: PortfolioQuery,
 	options: { knex?: Knex; engineVersion?: string } = {}
 ): Promise<Portfolio> {
