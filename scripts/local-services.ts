@@ -70,7 +70,7 @@ async function startStripeStandinService(): Promise<RunningService> {
 /** What a newcomer needs to sign in at once, and where the app's mail can be read. */
 export function demoCredentialsText(origin: string, host: string): string {
 	const lines = Object.entries(demoUsers).map(
-		([persona, u]) => `  ${persona.padEnd(9)} ${u.email.padEnd(40)} ${u.password}`
+		([persona, u]) => `  ${persona.padEnd(10)} ${u.email.padEnd(40)} ${u.password}`
 	);
 	const loopback = isLoopbackHost(host) && isLoopbackHost(new URL(origin).hostname);
 	const inbox = loopback
