@@ -74,8 +74,8 @@ test.describe('portfolio', () => {
 
 		// Filter by technology with the GET form; the order stays.
 		const waves = consultantProjects.filter((p) => p.technology === 'wave');
-		await page.getByLabel('Technology').selectOption('wave');
-		await page.getByRole('button', { name: 'Show' }).click();
+		await page.getByLabel('Technology', { exact: true }).selectOption('wave');
+		await page.getByRole('button', { name: 'Show', exact: true }).click();
 		await expect(page).toHaveURL(/technology=wave/);
 		await expect(page).toHaveURL(/sort=lcoeReal/);
 		await expect(page.getByTestId('portfolio-counts')).toContainText(`${waves.length} projects, ${waves.length} with results`);
@@ -118,7 +118,7 @@ test.describe('portfolio', () => {
 			await expect(table.getByRole('cell', { name: otherWorkspace.name }).first()).toBeVisible();
 			await expect(table.getByRole('cell', { name: demoWorkspace.name }).first()).toBeVisible();
 			await page.getByLabel('From workspace').selectOption({ label: otherWorkspace.name });
-			await page.getByRole('button', { name: 'Show' }).click();
+			await page.getByRole('button', { name: 'Show', exact: true }).click();
 			await expect(page).toHaveURL(/workspaceId=[0-9a-f-]{36}/);
 			await expect(page.getByTestId('portfolio-counts')).toContainText(`${consultantProjects.length} projects`);
 			await page.screenshot({ path: `${artifacts}/portfolio-2-consultant.png`, fullPage: true });
