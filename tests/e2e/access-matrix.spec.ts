@@ -15,7 +15,7 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join, relative, sep } from 'node:path';
 import { expect, test, type APIRequestContext, type APIResponse, type request as playwrightRequest } from '@playwright/test';
-import { baseURL, mailSinkHttpPort } from '../../playwright.config';
+import { baseURL, mailSinkHttpPort, stripeStandinPort } from '../../playwright.config';
 import { demoUsers } from '../../seeds/02_demo_users';
 import { METHOD_NOTES } from '../../src/lib/methods';
 import { signedInRequest, workspaceIdOf, type Persona } from './helpers/session';
@@ -163,6 +163,14 @@ const matrix: Row[] = [
 	{ route: '/app/w/[workspaceId]', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/audit', method: 'GET', expect: page('owner') },
 	{ route: '/app/w/[workspaceId]/members', method: 'GET', expect: page('viewer') },
+	// Billing is the owners' (workspace A pays for the Team plan in the demo data); bad fields answer 400 after the check.
+	{ route: '/app/w/[workspaceId]/billing', method: 'GET', expect: page('owner') },
+	{ route: '/app/w/[workspaceId]/billing', method: 'POST', action: 'upgrade', body: { form: { plan: 'gold', seats: 'many' } }, expect: action('owner', 400) },
+	{ route: '/app/w/[workspaceId]/billing', method: 'POST', action: 'previewSeats', body: { form: { seats: '0' } }, expect: action('owner', 400) },
+	{ route: '/app/w/[workspaceId]/billing', method: 'POST', action: 'changeSeats', body: { form: { seats: 'x' } }, expect: action('owner', 400) },
+	{ route: '/app/w/[workspaceId]/billing', method: 'POST', action: 'cancel', expect: action('owner', 200), after: resumeBilling },
+	{ route: '/app/w/[workspaceId]/billing', method: 'POST', action: 'resume', expect: action('owner', 200) },
+	{ route: '/app/w/[workspaceId]/billing', method: 'POST', action: 'portal', expect: action('owner', `303 http://127.0.0.1:${stripeStandinPort}/portal/`) },
 	{ route: '/app/w/[workspaceId]/portfolio', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/projects/[projectId]', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/projects/[projectId]/compare', method: 'GET', expect: page('viewer') },
@@ -177,6 +185,8 @@ const matrix: Row[] = [
 
 	// API
 	{ route: '/api/v1/health', method: 'GET', expect: everyone(200) },
+	// Stripe's deliveries carry no session or token: without a valid signature everyone gets 400.
+	{ route: '/api/v1/billing/webhook', method: 'POST', body: badJson, expect: everyone(400) },
 	{ route: '/api/v1/openapi.json', method: 'GET', expect: everyone(200) },
 	{ route: '/api/v1/workspaces', method: 'GET', expect: { ...signedIn(200, 401), readToken: 200, writeToken: 200 } },
 	// The portfolio spans the caller's own workspaces (a token's: its own); a bad filter answers 422, but only after sign-in.
@@ -285,6 +295,12 @@ function answerOf(response: APIResponse, expected: Answer): Answer {
 async function restoreProbeProject() {
 	const response = await clients.owner.post(`/api/v1/projects/${ids.projectId}/restore`);
 	expect(response.status(), 'restore the probe project').toBe(200);
+}
+
+async function resumeBilling(persona: Caller, response: APIResponse) {
+	if (persona !== 'owner' || response.status() !== 200) return;
+	const resumed = await clients.owner.post(`/app/w/${ids.workspaceId}/billing?/resume`, { headers: { accept: 'text/html' }, form: {}, maxRedirects: 0 });
+	expect(resumed.status(), 'resume the plan').toBe(200);
 }
 
 async function restoreProbeScenario() {
