@@ -60,6 +60,7 @@ const schemaRef = (name: string) => `#/components/schemas/${name}`;
 const errorResponses: Record<Exclude<ErrorStatus, 409>, { name: string; description: string }> = {
 	400: { name: 'BadRequest', description: 'The body could not be read (not JSON, or missing where one is needed)' },
 	401: { name: 'Unauthorized', description: 'Not signed in, or the API token is unknown, expired or revoked' },
+	402: { name: 'PaymentRequired', description: "The workspace's plan does not allow this (or its paid plan lapsed); billingUrl in the error is the owner's billing page" },
 	403: { name: 'Forbidden', description: 'Your role in the workspace is too low, the API token may not do this, or a browser sent the request from another site' },
 	404: { name: 'NotFound', description: 'No such thing, or it is in a workspace you are not a member of (the two answer alike)' },
 	413: { name: 'PayloadTooLarge', description: 'The file is over the upload limit' },

@@ -67,12 +67,13 @@ export const apiTags = {
 	Scenarios: 'Scenarios: a document of assumptions, saved as numbered revisions.',
 	Results: 'Figures calculated from a scenario: metrics, cash flows, sensitivity, comparison and exports.',
 	Uploads: 'Resource and device data uploaded as CSV files and applied to scenarios.',
-	Portfolio: "Every project of your workspaces with its base case's stored key figures, to read side by side."
+	Portfolio: "Every project of your workspaces with its base case's stored key figures, to read side by side.",
+	Billing: "Stripe's event deliveries. Plans and seats are managed on the billing page in the browser, never with an API token."
 } as const;
 export type ApiTag = keyof typeof apiTags;
 
 /** Refusals an operation can answer with, all in the one error shape. */
-export type ErrorStatus = 400 | 401 | 403 | 404 | 409 | 413 | 415 | 422 | 429 | 503;
+export type ErrorStatus = 400 | 401 | 402 | 403 | 404 | 409 | 413 | 415 | 422 | 429 | 503;
 
 export interface ParameterSpec {
 	description: string;
@@ -195,6 +196,12 @@ export const namedRequestSchemas: Record<string, z.ZodType> = {
 	ScenarioDocumentInput: scenarioSchema
 };
 
+const webhookAnswer = z.object({
+	received: z.literal(true),
+	handled: z.boolean().describe('False for an event handled before (a replay) or of a type Tidewright does not use'),
+	note: z.string()
+});
+
 export const apiOperations: ApiOperation[] = [
 	{
 		operationId: 'getHealth',
@@ -206,6 +213,19 @@ export const apiOperations: ApiOperation[] = [
 		apiToken: 'not-needed',
 		response: { status: 200, description: 'The service and its database are up', json: healthResponseSchema },
 		otherResponses: [{ status: 503, description: 'The database does not answer', json: healthResponseSchema }]
+	},
+	{
+		operationId: 'receiveBillingEvent',
+		method: 'POST',
+		path: '/api/v1/billing/webhook',
+		tag: 'Billing',
+		summary: "Stripe's webhook: subscription, checkout and invoice events",
+		description:
+			'Called by Stripe, not by you. The Stripe-Signature header is checked against the raw body with the endpoint secret (older than 300 s, tampered or wrongly signed: 400). Each event is handled once; a failure answers 500 so Stripe delivers it again.',
+		minimumRole: 'anyone',
+		apiToken: 'not-needed',
+		response: { status: 200, description: 'The event was received', json: webhookAnswer },
+		otherErrors: [400]
 	},
 	{
 		operationId: 'getOpenApiDocument',
@@ -255,7 +275,8 @@ export const apiOperations: ApiOperation[] = [
 		minimumRole: 'analyst',
 		apiToken: 'read-write',
 		requestBody: jsonBody(createProjectBody, true),
-		response: { status: 201, description: 'The new project', json: projectEnvelope }
+		response: { status: 201, description: 'The new project', json: projectEnvelope },
+		otherErrors: [402]
 	},
 	{
 		operationId: 'getProject',
@@ -299,7 +320,8 @@ export const apiOperations: ApiOperation[] = [
 		summary: 'Bring an archived project back',
 		minimumRole: 'owner',
 		apiToken: 'read-write',
-		response: { status: 200, description: 'The restored project', json: projectEnvelope }
+		response: { status: 200, description: 'The restored project', json: projectEnvelope },
+		otherErrors: [402]
 	},
 	{
 		operationId: 'listScenarios',
