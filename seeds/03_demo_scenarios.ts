@@ -12,6 +12,8 @@ import { fileURLToPath } from 'node:url';
 import { parseScenario, type Scenario } from '../src/lib/schemas/scenario';
 import { demoProjects, demoWorkspace } from './01_demo_workspace';
 import { demoUsers } from './02_demo_users';
+import { ENGINE_VERSION } from '../src/lib/server/engine/version';
+import { evaluateScenario } from '../src/lib/server/engine/evaluate';
 
 const examplesDirectory = join(dirname(fileURLToPath(import.meta.url)), '..', 'examples');
 
@@ -77,6 +79,8 @@ export async function insertScenario(
 		summary: 'Created with the demo data',
 		changed_by: row.userId
 	});
+	// As a save through the app would: the revision's result stored for the current engine.
+	await trx('scenario_results').insert({ scenario_id: scenario.id, revision: 1, engine_version: ENGINE_VERSION, result: JSON.stringify(evaluateScenario(document)) });
 	return scenario.id;
 }
 

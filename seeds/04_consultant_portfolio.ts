@@ -10,8 +10,6 @@
  */
 import type { Knex } from 'knex';
 import { parseScenario, type Scenario } from '../src/lib/schemas/scenario';
-import { evaluateScenario } from '../src/lib/server/engine/evaluate';
-import { ENGINE_VERSION } from '../src/lib/server/engine/version';
 import { demoUsers, otherWorkspace } from './02_demo_users';
 import { insertScenario, readExamples } from './03_demo_scenarios';
 
@@ -123,19 +121,13 @@ export async function seed(knex: Knex): Promise<void> {
 				})
 				.returning(['id']);
 			const document = baseCaseOf(project, example);
-			const scenarioId = await insertScenario(trx, {
+			await insertScenario(trx, {
 				projectId: row.id,
 				name: document.name,
 				notes: `From the example scenario "${example.name}", resized for ${project.siteName}.`,
 				document,
 				isBaseCase: true,
 				userId
-			});
-			await trx('scenario_results').insert({
-				scenario_id: scenarioId,
-				revision: 1,
-				engine_version: ENGINE_VERSION,
-				result: JSON.stringify(evaluateScenario(document))
 			});
 		}
 	});

@@ -6,6 +6,7 @@ import { DOWNSIDE_CAPEX_FACTOR } from '../../seeds/03_demo_scenarios';
 import { demoProjects } from '../../seeds/01_demo_workspace';
 import { parseScenario, SCHEMA_VERSION } from '../../src/lib/schemas/scenario';
 import { evaluateScenario } from '../../src/lib/server/engine/evaluate';
+import { ENGINE_VERSION } from '../../src/lib/server/engine/version';
 import { listScenariosInProject, getScenarioById, listScenarioRevisions } from '../../src/lib/server/db/scenarios';
 
 describe('demo scenarios seed', () => {
@@ -48,6 +49,17 @@ describe('demo scenarios seed', () => {
 		const baseLcoe = new Decimal(evaluateScenario(base!.document).metrics.lcoeReal!);
 		const downsideLcoe = new Decimal(evaluateScenario(downside!.document).metrics.lcoeReal!);
 		expect(downsideLcoe.greaterThan(baseLcoe)).toBe(true);
+	});
+
+	it('stores each demo scenario’s result for the current engine, as a save through the app would', async () => {
+		const rows = await database.knex('scenarios').leftJoin('scenario_results', function () {
+			this.on('scenario_results.scenario_id', 'scenarios.id').andOn('scenario_results.revision', 'scenarios.revision').andOnVal('scenario_results.engine_version', ENGINE_VERSION);
+		}).select('scenarios.id', 'scenarios.document', 'scenario_results.metrics');
+		expect(rows.length).toBeGreaterThan(0);
+		for (const row of rows) {
+			expect(row.metrics, `stored result of ${row.document.name}`).not.toBeNull();
+			expect(row.metrics.lcoeReal).toBe(evaluateScenario(row.document).metrics.lcoeReal);
+		}
 	});
 
 	it('runs only into an empty scenarios table', async () => {
