@@ -129,9 +129,6 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	response.headers.set('x-content-type-options', 'nosniff');
 	response.headers.set('referrer-policy', 'same-origin');
 	response.headers.set('x-frame-options', 'DENY');
-	// SvelteKit repeats every <link rel="modulepreload"> of the page's head as a Link header (1.3 KB a page);
-	// with no proxy here that turns them into early hints, the head's own tags are the ones the browser uses.
-	response.headers.delete('link');
 	const policy = response.headers.get('content-security-policy');
 	if (policy && isBillingPage(event.url.pathname) && billingSettings().enabled) {
 		response.headers.set('content-security-policy', withFormActionOrigins(policy, billingSettings().pageOrigins));
