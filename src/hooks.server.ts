@@ -12,6 +12,7 @@ import { closeDb } from '$lib/server/db/knex';
 import { DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from '$lib/server/db/errors';
 import { devInboxEnabled } from '$lib/server/mail/dev-inbox';
 import { afterResponse } from '$lib/server/after-response';
+import { GUEST_COOKIE, deleteGuestCookie, validateGuestSession } from '$lib/server/rooms/guest-sessions';
 import { isBillingPage, withFormActionOrigins } from '$lib/server/csp-form-action';
 
 /** Stops the start when a setting is missing or malformed, naming each one. */
@@ -30,6 +31,10 @@ export const init: ServerInit = () => {
 		void Promise.allSettled([closeComputePool(), closeDb()]);
 	});
 };
+
+function isRoomsPath(path: string) {
+	return path === '/rooms' || path.startsWith('/rooms/');
+}
 
 function isApiPath(path: string) {
 	return path === '/api/v1' || path.startsWith('/api/v1/');
@@ -80,6 +85,17 @@ const authenticate: Handle = async ({ event, resolve }) => {
 		const call = { method: event.request.method, path: event.url.pathname, status: response.status, ip: event.getClientAddress() };
 		void afterResponse('Recording an API token call', () => recordTokenRequest(outcome.principal, call));
 		return response;
+	}
+
+	// Under /rooms only the room guest's own cookie counts: investors are never workspace members.
+	if (isRoomsPath(event.url.pathname)) {
+		const guestToken = event.cookies.get(GUEST_COOKIE);
+		if (guestToken) {
+			const validated = await validateGuestSession(guestToken);
+			if (validated) event.locals.principal = { kind: 'guest', guest: { id: validated.guest.id, email: validated.guest.email, name: validated.guest.name }, session: validated.session };
+			else deleteGuestCookie(event.cookies, cookiesAreSecure(event.url));
+		}
+		return resolve(event);
 	}
 
 	const token = event.cookies.get(SESSION_COOKIE);

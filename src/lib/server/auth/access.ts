@@ -14,9 +14,9 @@
  */
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
 import { listWorkspacesForUser, type WorkspaceMembership } from '../db/memberships';
-import { getProjectById, getProjectOfScenario, getProjectOfUpload, type ProjectRow } from '../db/projects';
+import { getProjectById, getProjectOfRoom, getProjectOfScenario, getProjectOfUpload, type ProjectRow } from '../db/projects';
 import { roleAtLeast, type WorkspaceRole } from './roles';
-import type { ApiTokenPrincipal, MemberPrincipal, Principal } from './principal';
+import type { ApiTokenPrincipal, GuestPrincipal, MemberPrincipal, Principal } from './principal';
 import type { SessionUser } from './session';
 
 type AccessEvent = Pick<RequestEvent, 'locals' | 'url'> & Partial<Pick<RequestEvent, 'request'>>;
@@ -31,8 +31,10 @@ function isApiRequest(event: Pick<RequestEvent, 'url'>) {
 	return event.url.pathname.startsWith('/api/');
 }
 
-export function principalOf(event: Pick<RequestEvent, 'locals'>): Principal {
-	return event.locals.principal ?? { kind: 'anonymous' };
+/** Who is asking, as the workspace side sees it: a room guest is nobody here (guests have their own door, src/lib/server/rooms/guest-access.ts). */
+export function principalOf(event: Pick<RequestEvent, 'locals'>): Exclude<Principal, GuestPrincipal> {
+	const principal = event.locals.principal ?? { kind: 'anonymous' };
+	return principal.kind === 'guest' ? { kind: 'anonymous' } : principal;
 }
 
 function refuseAnonymous(event: AccessEvent): never {
@@ -74,13 +76,18 @@ export interface UploadAccess extends ProjectAccess {
 	uploadId: string;
 }
 
+export interface RoomAccess extends ProjectAccess {
+	roomId: string;
+}
+
 type Place = { workspaceId?: string; projectId?: string };
 
 const hidden = {
 	workspace: 'No such workspace, or it is not yours.',
 	project: 'No such project, or it is not yours.',
 	scenario: 'No such scenario, or it is not yours.',
-	upload: 'No such upload, or it is not yours.'
+	upload: 'No such upload, or it is not yours.',
+	room: 'No such data room, or it is not yours.'
 } as const;
 
 function effectiveRole(principal: MemberPrincipal | ApiTokenPrincipal, role: WorkspaceRole): WorkspaceRole {
@@ -170,13 +177,14 @@ async function projectAccess(event: AccessEvent, project: ProjectRow | undefined
  */
 export function authorize(event: AccessEvent, target: { scenarioId: string } & Place, minimum: WorkspaceRole): Promise<ScenarioAccess>;
 export function authorize(event: AccessEvent, target: { uploadId: string } & Place, minimum: WorkspaceRole): Promise<UploadAccess>;
+export function authorize(event: AccessEvent, target: { roomId: string } & Place, minimum: WorkspaceRole): Promise<RoomAccess>;
 export function authorize(event: AccessEvent, target: { projectId: string; workspaceId?: string }, minimum: WorkspaceRole): Promise<ProjectAccess>;
 export function authorize(event: AccessEvent, target: { workspaceId: string }, minimum: WorkspaceRole): Promise<WorkspaceAccess>;
 export async function authorize(
 	event: AccessEvent,
-	target: { workspaceId?: string; projectId?: string; scenarioId?: string; uploadId?: string },
+	target: { workspaceId?: string; projectId?: string; scenarioId?: string; uploadId?: string; roomId?: string },
 	minimum: WorkspaceRole
-): Promise<WorkspaceAccess | ProjectAccess | ScenarioAccess | UploadAccess> {
+): Promise<WorkspaceAccess | ProjectAccess | ScenarioAccess | UploadAccess | RoomAccess> {
 	if (principalOf(event).kind === 'anonymous') refuseAnonymous(event);
 	const place = { workspaceId: target.workspaceId, projectId: target.projectId };
 	if (target.scenarioId !== undefined) {
@@ -190,6 +198,12 @@ export async function authorize(
 		const project = isUuid(uploadId) ? await projectOf(event, `upload:${uploadId}`, () => getProjectOfUpload(uploadId)) : undefined;
 		const access = await projectAccess(event, project, place, minimum, hidden.upload);
 		return { ...access, uploadId: target.uploadId };
+	}
+	if (target.roomId !== undefined) {
+		const roomId = target.roomId;
+		const project = isUuid(roomId) ? await projectOf(event, `room:${roomId}`, () => getProjectOfRoom(roomId)) : undefined;
+		const access = await projectAccess(event, project, place, minimum, hidden.room);
+		return { ...access, roomId };
 	}
 	if (target.projectId !== undefined) {
 		const projectId = target.projectId;

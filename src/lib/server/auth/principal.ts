@@ -20,10 +20,17 @@ export interface MemberPrincipal {
 	memberships?: SessionMembership[];
 }
 
+/** An investor invited into data rooms: never a workspace member, and only under /rooms. */
+export interface GuestPrincipal {
+	kind: 'guest';
+	guest: { id: string; email: string; name: string };
+	session: { id: string; expiresAt: Date };
+}
+
 export interface AnonymousPrincipal {
 	kind: 'anonymous';
 }
 
-export type Principal = AnonymousPrincipal | MemberPrincipal | ApiTokenPrincipal;
+export type Principal = AnonymousPrincipal | MemberPrincipal | ApiTokenPrincipal | GuestPrincipal;
 
 export const anonymous: AnonymousPrincipal = { kind: 'anonymous' };

@@ -78,6 +78,15 @@ export async function getProjectOfScenario(scenarioId: string, knex: Knex = db()
 		.first();
 }
 
+/** The project a data room belongs to, in one query. */
+export async function getProjectOfRoom(roomId: string, knex: Knex = db()): Promise<ProjectRow | undefined> {
+	return knex('projects')
+		.join('data_rooms', 'data_rooms.project_id', 'projects.id')
+		.select(projectColumns.map((c) => `projects.${c}`))
+		.where('data_rooms.id', roomId)
+		.first();
+}
+
 /** The project an upload belongs to, in one query. */
 export async function getProjectOfUpload(uploadId: string, knex: Knex = db()): Promise<ProjectRow | undefined> {
 	return knex('projects')

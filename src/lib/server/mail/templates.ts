@@ -87,3 +87,43 @@ export function existingAccountMessage(input: { name: string; signInUrl: string;
 		'If it was not you, you can ignore this message: your account and password stay as they are.'
 	);
 }
+
+export function roomInvitationMessage(input: { inviterName: string; workspaceName: string; roomName: string; projectName: string; url: string; daysValid: number; accessUntil: Date }): MailContent {
+	return message(
+		`${input.workspaceName} shares a data room with you: ${input.roomName}`,
+		[
+			`${input.inviterName} of ${input.workspaceName} invites you to the data room "${input.roomName}" for the project ${input.projectName} on Tidewright.`,
+			`The room holds the published figures, their method notes and documents. Your access runs until ${input.accessUntil.toISOString().slice(0, 10)}; you will be asked to accept the room's confidentiality terms first.`,
+			`The link works once and for ${input.daysValid} days: it signs you in, and asks you to choose a password the first time.`
+		],
+		{ label: 'Open the data room', url: input.url },
+		'You are not a member of their workspace: you see only the rooms you are invited to. If you did not expect this, ignore this mail.'
+	);
+}
+
+export function roomSignInLinkMessage(input: { url: string; minutesValid: number }): MailContent {
+	return message(
+		'Your sign-in link for Tidewright data rooms',
+		['Someone (probably you) asked for a link to sign in to the data rooms shared with this address.', `The link works once and for ${input.minutesValid} minutes.`],
+		{ label: 'Sign in', url: input.url },
+		'If you did not ask for it, ignore this mail: nothing changes.'
+	);
+}
+
+export function roomQuestionMessage(input: { roomName: string; askedBy: string; question: string; url: string }): MailContent {
+	return message(
+		`A question in the data room ${input.roomName}`,
+		[`${input.askedBy} asked:`, input.question],
+		{ label: 'Answer it', url: input.url },
+		'You receive this as an owner or analyst of the workspace that shares the room.'
+	);
+}
+
+export function roomAnswerMessage(input: { roomName: string; question: string; answer: string; url: string }): MailContent {
+	return message(
+		`Your question in ${input.roomName} has an answer`,
+		['You asked:', input.question, 'The answer:', input.answer],
+		{ label: 'Open the data room', url: input.url },
+		'You receive this because you asked the question in this data room.'
+	);
+}

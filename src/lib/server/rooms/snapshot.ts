@@ -1,0 +1,85 @@
+/**
+ * A room version's frozen snapshot: each published scenario's document and
+ * stored result, the engine version, the method notes and cautions as they
+ * were, and the project's description. Stored whole with the version, so
+ * later edits of scenarios, notes or cautions never change what a room shows.
+ */
+import type { EngineResult } from '../engine/evaluate';
+import type { ScenarioDocument } from '../db/scenarios';
+import { ENGINE_VERSION } from '../engine/version';
+import { CAUTIONS } from '../../cautions';
+import { listMethodNotes, getMethodNote } from '../methods/notes';
+import { getScenariosInProject } from '../db/scenarios';
+import { resultOfSavedScenario } from '../workbench/stored-results';
+import type { ProjectRow } from '../db/projects';
+
+export const SNAPSHOT_FORMAT = 1;
+
+export interface SnapshotScenario {
+	id: string;
+	name: string;
+	notes: string;
+	revision: number;
+	isBaseCase: boolean;
+	document: ScenarioDocument;
+	result: EngineResult;
+}
+
+export interface RoomSnapshot {
+	format: typeof SNAPSHOT_FORMAT;
+	engineVersion: string;
+	project: { id: string; name: string; technology: string; siteName: string; siteDescription: string; currency: string };
+	scenarios: SnapshotScenario[];
+	methodNotes: { slug: string; title: string; summary: string; html: string }[];
+	cautions: string[];
+}
+
+export class PublishProblem extends Error {
+	constructor(message: string) {
+		super(message);
+		this.name = 'PublishProblem';
+	}
+}
+
+export const MAX_SCENARIOS_PER_VERSION = 12;
+
+/** Freezes the chosen live scenarios of the project, in the order given, with their stored (or now computed) results. */
+export async function buildSnapshot(project: ProjectRow, scenarioIds: readonly string[]): Promise<RoomSnapshot> {
+	const unique = [...new Set(scenarioIds)];
+	if (unique.length === 0) throw new PublishProblem('Choose at least one scenario to publish.');
+	if (unique.length > MAX_SCENARIOS_PER_VERSION) throw new PublishProblem(`A version holds at most ${MAX_SCENARIOS_PER_VERSION} scenarios.`);
+	const scenarios = await getScenariosInProject(project.id, unique);
+	const live = scenarios.filter((s) => s.archivedAt === null);
+	if (live.length !== unique.length) throw new PublishProblem('Some chosen scenarios are not live scenarios of this project: reload the page and choose again.');
+	const frozen: SnapshotScenario[] = [];
+	for (const scenario of live) {
+		const { result } = await resultOfSavedScenario(scenario, project);
+		frozen.push({
+			id: scenario.id,
+			name: scenario.name,
+			notes: scenario.notes,
+			revision: scenario.revision,
+			isBaseCase: scenario.isBaseCase,
+			document: scenario.document,
+			result
+		});
+	}
+	return {
+		format: SNAPSHOT_FORMAT,
+		engineVersion: ENGINE_VERSION,
+		project: {
+			id: project.id,
+			name: project.name,
+			technology: project.technology,
+			siteName: project.site_name,
+			siteDescription: project.site_description,
+			currency: project.currency
+		},
+		scenarios: frozen,
+		methodNotes: listMethodNotes().map(({ slug }) => {
+			const note = getMethodNote(slug)!;
+			return { slug: note.slug, title: note.title, summary: note.summary, html: note.html };
+		}),
+		cautions: [...CAUTIONS]
+	};
+}
