@@ -1,0 +1,440 @@
+/**
+ * The scenario's assumptions in words, for the summary: each section of the
+ * document as labelled facts and small tables, every number with the unit the
+ * editor shows beside its field (src/lib/workbench/field-units.ts). Shares
+ * the editor keeps as fractions read as per cent here (0.04 -> 4 %), the
+ * one change of form. Figures the engine derived (installed capacity, capex
+ * totals, the debt at COD) come from its result, rounded with decimal.js.
+ */
+import DecimalJs from 'decimal.js';
+import { groupDigits } from '../../metrics/format';
+import { technologyLabels } from '../../technology';
+import { unitOf } from '../../workbench/field-units';
+import type { FieldPath } from '../../workbench/schema-fields';
+import type { Scenario } from '../../schemas/scenario';
+import type { EngineResult } from '../engine/evaluate';
+import type { TableColumn } from './tables';
+
+const Decimal = DecimalJs.clone({ precision: 40, rounding: DecimalJs.ROUND_HALF_EVEN });
+
+export interface Fact {
+	label: string;
+	value: string;
+}
+
+export interface FactTable {
+	title: string;
+	columns: TableColumn[];
+	rows: string[][];
+}
+
+export interface AssumptionSection {
+	title: string;
+	facts: Fact[];
+	tables: FactTable[];
+}
+
+/** The most decimals an input is shown with (inputs are as typed; this only stops float noise). */
+const MAX_PLACES = 6;
+
+/** A number as typed, grouped: 3200000 -> "3,200,000", 0.42 -> "0.42". */
+export function plainNumber(value: DecimalJs.Value): string {
+	const d = new Decimal(value).toDecimalPlaces(MAX_PLACES, Decimal.ROUND_HALF_EVEN);
+	return groupDigits(d, d.decimalPlaces());
+}
+
+function valueAt(document: unknown, path: FieldPath): unknown {
+	let current: unknown = document;
+	for (const key of path) {
+		if (current === null || typeof current !== 'object') return undefined;
+		current = (current as Record<string | number, unknown>)[key];
+	}
+	return current;
+}
+
+/**
+ * A number with the editor's unit: fractions and shares as per cent
+ * ("4 %", "2 %/yr", "1 % of capex", "100 % of inflation"), a symbol unit
+ * ("Cp, –") left to the label, anything else as the editor writes it.
+ */
+export function withUnit(value: number, unit: string): string {
+	if (unit === '' || unit === 'ratio' || /^\S+, –$/.test(unit)) return plainNumber(value);
+	const percent = () => plainNumber(new Decimal(value).times(100));
+	if (unit === 'share') return `${percent()} %`;
+	if (unit.startsWith('share of ')) return `${percent()} % of ${unit.slice('share of '.length)}`;
+	if (unit.startsWith('fraction')) return `${percent()} ${unit.replace(/^fraction/, '%')}`;
+	if (unit === '×') return `${plainNumber(value)}×`;
+	return `${plainNumber(value)} ${unit}`;
+}
+
+/** The document's value at `path` with its editor unit; null when the field is absent. */
+export function fieldText(document: Scenario, path: FieldPath): string | null {
+	const value = valueAt(document, path);
+	if (typeof value !== 'number') return null;
+	return withUnit(value, unitOf(path, document, document.currency));
+}
+
+function money(value: string, currency: string): string {
+	return `${groupDigits(value, 0)} ${currency}`;
+}
+
+function range(values: readonly number[], unit: string): string {
+	if (values.length === 0) return '';
+	const lo = Math.min(...values);
+	const hi = Math.max(...values);
+	return lo === hi ? `${plainNumber(lo)} ${unit}` : `${plainNumber(lo)} to ${plainNumber(hi)} ${unit}`;
+}
+
+function shares(values: readonly number[] | undefined): string {
+	return values ? values.map((v) => `${plainNumber(new Decimal(v).times(100))} %`).join(' / ') : '';
+}
+
+function facts(document: Scenario, entries: [label: string, path: FieldPath][]): Fact[] {
+	return entries.flatMap(([label, path]) => {
+		const value = fieldText(document, path);
+		return value === null ? [] : [{ label, value }];
+	});
+}
+
+const yesNo = (value: boolean) => (value ? 'Yes' : 'No');
+
+// ---------------------------------------------------------------- sections
+
+function siteAndResource(document: Scenario): AssumptionSection {
+	const r = document.resource;
+	const list: Fact[] = [];
+	if (document.site.name) list.push({ label: 'Site name', value: document.site.name });
+	list.push({ label: 'Technology', value: technologyLabels[document.technology] });
+	list.push(...facts(document, [['Hours in a year', ['hoursPerYear']], ['Seawater density', ['site', 'waterDensityKgPerM3']]]));
+	if (document.technology === 'wave') list.push(...facts(document, [['Gravitational acceleration', ['site', 'gravityMPerS2']]]));
+	const occurrences = (basis: 'hours' | 'probability') => (basis === 'hours' ? 'hours in a year' : 'probabilities');
+	const periods = (type: 'energy-period' | 'peak-period') => (type === 'energy-period' ? 'energy periods Te' : 'peak periods Tp, converted with Te/Tp');
+	switch (r.kind) {
+		case 'speed-histogram':
+			list.push({ label: 'Resource given as', value: `Flow speed histogram: ${r.bins.length} bins, ${range(r.bins.map((b) => b.speedMPerS), 'm/s')}` });
+			list.push({ label: 'Occurrences given as', value: occurrences(r.occurrenceBasis) });
+			break;
+		case 'weibull':
+			list.push({ label: 'Resource given as', value: 'Weibull distribution of flow speed' });
+			list.push(...facts(document, [['Scale c', ['resource', 'scaleMPerS']], ['Shape k', ['resource', 'shape']], ['Bin width', ['resource', 'binWidthMPerS']]]));
+			break;
+		case 'rayleigh':
+			list.push({ label: 'Resource given as', value: 'Rayleigh distribution of flow speed' });
+			list.push(...facts(document, [['Mean flow speed', ['resource', 'meanSpeedMPerS']], ['Bin width', ['resource', 'binWidthMPerS']]]));
+			break;
+		case 'sea-state-table':
+			list.push({
+				label: 'Resource given as',
+				value: `Scatter diagram: ${r.states.length} sea states, Hs ${range(r.states.map((s) => s.hsM), 'm')}, periods ${range(r.states.map((s) => s.periodS), 's')}`
+			});
+			list.push({ label: 'Periods given as', value: periods(r.periodType) });
+			if (r.periodType === 'peak-period') list.push(...facts(document, [['Te/Tp', ['resource', 'teOverTp']]]));
+			list.push({ label: 'Occurrences given as', value: occurrences(r.occurrenceBasis) });
+			break;
+		case 'sea-state':
+			list.push({ label: 'Resource given as', value: 'One characteristic sea state all year' });
+			list.push(...facts(document, [['Significant wave height Hs', ['resource', 'hsM']], ['Wave period', ['resource', 'periodS']]]));
+			list.push({ label: 'Period given as', value: periods(r.periodType) });
+			if (r.periodType === 'peak-period') list.push(...facts(document, [['Te/Tp', ['resource', 'teOverTp']]]));
+			break;
+	}
+	return { title: 'Site and resource', facts: list, tables: [] };
+}
+
+function device(document: Scenario, result: EngineResult): AssumptionSection {
+	const d = document.device;
+	const list: Fact[] = [];
+	switch (d.kind) {
+		case 'rotor':
+			list.push({ label: 'Device given as', value: 'Parametric rotor: P = ½ × density × swept area × Cp × efficiency × v³, capped at rated power' });
+			list.push(
+				...facts(document, [
+					['Rotor diameter', ['device', 'rotorDiameterM']],
+					['Swept area', ['device', 'sweptAreaM2']],
+					['Power coefficient Cp', ['device', 'powerCoefficient']],
+					['Drive-train efficiency', ['device', 'driveTrainEfficiency']],
+					['Cut-in speed', ['device', 'cutInSpeedMPerS']],
+					['Rated power', ['device', 'ratedPowerKW']],
+					['Cut-out speed', ['device', 'cutOutSpeedMPerS']]
+				])
+			);
+			break;
+		case 'power-curve':
+			list.push({ label: 'Device given as', value: `Measured power curve: ${d.points.length} points, ${range(d.points.map((p) => p.speedMPerS), 'm/s')}` });
+			list.push(...facts(document, [['Rated power', ['device', 'ratedPowerKW']]]));
+			break;
+		case 'power-matrix':
+			list.push({
+				label: 'Device given as',
+				value: `Power matrix: ${d.hsM.length} Hs rows (${range(d.hsM, 'm')}) by ${d.periodS.length} period columns (${range(d.periodS, 's')})`
+			});
+			list.push({ label: 'Periods given as', value: d.periodType === 'energy-period' ? 'energy periods Te' : 'peak periods Tp, converted with Te/Tp' });
+			if (d.periodType === 'peak-period') list.push(...facts(document, [['Te/Tp', ['device', 'teOverTp']]]));
+			list.push({ label: 'Between cells', value: d.lookup === 'bilinear' ? 'interpolated between the four surrounding cells' : 'the nearest cell' });
+			list.push(...facts(document, [['Rated power', ['device', 'ratedPowerKW']]]));
+			break;
+		case 'capture-width':
+			list.push({ label: 'Device given as', value: 'Capture width: P = CWR × width × J, capped at rated power' });
+			list.push(
+				...facts(document, [
+					['Capture width ratio', ['device', 'captureWidthRatio']],
+					['Characteristic width', ['device', 'characteristicWidthM']],
+					['Rated power', ['device', 'ratedPowerKW']]
+				])
+			);
+			break;
+	}
+	list.push({ label: 'Rated power per device (as used)', value: `${groupDigits(result.energy.ratedPowerPerDeviceKW, 0)} kW` });
+	list.push({ label: 'Mean power per device, before losses', value: `${groupDigits(result.energy.meanDevicePowerKW, 1)} kW` });
+	return { title: 'Device', facts: list, tables: [] };
+}
+
+function arrayAndLosses(document: Scenario, result: EngineResult): AssumptionSection {
+	const e = result.energy;
+	const list: Fact[] = [
+		...facts(document, [['Devices in the array', ['array', 'deviceCount']]]),
+		{ label: 'Installed capacity', value: `${groupDigits(new Decimal(e.installedCapacityKW).dividedBy(1000), 2)} MW` },
+		...facts(document, [
+			['Array (wake and blockage) loss', ['array', 'arrayLoss']],
+			['Availability', ['array', 'availability']],
+			['Electrical loss', ['array', 'electricalLoss']],
+			['Other losses', ['array', 'otherLoss']],
+			['Degradation per year', ['array', 'degradationPerYear']]
+		]),
+		{ label: 'Gross annual energy, before losses', value: `${groupDigits(e.grossAepMWh, 0)} MWh/yr` },
+		{ label: 'Share of gross energy delivered', value: `${groupDigits(new Decimal(e.lossFactor).times(100), 1)} %` },
+		{ label: 'Combined yield uncertainty', value: `${groupDigits(new Decimal(e.combinedSigma).times(100), 1)} % of P50` }
+	];
+	const tables: FactTable[] = [];
+	const components = document.uncertainty.components;
+	if (components.length > 0) {
+		tables.push({
+			title: 'Yield uncertainties (independent, combined as the root sum of squares)',
+			columns: [{ header: 'Uncertainty', wrap: true }, { header: 'One standard deviation', unit: '% of P50', align: 'right' }],
+			rows: components.map((c) => [c.name, plainNumber(new Decimal(c.sigma).times(100))])
+		});
+	}
+	tables.push({
+		title: 'Net annual energy at each exceedance level (first operating year)',
+		columns: [{ header: 'Level' }, { header: 'Net energy', unit: 'MWh/yr', align: 'right' }, { header: 'Share of P50', unit: '%', align: 'right' }],
+		rows: [
+			['P50', groupDigits(e.netAepMWh, 0), '100.0'],
+			...e.exceedances.map((x) => [x.label, groupDigits(x.aepMWh, 0), groupDigits(new Decimal(x.shareOfP50).times(100), 1)])
+		]
+	});
+	return { title: 'Array, losses and uncertainty', facts: list, tables };
+}
+
+function timeline(document: Scenario): AssumptionSection {
+	return {
+		title: 'Timeline',
+		facts: [
+			...facts(document, [
+				['Construction', ['timeline', 'constructionYears']],
+				['Operating life', ['timeline', 'operatingYears']]
+			]),
+			{ label: 'Time convention', value: 't = 0 is the commercial operation date (COD); operating year k ends at t = k' }
+		],
+		tables: []
+	};
+}
+
+const capexBasisWords: Record<Scenario['capex']['lines'][number]['basis'], string> = {
+	'lump-sum': 'For the project',
+	'per-kW': 'Per kW installed',
+	'per-device': 'Per device'
+};
+
+function capitalCosts(document: Scenario, result: EngineResult): AssumptionSection {
+	const currency = document.currency;
+	const years = document.timeline.constructionYears;
+	const defaultPhasing = document.capex.phasing ? shares(document.capex.phasing) : `even over ${years} year${years === 1 ? '' : 's'}`;
+	const rows = document.capex.lines.map((line, i) => [
+		line.name,
+		capexBasisWords[line.basis],
+		fieldText(document, ['capex', 'lines', i, 'amount']) ?? '',
+		line.phasing ? shares(line.phasing) : 'default',
+		groupDigits(result.costs.capexLines[i]?.realTotal ?? '0', 0)
+	]);
+	return {
+		title: 'Capital costs',
+		facts: [
+			...facts(document, [['Contingency', ['capex', 'contingency']]]),
+			{ label: 'Default phasing over the construction years', value: defaultPhasing },
+			{ label: 'Capex total, with contingency, before grants', value: `${money(result.costs.capexRealTotal, currency)} (real, COD-year money)` }
+		],
+		tables: [
+			{
+				title: 'Capex lines (real, COD-year money)',
+				columns: [
+					{ header: 'Line', wrap: true },
+					{ header: 'Basis' },
+					{ header: 'Amount', align: 'right' },
+					{ header: 'Phasing', unit: 'by construction year' },
+					{ header: 'Total with contingency', unit: `${currency}, real`, align: 'right' }
+				],
+				rows
+			}
+		]
+	};
+}
+
+function opexBasis(line: Scenario['opex']['lines'][number]): string {
+	switch (line.basis) {
+		case 'fixed-per-year':
+			return 'Fixed per year';
+		case 'per-kW-year':
+			return 'Per kW installed per year';
+		case 'per-MWh':
+			return 'Per MWh delivered';
+		case 'percent-of-capex':
+			return 'Share of capex per year';
+		case 'percent-of-revenue':
+			return 'Share of revenue';
+		case 'periodic-overhaul':
+			return `Overhaul every ${line.intervalYears} year${line.intervalYears === 1 ? '' : 's'}${line.perDevice ? ', per device' : ''}`;
+	}
+}
+
+function decommissioningText(document: Scenario): string {
+	const d = document.decommissioning;
+	const value = fieldText(document, ['decommissioning', d.basis === 'percent-of-capex' ? 'fraction' : 'amount']) ?? '';
+	return d.basis === 'lump-sum' ? `${value} for the project` : value;
+}
+
+function operatingCosts(document: Scenario, result: EngineResult): AssumptionSection {
+	const rows = document.opex.lines.map((line, i) => [
+		line.name,
+		opexBasis(line),
+		fieldText(document, ['opex', 'lines', i, 'amount' in line ? 'amount' : 'fraction']) ?? '',
+		'escalation' in line ? (fieldText(document, ['opex', 'lines', i, 'escalation']) ?? '') : 'with revenue'
+	]);
+	return {
+		title: 'Operating costs and decommissioning',
+		facts: [
+			{ label: 'Decommissioning, at the end of the final operating year', value: decommissioningText(document) },
+			{ label: 'Decommissioning as paid', value: `${money(result.costs.decommissioningNominal, document.currency)} (nominal)` }
+		],
+		tables:
+			rows.length === 0
+				? []
+				: [
+						{
+							title: 'Opex lines (real, COD-year money, escalated with inflation plus their own escalation)',
+							columns: [{ header: 'Line', wrap: true }, { header: 'Basis', wrap: true }, { header: 'Amount', align: 'right' }, { header: 'Real escalation', align: 'right' }],
+							rows
+						}
+					]
+	};
+}
+
+function revenue(document: Scenario, result: EngineResult): AssumptionSection {
+	const grants = document.revenue.grants;
+	return {
+		title: 'Revenue and grants',
+		facts: [
+			...facts(document, [
+				['Tariff (real, COD-year prices)', ['revenue', 'tariffPerMWh']],
+				['Support period', ['revenue', 'supportYears']],
+				['Tariff indexation', ['revenue', 'tariffIndexation']],
+				['Merchant price after support (real)', ['revenue', 'merchantPricePerMWh']],
+				['Merchant price escalation', ['revenue', 'merchantEscalation']]
+			]),
+			...(grants.length > 0 ? [{ label: 'Grants in total (real)', value: money(result.costs.grantsRealTotal, document.currency) }] : [])
+		],
+		tables:
+			grants.length === 0
+				? []
+				: [
+						{
+							title: 'Capital grants (received with capex spend, not taxed)',
+							columns: [{ header: 'Grant', wrap: true }, { header: 'Basis' }, { header: 'Amount', align: 'right' }],
+							rows: grants.map((g, i) => [
+								g.name,
+								g.basis === 'lump-sum' ? 'Amount' : 'Share of capex',
+								fieldText(document, ['revenue', 'grants', i, g.basis === 'lump-sum' ? 'amount' : 'fraction']) ?? ''
+							])
+						}
+					]
+	};
+}
+
+const repaymentWords = { annuity: 'Annuity (level payments)', 'straight-line': 'Straight line (level principal)', sculpted: 'Sculpted to CFADS' } as const;
+const sizedByWords = { gearing: 'gearing', 'target-dscr': 'the target DSCR', 'gearing-cap': 'the gearing cap' } as const;
+
+function financeAndDebt(document: Scenario, result: EngineResult): AssumptionSection {
+	const debt = document.finance.debt;
+	const list: Fact[] = [
+		...facts(document, [
+			['Inflation', ['finance', 'inflation']],
+			['Real discount rate', ['finance', 'realDiscountRate']]
+		]),
+		{ label: 'Nominal discount rate (Fisher)', value: `${groupDigits(new Decimal(result.rates.nominalDiscountRate).times(100), 2)} %/yr` }
+	];
+	if (debt.sizing === 'none') {
+		list.push({ label: 'Senior debt', value: 'None: the project is funded by equity' });
+		return { title: 'Finance and debt', facts: list, tables: [] };
+	}
+	list.push({ label: 'Senior debt', value: debt.sizing === 'gearing' ? 'Sized by gearing' : 'Sized by a target DSCR, within a gearing cap' });
+	const p = (key: string): FieldPath => ['finance', 'debt', key];
+	list.push(
+		...facts(
+			document,
+			debt.sizing === 'gearing'
+				? [['Gearing', p('gearing')]]
+				: [
+						['Target DSCR', p('targetDscr')],
+						['Gearing cap', p('maxGearing')]
+					]
+		),
+		...facts(document, [
+			['Interest rate', p('interestRate')],
+			['Tenor from COD', p('tenorYears')],
+			['Grace (interest only)', p('graceYears')],
+			['Upfront fee', p('upfrontFee')]
+		]),
+		{ label: 'Repayment', value: repaymentWords[debt.repayment] },
+		{ label: 'Interest during construction', value: debt.capitalizeInterestDuringConstruction ? 'Rolled into the loan' : 'Paid by equity' }
+	);
+	const f = result.financing;
+	if (f) {
+		list.push(
+			{ label: 'Debt at COD', value: `${money(f.debtAmount, document.currency)}, set by ${sizedByWords[f.sizedBy]}` },
+			{ label: 'Share of construction spend funded by debt', value: `${groupDigits(new Decimal(f.gearing).times(100), 1)} %` },
+			{ label: 'Interest during construction', value: money(f.interestDuringConstruction, document.currency) },
+			{ label: 'Upfront fee paid', value: money(f.upfrontFee, document.currency) }
+		);
+	}
+	return { title: 'Finance and debt', facts: list, tables: [] };
+}
+
+function tax(document: Scenario): AssumptionSection {
+	const dep = document.finance.depreciation;
+	const life = fieldText(document, ['finance', 'depreciation', 'lifeYears']) ?? `the operating life, ${document.timeline.operatingYears} years`;
+	return {
+		title: 'Tax',
+		facts: [
+			...facts(document, [['Tax rate', ['finance', 'taxRate']]]),
+			{ label: 'Depreciation', value: dep.method === 'straight-line' ? 'Straight line' : 'Declining balance, switching to straight line when that is larger' },
+			{ label: 'Depreciation life', value: life },
+			...(dep.method === 'declining-balance' ? facts(document, [['Declining-balance factor', ['finance', 'depreciation', 'decliningBalanceFactor']]]) : []),
+			{ label: 'Carry tax losses forward', value: yesNo(document.finance.taxLossCarryForward) }
+		],
+		tables: []
+	};
+}
+
+/** Every section of the assumptions, in the editor's order. */
+export function assumptionSections(document: Scenario, result: EngineResult): AssumptionSection[] {
+	return [
+		siteAndResource(document),
+		device(document, result),
+		arrayAndLosses(document, result),
+		timeline(document),
+		capitalCosts(document, result),
+		operatingCosts(document, result),
+		revenue(document, result),
+		financeAndDebt(document, result),
+		tax(document)
+	];
+}

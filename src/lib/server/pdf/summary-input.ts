@@ -1,0 +1,65 @@
+/**
+ * What a caller of the PDF summary gathers on the request thread: the method
+ * notes it prints, the team's copy of a saved scenario, and the file name.
+ * The data rooms build their investors' copies from the same pieces, with
+ * their own edition label and a stamp.
+ */
+import { CAUTIONS } from '../../cautions';
+import { METHOD_NOTES } from '../../methods';
+import type { Scenario } from '../../schemas/scenario';
+import type { Technology } from '../../technology';
+import type { ProjectRow } from '../db/projects';
+import type { EngineResult } from '../engine/evaluate';
+import type { TornadoResult } from '../engine/sensitivity';
+import { getMethodNoteSource } from '../methods/notes';
+import { fileStem } from '../workbench/export';
+import type { ScenarioSummaryInput } from './summary';
+
+/**
+ * The notes a summary prints, in reading order: every note but the power
+ * note of the other kind of device, and the sensitivity note only beside a tornado.
+ */
+export function summaryNoteSlugs(technology: Technology, withTornado: boolean): string[] {
+	const otherPower = technology === 'wave' ? 'current-power' : 'wave-power';
+	return METHOD_NOTES.map((n) => n.slug as string).filter((slug) => slug !== otherPower && (withTornado || slug !== 'sensitivity'));
+}
+
+export function summaryMethodNotes(technology: Technology, withTornado: boolean): ScenarioSummaryInput['methodNotes'] {
+	return summaryNoteSlugs(technology, withTornado).flatMap((slug) => {
+		const note = getMethodNoteSource(slug);
+		return note ? [note] : [];
+	});
+}
+
+export const TEAM_EDITION_LABEL = 'Team copy';
+
+export interface TeamCopySource {
+	project: Pick<ProjectRow, 'name' | 'technology' | 'site_name' | 'site_description' | 'currency'>;
+	scenario: { name: string; revision: number; notes: string };
+	document: Scenario;
+	result: EngineResult;
+	engineVersion: string;
+	tornado: TornadoResult | null;
+	date: Date;
+}
+
+/** The team's copy of a saved scenario's summary: no stamp, the cautions the exports carry. */
+export function teamCopyInput(source: TeamCopySource): ScenarioSummaryInput {
+	const { project } = source;
+	return {
+		project: { name: project.name, technology: project.technology, siteName: project.site_name, siteDescription: project.site_description, currency: project.currency },
+		scenario: source.scenario,
+		document: source.document,
+		result: source.result,
+		engineVersion: source.engineVersion,
+		tornado: source.tornado,
+		methodNotes: summaryMethodNotes(project.technology, source.tornado !== null),
+		cautions: CAUTIONS,
+		edition: { label: TEAM_EDITION_LABEL, date: source.date }
+	};
+}
+
+/** "kestle-narrows-base-case-r3-summary.pdf": safe characters only. */
+export function summaryFileName(scenarioName: string, revision: number): string {
+	return `${fileStem(scenarioName)}-r${revision}-summary.pdf`;
+}

@@ -1,0 +1,171 @@
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { CAUTIONS } from '../../cautions';
+import { METRIC_LIST } from '../../metrics/catalogue';
+import { formatMetric } from '../../metrics/format';
+import { parseScenario, type Scenario } from '../../schemas/scenario';
+import { evaluateScenario } from '../engine/evaluate';
+import { defaultDrivers, tornado } from '../engine/sensitivity';
+import { CHAPTERS, renderScenarioSummaryPdf, type ScenarioSummaryInput } from './summary';
+import { summaryMethodNotes } from './summary-input';
+
+// The PDF is read back with poppler's pdftotext and pdfimages (Debian's poppler-utils), as a reader's tools would.
+const EXAMPLES = ['tidal-stream-kestle-narrows', 'ocean-current-mornstrand', 'wave-orrin-bank'] as const;
+const STAMP = { email: 'ines.marlowe@corvane.example', at: new Date('2026-03-14T09:05:00Z') };
+/** The unit line under the cash-flow table's first header: printed once in each header row, nowhere else. */
+const CASH_FLOW_HEADER = 't, 0 = COD';
+
+let folder: string;
+
+function example(name: string, operatingYears?: number): Scenario {
+	const raw = JSON.parse(readFileSync(`examples/${name}.json`, 'utf8'));
+	if (operatingYears !== undefined) raw.timeline.operatingYears = operatingYears;
+	const parsed = parseScenario(raw);
+	if (!parsed.ok) throw new Error(`examples/${name}.json should parse: ${JSON.stringify(parsed.issues)}`);
+	return parsed.scenario;
+}
+
+function inputFor(document: Scenario, options: { stamp?: boolean; tornado?: boolean } = {}): ScenarioSummaryInput {
+	const result = evaluateScenario(document);
+	const withTornado = options.tornado ?? true;
+	return {
+		project: { name: `Halvard Marine Energy: ${document.site.name}`, technology: document.technology, siteName: document.site.name ?? '', siteDescription: 'An invented channel between two invented headlands.', currency: document.currency },
+		scenario: { name: document.name, revision: 4, notes: 'Lender base case.' },
+		document,
+		result,
+		engineVersion: '1',
+		tornado: withTornado ? tornado(document, defaultDrivers(document), 'lcoeReal') : null,
+		methodNotes: summaryMethodNotes(document.technology, withTornado),
+		cautions: CAUTIONS,
+		edition: { label: 'Data room Kestle Narrows, version 3', date: new Date('2026-03-14T09:00:00Z') },
+		stamp: options.stamp === false ? undefined : STAMP
+	};
+}
+
+interface ReadBack {
+	pages: string[];
+	/** Each page's text with runs of white space as one space (lines wrap anywhere). */
+	flat: string[];
+	imageCount: number;
+}
+
+let counter = 0;
+async function renderAndRead(input: ScenarioSummaryInput): Promise<ReadBack> {
+	const pdf = await renderScenarioSummaryPdf(input);
+	const file = join(folder, `summary-${++counter}.pdf`);
+	writeFileSync(file, pdf);
+	const text = execFileSync('pdftotext', ['-enc', 'UTF-8', file, '-'], { encoding: 'utf8' });
+	// pdftotext ends every page with a form feed.
+	const pages = text.split('\f').slice(0, -1);
+	const images = execFileSync('pdfimages', ['-list', file], { encoding: 'utf8' }).trim().split('\n').slice(2);
+	return { pages, flat: pages.map((p) => p.replace(/\s+/g, ' ')), imageCount: images.filter((line) => line.trim() !== '').length };
+}
+
+const occurrences = (text: string, part: string) => text.split(part).length - 1;
+
+beforeAll(() => {
+	folder = mkdtempSync(join(tmpdir(), 'tidewright-pdf-'));
+});
+afterAll(() => rmSync(folder, { recursive: true, force: true }));
+
+describe('renderScenarioSummaryPdf', () => {
+	for (const name of EXAMPLES) {
+		describe(name, () => {
+			let input: ScenarioSummaryInput;
+			let read: ReadBack;
+			beforeAll(async () => {
+				input = inputFor(example(name));
+				read = await renderAndRead(input);
+			});
+
+			it('has a cover and more pages after it', () => {
+				expect(read.pages.length).toBeGreaterThan(1);
+				expect(read.flat[0]).toContain(input.project.name);
+				expect(read.flat[0]).toContain(`${input.scenario.name}, revision 4`);
+				expect(read.flat[0]).toContain('Data room Kestle Narrows, version 3');
+				expect(read.flat[0]).toContain('14 March 2026');
+			});
+
+			it("prints every catalogue metric's label and value exactly as the app formats them", () => {
+				const metricsPage = read.flat.find((page) => page.includes(CHAPTERS.metrics))!;
+				for (const metric of METRIC_LIST) {
+					expect(metricsPage, metric.key).toContain(metric.label);
+					expect(metricsPage, metric.key).toContain(formatMetric(metric.key, input.result.metrics[metric.key]));
+				}
+			});
+
+			it('repeats the cash-flow header once on every page of the table and lists every year', () => {
+				const tablePages = read.flat.filter((page) => page.includes(CHAPTERS.cashFlow));
+				expect(tablePages.length).toBeGreaterThan(0);
+				for (const page of tablePages) expect(occurrences(page, CASH_FLOW_HEADER)).toBe(1);
+				expect(occurrences(read.flat.join(' '), CASH_FLOW_HEADER)).toBe(tablePages.length);
+				expect(occurrences(tablePages.join(' '), ' build ')).toBe(input.document.timeline.constructionYears);
+			});
+
+			it('carries the cautions, the page count and the stamp on every page', () => {
+				read.flat.forEach((page, i) => {
+					for (const caution of CAUTIONS) expect(page, `page ${i + 1}`).toContain(caution);
+					expect(page, `page ${i + 1}`).toContain(`Page ${i + 1} of ${read.pages.length}`);
+					expect(page, `page ${i + 1}`).toContain(`Prepared for ${STAMP.email} on 2026-03-14 09:05 UTC`);
+				});
+			});
+
+			it('puts the project and scenario in the header of every page after the cover', () => {
+				read.flat.slice(1).forEach((page, i) => expect(page, `page ${i + 2}`).toContain(input.project.name));
+			});
+
+			it('draws its charts as vectors: the file holds no picture', () => {
+				expect(read.flat.join(' ')).toContain('Gross array energy');
+				expect(read.flat.join(' ')).toContain('Tornado: LCOE, real');
+				expect(read.imageCount).toBe(0);
+			});
+
+			it('prints each method note with its sources', () => {
+				const notes = read.flat.slice(read.flat.findIndex((page) => page.includes(CHAPTERS.notes))).join(' ');
+				for (const note of input.methodNotes) expect(notes, note.slug).toContain(note.title);
+				// Every note ends with its "Sources" (or "Source") section.
+				expect(occurrences(notes, 'Source')).toBeGreaterThanOrEqual(input.methodNotes.length);
+			});
+		});
+	}
+
+	describe('a 30-year case', () => {
+		let read: ReadBack;
+		beforeAll(async () => {
+			read = await renderAndRead(inputFor(example('tidal-stream-kestle-narrows', 30)));
+		});
+
+		it('runs the cash-flow table over more than one page, the header repeated on each', () => {
+			const tablePages = read.flat.filter((page) => page.includes(CHAPTERS.cashFlow));
+			expect(tablePages.length).toBeGreaterThan(1);
+			expect(tablePages.slice(1).every((page) => page.includes(`${CHAPTERS.cashFlow} (continued)`))).toBe(true);
+			for (const page of tablePages) expect(occurrences(page, CASH_FLOW_HEADER)).toBe(1);
+		});
+	});
+
+	describe('a team copy', () => {
+		let read: ReadBack;
+		beforeAll(async () => {
+			read = await renderAndRead({ ...inputFor(example('wave-orrin-bank'), { stamp: false, tornado: false }), edition: { label: 'Team copy', date: new Date('2026-03-14T09:00:00Z') } });
+		});
+
+		it('stamps no page and names no investor', () => {
+			expect(read.flat.join(' ')).not.toContain('Prepared for');
+			expect(read.flat.join(' ')).not.toContain(STAMP.email);
+		});
+
+		it('still carries the cautions and the edition on every page', () => {
+			read.flat.forEach((page, i) => {
+				for (const caution of CAUTIONS) expect(page, `page ${i + 1}`).toContain(caution);
+				expect(page).toContain(`Team copy · Page ${i + 1} of ${read.pages.length}`);
+			});
+		});
+
+		it('leaves the tornado out when none is given', () => {
+			expect(read.flat.join(' ')).not.toContain('Tornado:');
+		});
+	});
+});
