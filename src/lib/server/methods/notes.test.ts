@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { METHOD_NOTES } from '../../methods';
 import { METRIC_LIST } from '../../metrics/catalogue';
-import { getMethodNote, listMethodNotes } from './notes';
+import { getMethodNote, getMethodNoteSource, listMethodNotes } from './notes';
 
 describe('the bundled method notes', () => {
 	it('hold a note for every slug of the catalogue, in its order', () => {
@@ -23,5 +23,13 @@ describe('the bundled method notes', () => {
 		for (const { slug } of listMethodNotes()) {
 			expect(getMethodNote(slug)!.html, slug).toMatch(/<h2>Sources?<\/h2>/);
 		}
+	});
+
+	it('give each note its markdown as written, for documents that print it', () => {
+		const source = getMethodNoteSource('lcoe');
+		expect(source?.title).toBe(getMethodNote('lcoe')!.title);
+		expect(source?.markdown.startsWith('# Levelised cost of energy')).toBe(true);
+		expect(source?.markdown).toMatch(/## Sources/);
+		expect(getMethodNoteSource('no-such-note')).toBeUndefined();
 	});
 });

@@ -39,3 +39,10 @@ export function listMethodNotes(): Omit<ParsedNote, 'html'>[] {
 export function getMethodNote(slug: string): ParsedNote | undefined {
 	return allNotes().find((note) => note.slug === slug);
 }
+
+/** A note's markdown as written (its "# " title line included), for documents that print the notes themselves (the PDF summary). */
+export function getMethodNoteSource(slug: string): { slug: string; title: string; markdown: string } | undefined {
+	const note = getMethodNote(slug);
+	const markdown = Object.entries(files).find(([path]) => slugOfPath(path) === slug)?.[1];
+	return note && markdown !== undefined ? { slug, title: note.title, markdown } : undefined;
+}
