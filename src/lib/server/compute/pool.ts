@@ -1,7 +1,8 @@
 /**
- * The compute pool: worker threads for the engine, the upload parsers and the
- * export builder, so a long calculation or a 20 MB file never holds up the
- * request thread, and with it every other request (/api/v1/health included).
+ * The compute pool: worker threads for the engine, the upload parsers, the
+ * export builder and the PDF summary, so a long calculation or a 20 MB file
+ * never holds up the request thread, and with it every other request
+ * (/api/v1/health included).
  *
  * Each task has a time limit and waits in a bounded queue; past either, the
  * caller gets a 503 in words rather than a request that hangs. An engine
@@ -19,6 +20,7 @@ import type { DriverId, DriverRange, TornadoResult } from '../engine/sensitivity
 import type { UploadResult } from '../uploads';
 import type { CsvTableName, ExportFile, ExportFormat } from '../workbench/export';
 import type { ExportContext } from '../workbench/export-tables';
+import type { ScenarioSummaryInput } from '../pdf/summary';
 import type { MetricKey } from '../../metrics/catalogue';
 import type { Scenario } from '../../schemas/scenario';
 import type { UploadKind } from '../../schemas/workbench';
@@ -167,4 +169,9 @@ export async function parseUploadOnPool(kind: UploadKind, bytes: Uint8Array): Pr
 
 export async function buildExportOnPool(result: EngineResult, context: ExportContext, format: ExportFormat, table: CsvTableName): Promise<ExportFile> {
 	return (await computePool()).run('buildExport', { result, context, format, table });
+}
+
+/** The PDF summary's bytes, drawn on a worker thread (pdfkit works synchronously and would hold up the request thread for its whole run). */
+export async function renderSummaryPdfOnPool(summary: ScenarioSummaryInput): Promise<Uint8Array<ArrayBuffer>> {
+	return (await computePool()).run('summaryPdf', { summary });
 }

@@ -1,6 +1,7 @@
 /**
  * The work the compute pool (./pool.ts) runs on its worker threads: the
- * engine, the upload parsers and the export builder, each a named task.
+ * engine, the upload parsers, the export builder and the PDF summary, each
+ * a named task.
  * Everything that crosses the thread boundary is plain data (the engine's
  * public results carry decimals as strings).
  *
@@ -17,6 +18,7 @@ import { spider as spiderOf, tornado as tornadoOf, type DriverId, type DriverRan
 import { UPLOAD_KINDS, type UploadResult } from '../uploads';
 import { buildExport as buildExportFile, type CsvTableName, type ExportFile, type ExportFormat } from '../workbench/export';
 import type { ExportContext } from '../workbench/export-tables';
+import type { ScenarioSummaryInput } from '../pdf/summary';
 import type { MetricKey } from '../../metrics/catalogue';
 import type { Scenario } from '../../schemas/scenario';
 import type { UploadKind } from '../../schemas/workbench';
@@ -50,7 +52,14 @@ export const TASKS = {
 		guarded(() => UPLOAD_KINDS[input.kind].parse(input.bytes)),
 
 	buildExport: (input: { result: EngineResult; context: ExportContext; format: ExportFormat; table: CsvTableName }): Promise<TaskOutcome<ExportFile>> =>
-		guarded(() => buildExportFile(input.result, input.context, input.format, input.table))
+		guarded(() => buildExportFile(input.result, input.context, input.format, input.table)),
+
+	// Not guarded: the engine has already run, so a RangeError here is a fault in drawing (a 500), never a refusal of the input.
+	// pdfkit and its font parser load only where a summary is drawn, on first use.
+	summaryPdf: async (input: { summary: ScenarioSummaryInput }): Promise<TaskOutcome<Uint8Array<ArrayBuffer>>> => {
+		const { renderScenarioSummaryPdf } = await import('../pdf/summary');
+		return { ok: true, value: new Uint8Array(await renderScenarioSummaryPdf(input.summary)) };
+	}
 };
 
 export type TaskName = keyof typeof TASKS;
