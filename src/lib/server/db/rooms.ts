@@ -6,7 +6,7 @@
 import type { Knex } from 'knex';
 import { db } from './knex';
 import { normaliseEmail } from './users';
-import type { RoomSnapshot } from '../rooms/snapshot';
+import type { RoomSnapshot } from '../rooms/snapshot-format';
 
 export interface RoomRow {
 	id: string;

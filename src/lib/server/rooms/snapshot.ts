@@ -4,35 +4,15 @@
  * were, and the project's description. Stored whole with the version, so
  * later edits of scenarios, notes or cautions never change what a room shows.
  */
-import type { EngineResult } from '../engine/evaluate';
-import type { ScenarioDocument } from '../db/scenarios';
-import { ENGINE_VERSION } from '../engine/version';
 import { CAUTIONS } from '../../cautions';
-import { listMethodNotes, getMethodNote } from '../methods/notes';
+import { listMethodNotes, getMethodNote, getMethodNoteSource } from '../methods/notes';
+import { assembleSnapshot, type SnapshotScenario } from './snapshot-format';
 import { getScenariosInProject } from '../db/scenarios';
 import { resultOfSavedScenario } from '../workbench/stored-results';
 import type { ProjectRow } from '../db/projects';
+import type { RoomSnapshot } from './snapshot-format';
 
-export const SNAPSHOT_FORMAT = 1;
-
-export interface SnapshotScenario {
-	id: string;
-	name: string;
-	notes: string;
-	revision: number;
-	isBaseCase: boolean;
-	document: ScenarioDocument;
-	result: EngineResult;
-}
-
-export interface RoomSnapshot {
-	format: typeof SNAPSHOT_FORMAT;
-	engineVersion: string;
-	project: { id: string; name: string; technology: string; siteName: string; siteDescription: string; currency: string };
-	scenarios: SnapshotScenario[];
-	methodNotes: { slug: string; title: string; summary: string; html: string }[];
-	cautions: string[];
-}
+export type { RoomSnapshot, SnapshotScenario } from './snapshot-format';
 
 export class PublishProblem extends Error {
 	constructor(message: string) {
@@ -64,22 +44,10 @@ export async function buildSnapshot(project: ProjectRow, scenarioIds: readonly s
 			result
 		});
 	}
-	return {
-		format: SNAPSHOT_FORMAT,
-		engineVersion: ENGINE_VERSION,
-		project: {
-			id: project.id,
-			name: project.name,
-			technology: project.technology,
-			siteName: project.site_name,
-			siteDescription: project.site_description,
-			currency: project.currency
-		},
+	return assembleSnapshot({
+		project,
 		scenarios: frozen,
-		methodNotes: listMethodNotes().map(({ slug }) => {
-			const note = getMethodNote(slug)!;
-			return { slug: note.slug, title: note.title, summary: note.summary, html: note.html };
-		}),
-		cautions: [...CAUTIONS]
-	};
+		methodNotes: listMethodNotes().map(({ slug }) => ({ ...getMethodNote(slug)!, markdown: getMethodNoteSource(slug)?.markdown ?? '' })),
+		cautions: CAUTIONS
+	});
 }

@@ -27,10 +27,11 @@ import { roomAnswerMessage, roomInvitationMessage } from '../mail/templates';
 import { buildSnapshot } from './snapshot';
 import { endSessionsOfGuestWithoutRooms } from './guest-sessions';
 import { checkRoomDocument } from './document-check';
+import { VIEWABLE_KINDS } from './document-response';
+import { DEFAULT_TERMS_TEXT } from './terms';
 
 export const INVITATION_LINK_DAYS = 7;
-export const DEFAULT_TERMS =
-	'The figures, documents and answers in this room are confidential. They are shared to evaluate the project named here, may not be passed on without the written consent of the sponsor, and are estimates: not investment advice, not a certified yield assessment.';
+export const DEFAULT_TERMS = DEFAULT_TERMS_TEXT;
 
 export class RoomProblem extends Error {
 	constructor(
@@ -57,6 +58,9 @@ export async function attachDocument(access: RoomAccess, input: { fileName: stri
 	requireFeature(access.membership, 'dataRooms', 'change');
 	const checked = checkRoomDocument({ fileName: input.fileName, bytes: input.bytes });
 	if (!checked.ok) throw new RoomProblem(checked.reason, 'file');
+	if (input.access === 'view' && !VIEWABLE_KINDS.has(checked.kind)) {
+		throw new RoomProblem(`${checked.safeFileName} cannot be shown in a browser (${checked.kind.toUpperCase()}): attach it as a download, or as a PDF to keep it view only.`, 'access');
+	}
 	return insertRoomDocument({
 		roomId: access.roomId,
 		folder: input.folder,
