@@ -10,7 +10,11 @@ export interface Ticks {
 	values: number[];
 }
 
-/** Ticks covering [min, max] in about `count` round steps; a flat range is widened so the axis has height. */
+/**
+ * Ticks covering [min, max] in about `count` round steps, the rough step
+ * rounded at 1.5, 3 and 7 (Heckbert, "Nice numbers for graph labels",
+ * Graphics Gems, 1990); a flat range is widened so the axis has height.
+ */
 export function niceTicks(min: number, max: number, count = 5): Ticks {
 	let lo = Math.min(min, max);
 	let hi = Math.max(min, max);

@@ -5,9 +5,7 @@
  * tables, rules, images, raw HTML; links keep their words, not their target.
  * The note's own "# " title is dropped too: the summary prints the title it is given.
  */
-import MarkdownIt from 'markdown-it';
-
-type Token = ReturnType<MarkdownIt['parse']>[number];
+import MarkdownIt, { type Token } from 'markdown-it';
 
 export interface TextRun {
 	text: string;

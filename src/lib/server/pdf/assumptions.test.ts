@@ -1,0 +1,109 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { parseScenario, type Scenario } from '../../schemas/scenario';
+import { evaluateScenario } from '../engine/evaluate';
+import { assumptionSections, fieldText, plainNumber, withUnit } from './assumptions';
+
+function example(name: string): Scenario {
+	const parsed = parseScenario(JSON.parse(readFileSync(`examples/${name}.json`, 'utf8')));
+	if (!parsed.ok) throw new Error(`examples/${name}.json should parse`);
+	return parsed.scenario;
+}
+
+const tidal = example('tidal-stream-kestle-narrows');
+const wave = example('wave-orrin-bank');
+
+describe('plainNumber', () => {
+	it('groups digits and keeps the decimals typed, without float noise', () => {
+		expect(plainNumber(3200000)).toBe('3,200,000');
+		expect(plainNumber(0.42)).toBe('0.42');
+		expect(plainNumber(0.1 + 0.2)).toBe('0.3');
+		expect(plainNumber(-1500.5)).toBe('−1,500.5');
+	});
+});
+
+describe('withUnit', () => {
+	it('reads fractions and shares as per cent, naming what they are a share of', () => {
+		expect(withUnit(0.04, 'fraction')).toBe('4 %');
+		expect(withUnit(0.065, 'fraction/yr (nominal)')).toBe('6.5 %/yr (nominal)');
+		expect(withUnit(0.01, 'fraction of capex')).toBe('1 % of capex');
+		expect(withUnit(1, 'share of inflation')).toBe('100 % of inflation');
+		expect(withUnit(0.4, 'share')).toBe('40 %');
+	});
+
+	it('writes other units as the editor does, and leaves a symbol unit to the label', () => {
+		expect(withUnit(1500, 'kW')).toBe('1,500 kW');
+		expect(withUnit(1.35, '×')).toBe('1.35×');
+		expect(withUnit(0.42, 'Cp, –')).toBe('0.42');
+		expect(withUnit(0.9, 'ratio')).toBe('0.9');
+	});
+});
+
+describe('fieldText', () => {
+	it('gives the value at a path with the unit the editor shows beside that field', () => {
+		expect(fieldText(tidal, ['device', 'rotorDiameterM'])).toBe('20 m');
+		expect(fieldText(tidal, ['capex', 'lines', 0, 'amount'])).toBe('3,200,000 EUR/device');
+		expect(fieldText(tidal, ['opex', 'lines', 0, 'amount'])).toBe('150 EUR/kW·yr');
+		expect(fieldText(tidal, ['array', 'degradationPerYear'])).toBe('0.2 %/yr');
+		expect(fieldText(tidal, ['device', 'sweptAreaM2'])).toBeNull();
+	});
+});
+
+describe('assumptionSections', () => {
+	const sections = assumptionSections(tidal, evaluateScenario(tidal));
+	const section = (title: string) => sections.find((s) => s.title === title)!;
+	const fact = (title: string, label: string) => section(title).facts.find((f) => f.label === label)?.value;
+
+	it('covers resource, device, array and losses, timeline, capex, opex, revenue, finance and tax, in the editor order', () => {
+		expect(sections.map((s) => s.title)).toEqual([
+			'Site and resource',
+			'Device',
+			'Array, losses and uncertainty',
+			'Timeline',
+			'Capital costs',
+			'Operating costs and decommissioning',
+			'Revenue and grants',
+			'Finance and debt',
+			'Tax'
+		]);
+	});
+
+	it('writes each input in words with its unit, never as a raw key', () => {
+		expect(fact('Site and resource', 'Resource given as')).toBe('Flow speed histogram: 15 bins, 0.125 to 3.625 m/s');
+		expect(fact('Array, losses and uncertainty', 'Availability')).toBe('93 %');
+		expect(fact('Array, losses and uncertainty', 'Installed capacity')).toBe('15.00 MW');
+		expect(fact('Finance and debt', 'Target DSCR')).toBe('1.35×');
+		expect(fact('Finance and debt', 'Repayment')).toBe('Sculpted to CFADS');
+		expect(fact('Tax', 'Depreciation life')).toBe('20 years');
+		const everything = JSON.stringify(sections);
+		for (const key of ['arrayLoss', 'tariffPerMWh', 'percent-of-capex', 'per-kW-year', 'target-dscr']) expect(everything).not.toContain(key);
+	});
+
+	it('lists capex lines with their basis, amount, phasing and the engine total with contingency', () => {
+		const table = section('Capital costs').tables[0];
+		// 10 turbines x 3.2 M x 1.1 contingency = 35.2 M (examples/tidal-stream-kestle-narrows.json).
+		expect(table.rows[0]).toEqual(['Turbines', 'Per device', '3,200,000 EUR/device', 'default', '35,200,000']);
+		expect(table.rows[3]).toEqual(['Export cable and grid connection', 'For the project', '12,000,000 EUR', '70 % / 30 %', '13,200,000']);
+	});
+
+	it('describes opex lines by basis, a share of revenue following revenue rather than escalating', () => {
+		const rows = section('Operating costs and decommissioning').tables[0].rows;
+		expect(rows.find((r) => r[0] === 'Seabed lease')).toEqual(['Seabed lease', 'Share of revenue', '2 % of revenue', 'with revenue']);
+		expect(rows.find((r) => r[0] === 'Rotor and gearbox overhaul')?.[1]).toBe('Overhaul every 6 years, per device');
+	});
+
+	it('describes a wave device and sea states in their own terms', () => {
+		const waveSections = assumptionSections(wave, evaluateScenario(wave));
+		const resource = waveSections[0].facts.find((f) => f.label === 'Resource given as')!.value;
+		expect(resource).toMatch(/^Scatter diagram: \d+ sea states, Hs /);
+		expect(waveSections[1].facts.find((f) => f.label === 'Device given as')!.value).toMatch(/^Power matrix: \d+ Hs rows/);
+		expect(waveSections[0].facts.some((f) => f.label === 'Gravitational acceleration')).toBe(true);
+	});
+
+	it('says plainly when there is no debt', () => {
+		const noDebt: Scenario = { ...tidal, finance: { ...tidal.finance, debt: { sizing: 'none' } } };
+		const finance = assumptionSections(noDebt, evaluateScenario(noDebt)).find((s) => s.title === 'Finance and debt')!;
+		expect(finance.facts.find((f) => f.label === 'Senior debt')?.value).toBe('None: the project is funded by equity');
+		expect(finance.facts.some((f) => f.label === 'Interest rate')).toBe(false);
+	});
+});
