@@ -522,6 +522,19 @@ export const apiOperations: ApiOperation[] = [
 		otherErrors: [422]
 	},
 	{
+		operationId: 'getScenarioSummaryPdf',
+		method: 'GET',
+		path: '/api/v1/scenarios/{scenarioId}/summary.pdf',
+		tag: 'Results',
+		summary: "Download a saved scenario's PDF summary",
+		description:
+			'The team copy: cover, key metrics, assumptions, the annual cash-flow table, charts (energy, cash flows, DSCR, a tornado of the real LCOE) and the method notes, with the cautions on every page.',
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		response: { status: 200, description: 'The PDF, as an attachment', fileTypes: ['application/pdf'] },
+		otherErrors: [422]
+	},
+	{
 		operationId: 'restoreScenario',
 		method: 'POST',
 		path: '/api/v1/scenarios/{scenarioId}/restore',
@@ -657,7 +670,7 @@ export function pathPlaceholders(path: string): string[] {
 }
 
 /** Operations whose work runs on the compute pool under per-user limits (src/lib/server/compute/limits.ts). */
-const computeOperations = new Set(['evaluateScenario', 'runTornado', 'runSpider', 'compareScenarios', 'exportScenario', 'createUpload']);
+const computeOperations = new Set(['evaluateScenario', 'runTornado', 'runSpider', 'compareScenarios', 'exportScenario', 'getScenarioSummaryPdf', 'createUpload']);
 
 /**
  * The refusals an operation can answer with: 401 once sign-in is needed,
