@@ -18,11 +18,14 @@ import { expect, test, type APIRequestContext, type APIResponse, type request as
 import { baseURL, mailSinkHttpPort, stripeStandinPort } from '../../playwright.config';
 import { demoUsers } from '../../seeds/02_demo_users';
 import { METHOD_NOTES } from '../../src/lib/methods';
-import { signedInRequest, workspaceIdOf, type Persona } from './helpers/session';
+import { signedInGuestRequest, signedInRequest, workspaceIdOf, type Persona } from './helpers/session';
+import { demoInvestor, secondInvestor } from '../../seeds/06_demo_room';
 
 const sessionPersonas = ['anonymous', 'viewer', 'analyst', 'owner', 'outsider'] as const satisfies readonly Persona[];
 const tokenPersonas = ['readToken', 'writeToken'] as const;
-const personas = [...sessionPersonas, ...tokenPersonas] as const;
+/** Invited investors (room guests) of room X (workspace A's demo room) and of room Y (workspace B's). */
+const guestPersonas = ['investorX', 'investorY'] as const;
+const personas = [...sessionPersonas, ...tokenPersonas, ...guestPersonas] as const;
 type Caller = (typeof personas)[number];
 type Role = 'viewer' | 'analyst' | 'owner';
 const rank: Record<Role, number> = { viewer: 1, analyst: 2, owner: 3 };
@@ -33,7 +36,9 @@ const WORKSPACE_B = 'Corvane Advisory';
 /** A status, or `303 <prefix>`: a redirect whose location starts with the prefix. */
 type Answer = number | `303 ${string}`;
 /** Token answers may be left out for pages and form actions: there a token is nobody, so they answer as anonymous. */
-type Answers = Record<(typeof sessionPersonas)[number], Answer> & Partial<Record<(typeof tokenPersonas)[number], Answer>>;
+type Answers = Record<(typeof sessionPersonas)[number], Answer> &
+	Partial<Record<(typeof tokenPersonas)[number], Answer>> &
+	Partial<Record<(typeof guestPersonas)[number], Answer>>;
 
 const toSignIn: Answer = '303 /signin?next=';
 
@@ -73,7 +78,12 @@ function signedIn(allowed: Answer, anonymous: Answer = toSignIn): Answers {
 }
 
 function everyone(answer: Answer): Answers {
-	return { anonymous: answer, viewer: answer, analyst: answer, owner: answer, outsider: answer, readToken: answer, writeToken: answer };
+	return { anonymous: answer, viewer: answer, analyst: answer, owner: answer, outsider: answer, readToken: answer, writeToken: answer, investorX: answer, investorY: answer };
+}
+
+/** A /rooms page of room X: its investor gets `allowed`, the other room's investor 404, everyone else (never a guest) the guests' sign-in. */
+function roomX(allowed: Answer): Answers {
+	return { ...everyone('303 /rooms/signin?next='), investorX: allowed, investorY: 404 };
 }
 
 /** What each caller should get: token answers default to anonymous's on pages and actions. */
@@ -82,13 +92,24 @@ function expectedOf(row: Row): Record<Caller, Answer> {
 	if (isApi && (row.expect.readToken === undefined || row.expect.writeToken === undefined)) {
 		throw new Error(`${row.method} ${row.route}: an API row needs answers for both tokens`);
 	}
-	return { ...row.expect, readToken: row.expect.readToken ?? row.expect.anonymous, writeToken: row.expect.writeToken ?? row.expect.anonymous };
+	// Outside /rooms a room guest is nobody: anonymous's answer, unless the row says otherwise.
+	return {
+		...row.expect,
+		readToken: row.expect.readToken ?? row.expect.anonymous,
+		writeToken: row.expect.writeToken ?? row.expect.anonymous,
+		investorX: row.expect.investorX ?? row.expect.anonymous,
+		investorY: row.expect.investorY ?? row.expect.anonymous
+	};
 }
 
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 type Body = { json: unknown } | { form: Record<string, string> };
 
 interface Ids {
+	roomId: string;
+	documentId: string;
+	version: string;
+	position: string;
 	workspaceId: string;
 	workspaceB: string;
 	projectId: string;
@@ -112,6 +133,8 @@ interface Row {
 	after?: (persona: Caller, response: APIResponse) => Promise<void>;
 	/** The request ends the persona's session(s): sign in again afterwards. */
 	endsSessions?: boolean;
+	/** The request ends a room guest's session: sign in again afterwards. */
+	endsGuestSessions?: boolean;
 }
 
 const badJson = { json: { notAField: true } };
@@ -135,6 +158,23 @@ const matrix: Row[] = [
 	{ route: '/invite/[token]', method: 'GET', expect: everyone(200) },
 	{ route: '/invite/[token]', method: 'POST', action: 'accept', expect: { ...signedIn(400), anonymous: '303 /signin?next=' } },
 	{ route: '/invite/[token]', method: 'POST', action: 'join', body: { form: { name: '', password: '' } }, expect: everyone(400) },
+	// Investors' side: their own sign-in and door; members and tokens are nobody under /rooms.
+	{ route: '/rooms', method: 'GET', expect: { ...everyone('303 /rooms/signin?next='), investorX: 200, investorY: 200 } },
+	{ route: '/rooms/signin', method: 'GET', expect: { ...everyone(200), investorX: '303 /rooms', investorY: '303 /rooms' } },
+	{ route: '/rooms/signin', method: 'POST', action: 'password', body: { form: { email: 'not-an-address', password: '' } }, expect: everyone(400) },
+	{ route: '/rooms/signin', method: 'POST', action: 'link', body: { form: { email: 'not-an-address' } }, expect: everyone(400) },
+	{ route: '/rooms/signout', method: 'GET', expect: everyone('303 /rooms/signin') },
+	{ route: '/rooms/signout', method: 'POST', action: 'default', expect: everyone('303 /rooms/signin'), endsGuestSessions: true },
+	{ route: '/rooms/join/[token]', method: 'GET', expect: everyone(200) },
+	{ route: '/rooms/join/[token]', method: 'POST', action: 'default', expect: everyone(400) },
+	{ route: '/rooms/[roomId]', method: 'GET', expect: roomX(200) },
+	{ route: '/rooms/[roomId]', method: 'POST', action: 'ask', body: { form: { question: '' } }, expect: roomX(400) },
+	{ route: '/rooms/[roomId]/terms', method: 'GET', expect: roomX(200) },
+	{ route: '/rooms/[roomId]/terms', method: 'POST', action: 'default', body: { form: { termsVersion: '0' } }, expect: roomX('303 /rooms/{roomId}') },
+	{ route: '/rooms/[roomId]/scenarios/[position]', method: 'GET', expect: roomX(200) },
+	{ route: '/rooms/[roomId]/scenarios/[position]/summary.pdf', method: 'GET', expect: roomX(200) },
+	{ route: '/rooms/[roomId]/documents/[documentId]', method: 'GET', expect: roomX(200) },
+
 	// Dev-only inbox: a local demo's (loopback, beside the mail sink the browser tests run), for signed-in users only.
 	{ route: '/dev/mail', method: 'GET', expect: signedIn(200) },
 
@@ -180,6 +220,23 @@ const matrix: Row[] = [
 	{ route: '/app/w/[workspaceId]/members', method: 'POST', action: 'changeRole', body: { form: { userId: 'nobody', role: 'boss' } }, expect: action('owner', 400) },
 	{ route: '/app/w/[workspaceId]/members', method: 'POST', action: 'remove', body: { form: { userId: 'nobody' } }, expect: action('owner', 400) },
 	{ route: '/app/w/[workspaceId]/members', method: 'POST', action: 'revoke', body: { form: { invitationId: 'nobody' } }, expect: action('owner', 404) },
+	// Data rooms, the team's side (room X belongs to workspace A): viewers read, analysts and owners change.
+	{ route: '/app/w/[workspaceId]/projects/[projectId]/rooms', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/projects/[projectId]/rooms', method: 'POST', action: 'create', body: { form: { name: '' } }, expect: action('analyst', 400) },
+	{ route: '/app/w/[workspaceId]/rooms/[roomId]', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/rooms/[roomId]', method: 'POST', action: 'publish', expect: action('analyst', 400) },
+	{ route: '/app/w/[workspaceId]/rooms/[roomId]', method: 'POST', action: 'upload', body: { form: { folder: 'x' } }, expect: action('analyst', 400) },
+	{ route: '/app/w/[workspaceId]/rooms/[roomId]', method: 'POST', action: 'removeDocument', body: { form: { documentId: 'nobody' } }, expect: action('analyst', 404) },
+	{ route: '/app/w/[workspaceId]/rooms/[roomId]', method: 'POST', action: 'invite', body: { form: { email: 'not-an-address' } }, expect: action('analyst', 400) },
+	{ route: '/app/w/[workspaceId]/rooms/[roomId]', method: 'POST', action: 'revoke', body: { form: { guestId: 'nobody' } }, expect: action('analyst', 404) },
+	{ route: '/app/w/[workspaceId]/rooms/[roomId]', method: 'POST', action: 'answer', body: { form: { questionId: 'nobody' } }, expect: action('analyst', 400) },
+	{ route: '/app/w/[workspaceId]/rooms/[roomId]', method: 'POST', action: 'terms', body: { form: { terms: '' } }, expect: action('analyst', 400) },
+	{ route: '/app/w/[workspaceId]/rooms/[roomId]/log', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/rooms/[roomId]/log.csv', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/rooms/[roomId]/documents/[documentId]', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/rooms/[roomId]/versions/[version]', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/rooms/[roomId]/versions/[version]/scenarios/[position]', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/rooms/[roomId]/versions/[version]/scenarios/[position]/summary.pdf', method: 'GET', expect: page('viewer') },
 	// Leaving works for viewer and analyst (and is undone by a fresh invitation); the one owner may not leave.
 	{ route: '/app/w/[workspaceId]/members', method: 'POST', action: 'leave', expect: { ...action('viewer', '303 /app'), owner: 409 }, after: rejoinAfterLeaving },
 
@@ -217,6 +274,7 @@ const matrix: Row[] = [
 	{ route: '/api/v1/scenarios/[scenarioId]/revisions', method: 'GET', expect: api('viewer') },
 	{ route: '/api/v1/scenarios/[scenarioId]/revisions/[revision]', method: 'GET', expect: api('viewer') },
 	{ route: '/api/v1/scenarios/[scenarioId]/spider', method: 'POST', body: badJson, expect: api('viewer', 422) },
+	{ route: '/api/v1/scenarios/[scenarioId]/summary.pdf', method: 'GET', expect: api('viewer') },
 	{ route: '/api/v1/scenarios/[scenarioId]/tornado', method: 'POST', body: badJson, expect: api('viewer', 422) },
 	{ route: '/api/v1/uploads/[uploadId]', method: 'GET', expect: api('viewer') },
 	{ route: '/api/v1/uploads/[uploadId]/apply', method: 'POST', body: { json: { revision: 'not-a-number' } }, expect: api('analyst', 422) },
@@ -230,6 +288,10 @@ let requestFactory: typeof playwrightRequest;
 
 async function signIn(persona: Caller) {
 	if (persona === 'readToken' || persona === 'writeToken') return;
+	if (persona === 'investorX' || persona === 'investorY') {
+		clients[persona] = await signedInGuestRequest({ request: requestFactory }, baseURL, persona === 'investorX' ? demoInvestor : secondInvestor);
+		return;
+	}
 	clients[persona] = await signedInRequest({ request: requestFactory }, baseURL, persona);
 }
 
@@ -331,6 +393,20 @@ async function rejoinAfterLeaving(persona: Caller, response: APIResponse) {
 	}
 }
 
+/** The one room the guest may open, with its current terms accepted; answers its id. */
+async function acceptRoomTerms(persona: 'investorX' | 'investorY'): Promise<string> {
+	const list = await clients[persona].get('/rooms');
+	const roomId = /href="\/rooms\/([0-9a-f-]{36})"/.exec(await list.text())?.[1];
+	if (!roomId) throw new Error(`${persona} sees no room`);
+	const terms = await clients[persona].get(`/rooms/${roomId}/terms`);
+	const version = /name="termsVersion" value="(\d+)"/.exec(await terms.text())?.[1];
+	if (version) {
+		const accepted = await clients[persona].post(`/rooms/${roomId}/terms`, { headers: { accept: 'text/html' }, form: { termsVersion: version, next: `/rooms/${roomId}` }, maxRedirects: 0 });
+		expect(accepted.status(), `${persona} accepts the terms`).toBe(303);
+	}
+	return roomId;
+}
+
 async function invitationTokenFor(email: string): Promise<string> {
 	const response = await fetch(`http://127.0.0.1:${mailSinkHttpPort}/messages?to=${encodeURIComponent(email)}`);
 	const messages = (await response.json()) as { subject: string; text: string }[];
@@ -372,6 +448,16 @@ test.describe('role x route matrix', () => {
 		ids.uploadId = (await upload.json()).upload.id;
 
 		ids.slug = METHOD_NOTES[0].slug;
+
+		// Room X is the demo room of workspace A; each investor accepts their room's terms, as a browser would.
+		ids.roomId = await acceptRoomTerms('investorX');
+		await acceptRoomTerms('investorY');
+		const room = await clients.investorX.get(`/rooms/${ids.roomId}`);
+		expect(room.status()).toBe(200);
+		ids.documentId = /\/documents\/([0-9a-f-]{36})/.exec(await room.text())?.[1] ?? '';
+		expect(ids.documentId, 'a document in the demo room').not.toBe('');
+		ids.version = '1';
+		ids.position = '1';
 	});
 
 	test.afterAll(async () => {
@@ -389,7 +475,7 @@ test.describe('role x route matrix', () => {
 				const response = await send(persona, row);
 				actual[persona] = answerOf(response, expected[persona]);
 				if (row.after) await row.after(persona, response);
-				if (row.endsSessions && !(tokenPersonas as readonly string[]).includes(persona)) {
+				if ((row.endsSessions || row.endsGuestSessions) && !(tokenPersonas as readonly string[]).includes(persona)) {
 					await clients[persona].dispose();
 					await signIn(persona);
 				}
@@ -435,12 +521,12 @@ test.describe('role x route matrix', () => {
 		for (const path of paths) {
 			const actual = {} as Record<Caller, Answer>;
 			for (const persona of personas) actual[persona] = (await clients[persona].get(path, { maxRedirects: 0 })).status();
-			expect(actual, path).toEqual({ ...signedIn(404, 401), readToken: 404, writeToken: 404 });
+			expect(actual, path).toEqual({ ...signedIn(404, 401), readToken: 404, writeToken: 404, investorX: 401, investorY: 401 });
 		}
 		const actual = {} as Record<Caller, Answer>;
 		for (const persona of personas) actual[persona] = answerOf(await clients[persona].get(`/app/w/${nowhere}`, { maxRedirects: 0 }), toSignIn);
 		// On pages a token is nobody: sent to sign in.
-		expect(actual, '/app/w/<no such workspace>').toEqual({ ...signedIn(404), readToken: toSignIn, writeToken: toSignIn });
+		expect(actual, '/app/w/<no such workspace>').toEqual({ ...signedIn(404), readToken: toSignIn, writeToken: toSignIn, investorX: toSignIn, investorY: toSignIn });
 	});
 
 	test('the outsider\u2019s own workspace stays closed to workspace A\u2019s members', async () => {
