@@ -14,11 +14,12 @@ interface Outcome {
 
 const chromiumPath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
-/** Debian packages the browser tests use: Chromium, and jq for the worked API example in docs/. */
+/** Debian packages the tests use: Chromium, jq for the worked API example in docs/, and poppler's pdftotext to read the PDF summary back. */
 function ensureDebianPackages() {
 	const missing = [
 		{ path: chromiumPath, pkg: 'chromium' },
-		{ path: '/usr/bin/jq', pkg: 'jq' }
+		{ path: '/usr/bin/jq', pkg: 'jq' },
+		{ path: '/usr/bin/pdftotext', pkg: 'poppler-utils' }
 	].filter((need) => !existsSync(need.path));
 	if (missing.length === 0) return;
 	const names = missing.map((m) => m.pkg);
