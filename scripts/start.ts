@@ -80,7 +80,7 @@ async function main() {
 	for (const startService of extraServices) services.push(await startService());
 	const serviceEnv = Object.assign({}, ...services.map((s) => s.env)) as Record<string, string>;
 	// adapter-node refuses bodies over 512 KB by default; uploads may be up to 20 MB (src/lib/server/uploads).
-	const env = { BODY_SIZE_LIMIT: '26M', ...process.env, ...serviceEnv, HOST: host, PORT: port, ORIGIN: origin };
+	const env = { BODY_SIZE_LIMIT: '60M', ...process.env, ...serviceEnv, HOST: host, PORT: port, ORIGIN: origin };
 
 	if (serviceEnv.STRIPE_STANDIN_URL) {
 		// The stand-in starts empty: give the demo's paid workspaces their subscriptions again.

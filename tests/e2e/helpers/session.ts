@@ -53,3 +53,19 @@ export async function workspaceIdOf(request: APIRequestContext, name: string): P
 	if (!found) throw new Error(`workspace ${name} not visible`);
 	return found.id;
 }
+
+/** An HTTP client signed in as a room guest (an invited investor) through the guests' own sign-in form. */
+export async function signedInGuestRequest(
+	playwright: { request: typeof playwrightRequest },
+	baseURL: string,
+	investor: { email: string; password: string }
+): Promise<APIRequestContext> {
+	const context = await playwright.request.newContext({ baseURL, extraHTTPHeaders: { origin: baseURL } });
+	const response = await context.post('/rooms/signin?/password', {
+		headers: { accept: 'text/html' },
+		form: { email: investor.email, password: investor.password, next: '/rooms' },
+		maxRedirects: 0
+	});
+	expect(response.status(), `sign-in of room guest ${investor.email}`).toBe(303);
+	return context;
+}

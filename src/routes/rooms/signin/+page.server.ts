@@ -21,7 +21,7 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 };
 
 export const actions: Actions = {
-	default: async (event) => {
+	password: async (event) => {
 		const fields = await readForm(event.request);
 		const next = nextRoomsPath(fields.next, event.url.origin);
 		const parsed = email.safeParse(fields.email ?? '');
