@@ -40,6 +40,8 @@ export async function signInGuest(input: { email: string; password: string; ip: 
 	// The same work for an unknown address or one without a password yet: nobody learns who is invited.
 	const valid = await verifyPasswordHash(guest?.password_hash ?? (await decoyPasswordHash()), input.password);
 	if (!guest || !guest.password_hash || !valid) return { ok: false, message: WRONG };
+	// Every attempt took its points before the check; a success clears the address's count and gives the network address its point back, so only failures count.
+	await Promise.all([get().failuresAddress.delete(addressKey(input.email)), get().failuresIp.reward(input.ip, 1)]);
 	const { token, session } = await createGuestSession(guest.id);
 	const rooms = await listRoomsOfGuest(guest.id);
 	return { ok: true, token, expiresAt: session.expiresAt, roomId: rooms.length === 1 ? rooms[0].id : null };
