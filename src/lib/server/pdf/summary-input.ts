@@ -5,7 +5,6 @@
  * their own edition label and a stamp.
  */
 import { CAUTIONS } from '../../cautions';
-import { METHOD_NOTES } from '../../methods';
 import type { Scenario } from '../../schemas/scenario';
 import type { Technology } from '../../technology';
 import type { ProjectRow } from '../db/projects';
@@ -13,17 +12,12 @@ import type { EngineResult } from '../engine/evaluate';
 import type { TornadoResult } from '../engine/sensitivity';
 import { getMethodNoteSource } from '../methods/notes';
 import { fileStem } from '../workbench/export';
+import { summaryNoteSlugs } from './note-choice';
 import type { ScenarioSummaryInput } from './summary';
 
-/**
- * The notes a summary prints, in reading order: every note but the power
- * note of the other kind of device, and the sensitivity note only beside a tornado.
- */
-export function summaryNoteSlugs(technology: Technology, withTornado: boolean): string[] {
-	const otherPower = technology === 'wave' ? 'current-power' : 'wave-power';
-	return METHOD_NOTES.map((n) => n.slug as string).filter((slug) => slug !== otherPower && (withTornado || slug !== 'sensitivity'));
-}
+export { summaryNoteSlugs };
 
+/** The chosen notes with their markdown, as bundled with the app. */
 export function summaryMethodNotes(technology: Technology, withTornado: boolean): ScenarioSummaryInput['methodNotes'] {
 	return summaryNoteSlugs(technology, withTornado).flatMap((slug) => {
 		const note = getMethodNoteSource(slug);
