@@ -100,6 +100,19 @@ describe('assumptionSections', () => {
 		expect(waveSections[0].facts.some((f) => f.label === 'Gravitational acceleration')).toBe(true);
 	});
 
+	it("tabulates a measured power curve and a power matrix as the editor holds them", () => {
+		const current = example('ocean-current-mornstrand');
+		const curve = assumptionSections(current, evaluateScenario(current))[1].tables[0];
+		expect(curve.columns.map((c) => `${c.header} (${c.unit})`)).toEqual(['Flow speed (m/s)', 'Power (kW)']);
+		expect(curve.rows).toHaveLength(current.device.kind === 'power-curve' ? current.device.points.length : -1);
+		const matrix = assumptionSections(wave, evaluateScenario(wave))[1].tables[0];
+		if (wave.device.kind !== 'power-matrix') throw new Error('the wave example has a power matrix');
+		expect(matrix.rows).toHaveLength(wave.device.hsM.length);
+		expect(matrix.columns).toHaveLength(wave.device.periodS.length + 1);
+		expect(matrix.rows[3][0]).toBe(plainNumber(wave.device.hsM[3]));
+		expect(matrix.rows[3][5]).toBe(plainNumber(wave.device.powerKW[3][4]));
+	});
+
 	it('says plainly when there is no debt', () => {
 		const noDebt: Scenario = { ...tidal, finance: { ...tidal.finance, debt: { sizing: 'none' } } };
 		const finance = assumptionSections(noDebt, evaluateScenario(noDebt)).find((s) => s.title === 'Finance and debt')!;

@@ -186,7 +186,38 @@ function device(document: Scenario, result: EngineResult): AssumptionSection {
 	}
 	list.push({ label: 'Rated power per device (as used)', value: `${groupDigits(result.energy.ratedPowerPerDeviceKW, 0)} kW` });
 	list.push({ label: 'Mean power per device, before losses', value: `${groupDigits(result.energy.meanDevicePowerKW, 1)} kW` });
-	return { title: 'Device', facts: list, tables: [] };
+	return { title: 'Device', facts: list, tables: deviceTables(d) };
+}
+
+/** Past these sizes the device's own table would not fit a page; the words above still describe it. */
+const MAX_CURVE_POINTS = 60;
+const MAX_MATRIX_COLUMNS = 14;
+
+/** The measured power curve or the power matrix as the editor holds them. */
+function deviceTables(d: Scenario['device']): FactTable[] {
+	if (d.kind === 'power-curve' && d.points.length <= MAX_CURVE_POINTS) {
+		return [
+			{
+				title: 'Power curve (electrical power per device)',
+				columns: [
+					{ header: 'Flow speed', unit: 'm/s', align: 'right' },
+					{ header: 'Power', unit: 'kW', align: 'right' }
+				],
+				rows: d.points.map((p) => [plainNumber(p.speedMPerS), plainNumber(p.powerKW)])
+			}
+		];
+	}
+	if (d.kind === 'power-matrix' && d.periodS.length <= MAX_MATRIX_COLUMNS) {
+		const period = d.periodType === 'energy-period' ? 'Te' : 'Tp';
+		return [
+			{
+				title: `Power matrix (mean electrical power per device, kW): Hs down, ${period} across`,
+				columns: [{ header: 'Hs', unit: 'm', align: 'left' }, ...d.periodS.map((p) => ({ header: `${plainNumber(p)} s`, unit: period, align: 'right' as const }))],
+				rows: d.hsM.map((hs, i) => [plainNumber(hs), ...d.powerKW[i].map((kw) => plainNumber(kw))])
+			}
+		];
+	}
+	return [];
 }
 
 function arrayAndLosses(document: Scenario, result: EngineResult): AssumptionSection {

@@ -42,7 +42,7 @@ export function cashFlowColumns(currency: string): CashFlowColumn[] {
 		money('principal', 'Principal'),
 		money('debtBalance', 'Debt balance'),
 		{ key: 'dscr', header: 'DSCR', unit: 'ratio', places: 2, divisor: 1, align: 'right' },
-		money('projectCashFlowPostTax', 'Project CF post-tax'),
+		money('projectCashFlowPostTax', 'Post-tax project CF'),
 		money('cumulativeProjectCashFlow', 'Cumulative project CF'),
 		money('equityCashFlow', 'Equity CF'),
 		money('cumulativeEquityCashFlow', 'Cumulative equity CF')

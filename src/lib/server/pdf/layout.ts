@@ -1,8 +1,9 @@
 /**
  * Pages of the summary: a cursor that moves down the page and turns to a new
  * one when the next block will not fit, and, once every page exists, the
- * frame each page gets (a header after the cover, a footer on every page with
- * the cautions, "page n of N" and an investor's stamp).
+ * frame each page gets (a header with the project and scenario after the
+ * cover; a footer on every page with the cautions, the edition, "page n of N"
+ * and an investor's stamp).
  */
 import { printable } from './fonts';
 import { colours, page, type } from './style';
@@ -11,9 +12,14 @@ export type Orientation = 'portrait' | 'landscape';
 
 export class PageFlow {
 	readonly doc: PDFKit.PDFDocument;
+	readonly #frame: PageFrame;
+	#margins: { top: number; bottom: number; left: number; right: number } = { ...page.margin };
+	#footerMeasured = false;
 
-	constructor(doc: PDFKit.PDFDocument) {
+	/** The frame its pages will get: the footer's height sets the bottom margin. */
+	constructor(doc: PDFKit.PDFDocument, frame: PageFrame) {
 		this.doc = doc;
+		this.#frame = frame;
 	}
 
 	get left(): number {
@@ -46,7 +52,14 @@ export class PageFlow {
 	}
 
 	newPage(orientation: Orientation = 'portrait'): void {
-		this.doc.addPage({ size: page.size, layout: orientation, margins: page.margin });
+		this.doc.addPage({ size: page.size, layout: orientation, margins: this.#margins });
+		if (!this.#footerMeasured) {
+			// A long stamp or long cautions make the footer taller: the text above it keeps clear (measured once, on the narrower portrait width).
+			const width = Math.min(this.doc.page.width, this.doc.page.height) - this.#margins.left - this.#margins.right;
+			this.#margins = { ...this.#margins, bottom: Math.max(page.margin.bottom, footerLayout(this.doc, this.#frame, width).height + 14) };
+			this.doc.page.margins.bottom = this.#margins.bottom;
+			this.#footerMeasured = true;
+		}
 		this.doc.x = this.left;
 		this.doc.y = this.top;
 	}
@@ -87,8 +100,8 @@ export class PageFlow {
 export interface PageFrame {
 	/** Beside the page number: whose copy this is. */
 	editionLabel: string;
-	/** "Project: scenario (revision 3)" in the header of every page after the cover. */
-	headerText: string;
+	/** In the header of every page after the cover: "Project: scenario (revision 3)", each part shortened to fit when need be. */
+	header: { project: string; scenario: string };
 	/** The cautions, in small type in every footer. */
 	cautions: readonly string[];
 	/** An investor's copy: "Prepared for <email> on <time> UTC" in every footer. */
@@ -123,50 +136,77 @@ export function drawPageFrames(doc: PDFKit.PDFDocument, frame: PageFrame): void 
 	}
 }
 
+/** The project and scenario across the top (the edition is named in the footer, beside the page number). */
 function drawHeader(doc: PDFKit.PDFDocument, frame: PageFrame): void {
 	const left = doc.page.margins.left;
 	const right = doc.page.width - doc.page.margins.right;
 	const y = page.headerY;
-	const labelWidth = Math.min(220, (right - left) * 0.4);
 	doc.font('sans').fontSize(type.small).fillColor(colours.muted);
-	// One line each: a long name ends in an ellipsis rather than running into the rule.
+	// One line: a long name ends in an ellipsis rather than running into the rule.
 	const oneLine = { lineBreak: false, ellipsis: true, height: doc.currentLineHeight(true) } as const;
-	doc.text(printable(frame.headerText), left, y, { ...oneLine, width: right - left - labelWidth - 12 });
-	doc.text(printable(frame.editionLabel), right - labelWidth, y, { ...oneLine, width: labelWidth, align: 'right' });
+	const room = right - left;
+	const project = `${printable(frame.header.project)}: `;
+	const scenario = printable(frame.header.scenario);
+	// The project's name gives way first, down to half the room, so the scenario's name shows.
+	const projectWidth = Math.min(doc.widthOfString(project) + 1, Math.max(room / 2, room - doc.widthOfString(scenario) - 1));
+	doc.text(project, left, y, { ...oneLine, width: projectWidth });
+	doc.text(scenario, left + projectWidth, y, { ...oneLine, width: room - projectWidth });
 	doc.moveTo(left, y + 14).lineTo(right, y + 14).lineWidth(0.5).strokeColor(colours.rule).stroke();
+}
+
+/** Where the footer's last line sits: this far above the page's bottom edge. */
+const FOOTER_LAST_LINE = 30;
+
+interface FooterLayout {
+	pageText: string;
+	stamp: string | null;
+	/** The stamp fits beside the page number; else it takes lines of its own above it. */
+	stampBeside: boolean;
+	stampHeight: number;
+	cautions: string;
+	cautionsHeight: number;
+	/** From the page's bottom edge to the rule above the cautions. */
+	height: number;
+}
+
+function footerLayout(doc: PDFKit.PDFDocument, frame: PageFrame, width: number, pageNumber = 999, pageCount = 999): FooterLayout {
+	const pageText = `${printable(frame.editionLabel)} · Page ${pageNumber} of ${pageCount}`;
+	doc.font('sans').fontSize(type.small);
+	const pageWidth = doc.widthOfString(pageText) + 2;
+	const stamp = frame.stamp ? printable(stampText(frame.stamp)) : null;
+	doc.font('sansBold').fontSize(type.small);
+	const stampBeside = stamp === null || doc.widthOfString(stamp) <= width - pageWidth - 16;
+	const stampHeight = stamp === null || stampBeside ? 0 : doc.heightOfString(stamp, { width }) + 2;
+	const cautions = printable(`Read with care. ${frame.cautions.join(' ')}`);
+	doc.font('sans').fontSize(type.tiny);
+	const cautionsHeight = doc.heightOfString(cautions, { width, lineGap: 1 });
+	const height = FOOTER_LAST_LINE + page.footerGap / 2 + stampHeight + cautionsHeight + 6;
+	return { pageText, stamp, stampBeside, stampHeight, cautions, cautionsHeight, height };
 }
 
 function drawFooter(doc: PDFKit.PDFDocument, frame: PageFrame, pageNumber: number, pageCount: number): void {
 	const left = doc.page.margins.left;
 	const right = doc.page.width - doc.page.margins.right;
 	const width = right - left;
-	const lastLineY = doc.page.height - 30;
+	const layout = footerLayout(doc, frame, width, pageNumber, pageCount);
+	const lastLineY = doc.page.height - FOOTER_LAST_LINE;
 
-	const pageText = `${printable(frame.editionLabel)} · Page ${pageNumber} of ${pageCount}`;
 	doc.font('sans').fontSize(type.small);
-	const pageWidth = doc.widthOfString(pageText) + 2;
-	doc.fillColor(colours.text).text(pageText, right - pageWidth, lastLineY, { width: pageWidth, align: 'right', lineBreak: false });
+	const pageWidth = doc.widthOfString(layout.pageText) + 2;
+	doc.fillColor(colours.text).text(layout.pageText, right - pageWidth, lastLineY, { width: pageWidth, align: 'right', lineBreak: false });
 
 	let aboveY = lastLineY - page.footerGap / 2;
-	if (frame.stamp) {
-		// Beside the page number when it fits; a long address gets a line of its own above the cautions.
-		const stamp = printable(stampText(frame.stamp));
+	if (layout.stamp !== null) {
 		doc.font('sansBold').fontSize(type.small).fillColor(colours.accent);
-		const besideWidth = width - pageWidth - 16;
-		if (doc.widthOfString(stamp) <= besideWidth) doc.text(stamp, left, lastLineY, { width: besideWidth, lineBreak: false });
+		if (layout.stampBeside) doc.text(layout.stamp, left, lastLineY, { width: width - pageWidth - 16, lineBreak: false });
 		else {
-			const height = doc.heightOfString(stamp, { width });
-			aboveY -= height;
-			doc.text(stamp, left, aboveY, { width });
-			aboveY -= 2;
+			aboveY -= layout.stampHeight;
+			doc.text(layout.stamp, left, aboveY, { width });
 		}
 	}
 
-	const cautions = printable(`Read with care. ${frame.cautions.join(' ')}`);
-	doc.font('sans').fontSize(type.tiny);
-	const cautionsHeight = doc.heightOfString(cautions, { width, lineGap: 1 });
-	const cautionsY = aboveY - cautionsHeight;
-	doc.fillColor(colours.muted).text(cautions, left, cautionsY, { width, lineGap: 1 });
+	const cautionsY = aboveY - layout.cautionsHeight;
+	doc.font('sans').fontSize(type.tiny).fillColor(colours.muted).text(layout.cautions, left, cautionsY, { width, lineGap: 1 });
 	const ruleY = cautionsY - 6;
 	doc.moveTo(left, ruleY).lineTo(right, ruleY).lineWidth(0.5).strokeColor(colours.rule).stroke();
 }

@@ -114,7 +114,10 @@ describe('renderScenarioSummaryPdf', () => {
 			});
 
 			it('puts the project and scenario in the header of every page after the cover', () => {
-				read.flat.slice(1).forEach((page, i) => expect(page, `page ${i + 2}`).toContain(input.project.name));
+				read.flat.slice(1).forEach((page, i) => {
+					expect(page, `page ${i + 2}`).toContain(input.project.name);
+					expect(page, `page ${i + 2}`).toContain(`${input.scenario.name} (revision 4)`);
+				});
 			});
 
 			it('draws its charts as vectors: the file holds no picture', () => {

@@ -20,7 +20,7 @@ import { assumptionSections } from './assumptions';
 import { cashFlowTableCells } from './cash-flow-table';
 import { drawCashFlowChart, drawDscrChart, drawEnergyChart, drawTornadoChart, type Rect } from './charts';
 import { printable, registerFonts } from './fonts';
-import { drawPageFrames, PageFlow, utcMinute } from './layout';
+import { drawPageFrames, PageFlow, utcMinute, type PageFrame } from './layout';
 import { noteBlocks, type TextRun } from './markdown';
 import { colours, page, type } from './style';
 import { drawTable, tableHeight } from './tables';
@@ -75,7 +75,13 @@ export function renderScenarioSummaryPdf(input: ScenarioSummaryInput): Promise<B
 		doc.on('error', reject);
 	});
 	registerFonts(doc);
-	const flow = new PageFlow(doc);
+	const frame: PageFrame = {
+		editionLabel: input.edition.label,
+		header: { project: input.project.name, scenario: `${input.scenario.name} (revision ${input.scenario.revision})` },
+		cautions: input.cautions,
+		stamp: input.stamp
+	};
+	const flow = new PageFlow(doc, frame);
 
 	cover(flow, input);
 	keyMetrics(flow, input);
@@ -84,12 +90,7 @@ export function renderScenarioSummaryPdf(input: ScenarioSummaryInput): Promise<B
 	charts(flow, input);
 	methodNotes(flow, input);
 
-	drawPageFrames(doc, {
-		editionLabel: input.edition.label,
-		headerText: `${input.project.name}: ${input.scenario.name} (revision ${input.scenario.revision})`,
-		cautions: input.cautions,
-		stamp: input.stamp
-	});
+	drawPageFrames(doc, frame);
 	doc.end();
 	return done;
 }
@@ -183,8 +184,6 @@ function keyMetrics(flow: PageFlow, input: ScenarioSummaryInput): void {
 	flow.subheading('Warnings from the engine', 30);
 	if (result.warnings.length === 0) flow.paragraph('None: every figure was computed.', { colour: colours.muted });
 	for (const warning of result.warnings) flow.paragraph(`• ${warning}`, { indent: 4, gap: 3 });
-	flow.y += 4;
-	flow.paragraph(`Time convention: ${result.timeConvention}`, { size: type.small, colour: colours.muted });
 }
 
 // ---------------------------------------------------------------- assumptions
@@ -224,7 +223,7 @@ function cashFlow(flow: PageFlow, input: ScenarioSummaryInput): void {
 	flow.newPage('landscape');
 	flow.heading(CHAPTERS.cashFlow, 60);
 	flow.paragraph(
-		`Nominal money in thousands of ${result.currency} (${result.currency} k), energy in MWh, prices in ${result.currency}/MWh. Year t = 0 is the commercial operation date; construction years are marked "build". DSCR is CFADS over debt service. Negative figures in red.`,
+		`Money in thousands of ${result.currency} (${result.currency} k), energy in MWh, prices in ${result.currency}/MWh; construction years are marked "build"; DSCR is CFADS over debt service; negative figures in red. Time convention: ${result.timeConvention}`,
 		{ size: type.small, colour: colours.muted, gap: 6 }
 	);
 	const { columns, rows } = cashFlowTableCells(result);
@@ -247,20 +246,21 @@ function charts(flow: PageFlow, input: ScenarioSummaryInput): void {
 	const { result, document } = input;
 	flow.newPage('portrait');
 	flow.heading(CHAPTERS.charts, 300);
-	const box = (height: number): Rect => {
+	// Drawing moves pdfkit's cursor, so each chart's place is kept here and the cursor set below it afterwards.
+	const place = (height: number, draw: (box: Rect) => void) => {
 		flow.ensure(height);
-		const rect = { x: flow.left, y: flow.y, width: flow.width, height };
-		flow.y += height + 30;
-		return rect;
+		const box = { x: flow.left, y: flow.y, width: flow.width, height };
+		draw(box);
+		flow.y = box.y + height + 28;
 	};
-	drawEnergyChart(doc, box(310), result.energy);
-	drawCashFlowChart(doc, box(300), result.cashFlow, result.currency);
+	place(310, (box) => drawEnergyChart(doc, box, result.energy));
+	place(300, (box) => drawCashFlowChart(doc, box, result.cashFlow, result.currency));
 	const debt = document.finance.debt;
-	drawDscrChart(doc, box(280), result.cashFlow, debt.sizing === 'target-dscr' ? debt.targetDscr : null);
-	if (input.tornado) {
-		const rows = input.tornado.rows.length;
-		drawTornadoChart(doc, box(Math.min(flow.bottom - flow.top - 40, 110 + rows * 24)), input.tornado, result.currency);
-	}
+	const anyCover = result.cashFlow.some((row) => row.phase === 'operation' && row.dscr !== null);
+	// Without debt service the DSCR chart is a sentence, not an empty frame.
+	place(anyCover ? 260 : 44, (box) => drawDscrChart(doc, box, result.cashFlow, debt.sizing === 'target-dscr' ? debt.targetDscr : null));
+	const tornado = input.tornado;
+	if (tornado) place(Math.min(flow.bottom - flow.top - 40, 100 + tornado.rows.length * 22), (box) => drawTornadoChart(doc, box, tornado, result.currency));
 	doc.x = flow.left;
 }
 

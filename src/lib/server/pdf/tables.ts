@@ -69,34 +69,61 @@ function measure(doc: PDFKit.PDFDocument, spec: TableSpec, size: number, availab
 	});
 }
 
-/** Column widths at the largest size that fits; spare width goes to the last wrapping column, else to every column alike. */
+/** The narrowest a wrapping column may get: its longest word (a word is never broken). */
+function narrowest(doc: PDFKit.PDFDocument, spec: TableSpec, size: number, c: number): number {
+	doc.font('sans').fontSize(size);
+	const words = spec.rows.flatMap((row) => printable(row[c] ?? '').split(/\s+/));
+	return Math.max(0, ...words.map((word) => doc.widthOfString(word))) + slack(doc) + 2 * PAD_X;
+}
+
+/** Widths that fit `available` at this size, or null: headers whole if they fit, else by words, else wrapping columns narrowed. */
+function widthsAt(doc: PDFKit.PDFDocument, spec: TableSpec, size: number, available: number): number[] | null {
+	const sum = (list: number[]) => list.reduce((a, b) => a + b, 0);
+	const whole = measure(doc, spec, size, available, 'whole');
+	if (sum(whole) <= available) return whole;
+	const words = measure(doc, spec, size, available);
+	if (sum(words) <= available) return words;
+	const wrapping = spec.columns.map((c) => c.wrap === true);
+	const fixed = sum(words.filter((_, i) => !wrapping[i]));
+	const floors = words.map((w, i) => (wrapping[i] ? Math.min(w, narrowest(doc, spec, size, i)) : w));
+	if (sum(floors) > available) return null;
+	// Share the room left between the wrapping columns in proportion to what each would like beyond its floor.
+	const room = available - fixed;
+	const floorTotal = sum(floors.filter((_, i) => wrapping[i]));
+	const wishTotal = sum(words.filter((_, i) => wrapping[i])) - floorTotal;
+	return words.map((w, i) => (wrapping[i] ? floors[i] + (wishTotal > 0 ? ((w - floors[i]) / wishTotal) * (room - floorTotal) : 0) : w));
+}
+
+/**
+ * Column widths at the largest size that fits, narrowing text columns
+ * before shrinking the type; spare width goes to the last wrapping column
+ * (or, for a stretched table of figures, to every column alike).
+ */
 function fit(doc: PDFKit.PDFDocument, spec: TableSpec, available: number): Fitted {
 	const largest = spec.fontSize ?? type.table;
 	const smallest = spec.minFontSize ?? largest - 1.5;
 	let size = largest;
-	let widths = measure(doc, spec, size, available, 'whole');
-	if (widths.reduce((a, b) => a + b, 0) > available) widths = measure(doc, spec, size, available);
-	while (widths.reduce((a, b) => a + b, 0) > available && size > smallest) {
+	let widths = widthsAt(doc, spec, size, available);
+	while (widths === null && size > smallest) {
 		size = Math.max(smallest, size - 0.25);
-		widths = measure(doc, spec, size, available);
+		widths = widthsAt(doc, spec, size, available);
+	}
+	if (widths === null) {
+		// Too wide even at the smallest size: every column narrowed alike (text may then break inside words).
+		const measured = measure(doc, spec, size, available);
+		const total = measured.reduce((a, b) => a + b, 0);
+		return { size, widths: measured.map((w) => (w * available) / total) };
 	}
 	const total = widths.reduce((a, b) => a + b, 0);
-	if (total > available) {
-		// Still too wide at the smallest size: narrow the wrapping columns, else every column alike.
-		const wrapping = spec.columns.map((c) => c.wrap === true);
-		const fixed = widths.reduce((sum, w, i) => sum + (wrapping[i] ? 0 : w), 0);
-		const wrapTotal = total - fixed;
-		const scale = wrapTotal > 0 && available > fixed ? (available - fixed) / wrapTotal : available / total;
-		widths = widths.map((w, i) => (wrapTotal > 0 && available > fixed ? (wrapping[i] ? w * scale : w) : w * scale));
-	} else if (spec.stretch ?? spec.columns.some((c) => c.wrap)) {
-		const spare = available - total;
+	const spare = available - total;
+	if (spare > 0.5 && (spec.stretch ?? spec.columns.some((c) => c.wrap))) {
 		// The last text column takes the spare width: labels keep their own width, the words beside them get the rest.
 		const lastWrapping = spec.columns.map((c) => c.wrap === true).lastIndexOf(true);
 		if (lastWrapping >= 0) widths[lastWrapping] += spare;
-		else widths = widths.map((w) => w + spare / widths.length);
-	} else {
+		else widths = widths.map((w) => w + spare / widths!.length);
+	} else if (spare > 0.5) {
 		// A table of a few figures keeps its own width, with a little air.
-		const extra = Math.min(14, (available - total) / widths.length);
+		const extra = Math.min(14, spare / widths.length);
 		widths = widths.map((w) => w + extra);
 	}
 	return { size, widths };
