@@ -194,8 +194,13 @@ export async function grantRoomAccess(roomId: string, guestId: string, expiresAt
 		.merge({ expires_at: expiresAt, revoked_at: null, invited_by: invitedBy, invited_at: knex.fn.now() });
 }
 
+/** Ends a guest's access to a room, and spends the links sent for it, so an old invitation opens nothing. */
 export async function revokeRoomAccess(roomId: string, guestId: string, knex: Knex = db()): Promise<boolean> {
-	return (await knex('room_guest_access').where({ room_id: roomId, guest_id: guestId }).whereNull('revoked_at').update({ revoked_at: knex.fn.now() })) > 0;
+	return knex.transaction(async (trx) => {
+		const revoked = await trx('room_guest_access').where({ room_id: roomId, guest_id: guestId }).whereNull('revoked_at').update({ revoked_at: trx.fn.now() });
+		await trx('room_guest_links').where({ room_id: roomId, guest_id: guestId }).whereNull('used_at').update({ used_at: trx.fn.now() });
+		return revoked > 0;
+	});
 }
 
 export interface GuestAccessRow {

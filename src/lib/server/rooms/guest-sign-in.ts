@@ -32,7 +32,8 @@ const WRONG = 'That e-mail address and password do not match a data-room invitat
 
 export async function signInGuest(input: { email: string; password: string; ip: string }): Promise<GuestEntry> {
 	const attempt = await takeAll([
-		{ limiter: get().failuresAddress, key: addressKey(input.email) },
+		// Per address and network address: a stranger elsewhere cannot lock an investor out.
+		{ limiter: get().failuresAddress, key: `${addressKey(input.email)}|${input.ip}` },
 		{ limiter: get().failuresIp, key: input.ip }
 	]);
 	if (!attempt.allowed) return { ok: false, message: `Too many attempts. Try again in ${waitInWords(attempt.retryAfterSeconds)}.` };
@@ -41,7 +42,7 @@ export async function signInGuest(input: { email: string; password: string; ip: 
 	const valid = await verifyPasswordHash(guest?.password_hash ?? (await decoyPasswordHash()), input.password);
 	if (!guest || !guest.password_hash || !valid) return { ok: false, message: WRONG };
 	// Every attempt took its points before the check; a success clears the address's count and gives the network address its point back, so only failures count.
-	await Promise.all([get().failuresAddress.delete(addressKey(input.email)), get().failuresIp.reward(input.ip, 1)]);
+	await Promise.all([get().failuresAddress.delete(`${addressKey(input.email)}|${input.ip}`), get().failuresIp.reward(input.ip, 1)]);
 	const { token, session } = await createGuestSession(guest.id);
 	const rooms = await listRoomsOfGuest(guest.id);
 	return { ok: true, token, expiresAt: session.expiresAt, roomId: rooms.length === 1 ? rooms[0].id : null };
