@@ -36,6 +36,9 @@ describe('withUnit', () => {
 		expect(withUnit(1.35, '×')).toBe('1.35×');
 		expect(withUnit(0.42, 'Cp, –')).toBe('0.42');
 		expect(withUnit(0.9, 'ratio')).toBe('0.9');
+		expect(withUnit(1, 'years')).toBe('1 year');
+		expect(withUnit(2, 'years')).toBe('2 years');
+		expect(withUnit(1, 'devices')).toBe('1 device');
 	});
 });
 

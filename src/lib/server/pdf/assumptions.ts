@@ -64,6 +64,7 @@ export function withUnit(value: number, unit: string): string {
 	if (unit.startsWith('share of ')) return `${percent()} % of ${unit.slice('share of '.length)}`;
 	if (unit.startsWith('fraction')) return `${percent()} ${unit.replace(/^fraction/, '%')}`;
 	if (unit === '×') return `${plainNumber(value)}×`;
+	if (value === 1 && (unit === 'years' || unit === 'devices')) return `1 ${unit.slice(0, -1)}`;
 	return `${plainNumber(value)} ${unit}`;
 }
 
