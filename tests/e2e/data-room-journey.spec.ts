@@ -51,6 +51,10 @@ test('an analyst publishes and invites; the investor accepts, reads, asks and do
 	await expect(analyst.getByRole('status')).toContainText('site-map.png is attached');
 	await expect(analyst.getByRole('list', { name: 'Documents' })).toContainText('site-map.png');
 	await expect(analyst.getByRole('list', { name: 'Documents' })).not.toContainText('yield-report');
+	const documentId = /\/documents\/([0-9a-f-]{36})/.exec((await analyst.getByRole('link', { name: 'site-map.png' }).getAttribute('href')) ?? '')?.[1];
+	expect(documentId).toBeTruthy();
+	const roomId = roomPath.split('/').pop()!;
+	const documentUrl = `/rooms/${roomId}/documents/${documentId}`;
 
 	await analyst.getByLabel('Investor’s e-mail').fill(investorEmail);
 	await analyst.getByLabel('Name (optional)').fill('Journey Investor');
@@ -66,10 +70,16 @@ test('an analyst publishes and invites; the investor accepts, reads, asks and do
 	await investor.getByLabel('Password').fill('corriemoor-tide-journey-26');
 	await investor.getByRole('button', { name: 'Set the password and open' }).click();
 	await expect(investor.getByRole('heading', { name: /Confidentiality terms/ })).toBeVisible();
+	// Nothing of the room before the terms are accepted, not even by the document's direct address.
+	const early = await investor.request.get(documentUrl, { maxRedirects: 0 });
+	expect(early.status()).toBe(303);
+	expect(early.headers()['location']).toContain(`/rooms/${roomId}/terms`);
 	await expect(investor.getByTestId('room-terms')).toContainText('confidential');
 	await investor.getByRole('button', { name: 'I accept these terms' }).click();
 	await expect(investor.getByRole('heading', { name: roomName, level: 1 })).toBeVisible();
 	await expect(investor.getByTestId('room-version')).toContainText('Version 1');
+	const lcoeShown = (await investor.locator('dt', { hasText: 'LCOE, real' }).first().locator('xpath=following-sibling::dd[1]').textContent())!.trim().split(' ')[0];
+	expect(lcoeShown).toMatch(/^\d[\d,]*\.\d+$/);
 	// The link was single-use.
 	const again = await investor.request.get(link);
 	expect(await again.text()).toContain('This link cannot be used');
@@ -86,6 +96,8 @@ test('an analyst publishes and invites; the investor accepts, reads, asks and do
 	expect(readFileSync(pdfPath).subarray(0, 5).toString()).toBe('%PDF-');
 	const pdfText = execFileSync('pdftotext', ['-layout', pdfPath, '-'], { encoding: 'utf8' });
 	expect(pdfText).toContain(`Prepared for ${investorEmail}`);
+	// The PDF carries the figure the room page shows.
+	expect(pdfText).toContain(lcoeShown);
 
 	// The document, and a question.
 	await investor.goto(new URL(investor.url()).pathname.replace(/\/scenarios\/\d+$/, ''));
@@ -114,6 +126,15 @@ test('an analyst publishes and invites; the investor accepts, reads, asks and do
 	// The team sees the question.
 	await openPage(owner, roomPath);
 	await expect(owner.getByText('What availability does the base case assume')).toBeVisible();
+
+	// Revoked: the document's direct address and the room answer nothing any more.
+	await openPage(analyst, roomPath);
+	await analyst.getByRole('button', { name: `End access of ${investorEmail}` }).click();
+	await expect(analyst.getByRole('status')).toContainText('Access ended at once');
+	const late = await investor.request.get(documentUrl, { maxRedirects: 0 });
+	expect([303, 404]).toContain(late.status());
+	if (late.status() === 303) expect(late.headers()['location']).toContain('/rooms/signin');
+	expect((await investor.request.get(`/rooms/${roomId}`, { maxRedirects: 0 })).status()).not.toBe(200);
 
 	await Promise.all([analyst.close(), owner.close(), investorContext.close()]);
 });
