@@ -7,6 +7,7 @@ import { migrateAndSeed } from './migrate';
 import { mailSinkPortsFromEnv, startMailSink } from '../docker-local/mail-sink';
 import { startStripeStandin, stripeStandinPortFromEnv } from '../docker-local/stripe-standin/index';
 import { demoUsers } from '../seeds/02_demo_users';
+import { demoInvestor, secondInvestor } from '../seeds/06_demo_room';
 import { isLoopbackHost } from '../src/lib/server/loopback';
 
 export interface RunningService {
@@ -76,5 +77,12 @@ export function demoCredentialsText(origin: string, host: string): string {
 	const inbox = loopback
 		? `Mail sent by the app lands in the dev inbox: ${origin}/dev/mail (a local demo's: served on loopback only, to signed-in users)`
 		: `The dev inbox is off: HOST ${host} is not loopback, and the inbox shows password-reset links. Mail lands in the local sink on this machine.`;
-	return ['Demo users (invented people; sign in at ' + origin + '/signin):', ...lines, inbox].join('\n');
+	const investors = [demoInvestor, secondInvestor].map((i) => `  ${'investor'.padEnd(10)} ${i.email.padEnd(44)} ${i.password}`);
+	return [
+		'Demo users (invented people; sign in at ' + origin + '/signin):',
+		...lines,
+		`Demo investors, room guests (sign in at ${origin}/rooms/signin):`,
+		...investors,
+		inbox
+	].join('\n');
 }
