@@ -8,6 +8,7 @@
  */
 import DecimalJs from 'decimal.js';
 import { groupDigits } from '../../metrics/format';
+import { METRICS } from '../../metrics/catalogue';
 import { technologyLabels } from '../../technology';
 import { unitOf } from '../../workbench/field-units';
 import type { FieldPath } from '../../workbench/schema-fields';
@@ -431,7 +432,7 @@ function financeAndDebt(document: Scenario, result: EngineResult): AssumptionSec
 	const f = result.financing;
 	if (f) {
 		list.push(
-			{ label: 'Debt at COD', value: `${money(f.debtAmount, document.currency)}, set by ${sizedByWords[f.sizedBy]}` },
+			{ label: METRICS.debtAmount.label, value: `${money(f.debtAmount, document.currency)}, set by ${sizedByWords[f.sizedBy]}` },
 			{ label: 'Share of construction spend funded by debt', value: `${groupDigits(new Decimal(f.gearing).times(100), 1)} %` },
 			{ label: 'Interest during construction', value: money(f.interestDuringConstruction, document.currency) },
 			{ label: 'Upfront fee paid', value: money(f.upfrontFee, document.currency) }
