@@ -434,7 +434,7 @@ function financeAndDebt(document: Scenario, result: EngineResult): AssumptionSec
 		list.push(
 			{ label: METRICS.debtAmount.label, value: `${money(f.debtAmount, document.currency)}, set by ${sizedByWords[f.sizedBy]}` },
 			{ label: 'Share of construction spend funded by debt', value: `${groupDigits(new Decimal(f.gearing).times(100), 1)} %` },
-			{ label: 'Interest during construction', value: money(f.interestDuringConstruction, document.currency) },
+			{ label: 'Interest during construction, amount', value: money(f.interestDuringConstruction, document.currency) },
 			{ label: 'Upfront fee paid', value: money(f.upfrontFee, document.currency) }
 		);
 	}
