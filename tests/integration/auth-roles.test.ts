@@ -4,7 +4,11 @@ import { createTestDatabase, type TestDatabase } from '../helpers/db';
 import { newPerson, newWorkspaceOf } from '../helpers/people';
 import { setAppEnv } from '../helpers/app-env';
 import { isWorkspaceRole, roleAtLeast, workspaceRoles, type WorkspaceRole } from '../../src/lib/server/auth/roles';
-import { authorize, requireUser } from '../../src/lib/server/auth/access';
+import { authorize, requireUser, scenarioReadInView } from '../../src/lib/server/auth/access';
+import { createProject } from '../../src/lib/server/db/projects';
+import { createScenario } from '../../src/lib/server/db/scenarios';
+import { db } from '../../src/lib/server/db/knex';
+import { tidalDocument } from '../fixtures/scenario-documents';
 import { createSession, generateSessionToken, type SessionUser } from '../../src/lib/server/auth/session';
 import {
 	LastOwnerError,
@@ -237,5 +241,36 @@ describe('authorize on a workspace', () => {
 		expect(await statusOf(requireWorkspaceRole(eventFor(analyst), workspaceId, 'analyst'))).toBe('allowed');
 		await removeMember(workspaceId, analyst.id, database.knex);
 		expect(await statusOf(requireWorkspaceRole(eventFor(analyst), workspaceId, 'viewer'))).toBe(404);
+	});
+});
+
+describe('authorize on a scenario, on a page view', () => {
+	it('reads the scenario with its project in one query, keeps it for the page, and still hides it from outsiders', async () => {
+		const { owner, workspaceId } = await newWorkspace();
+		const project = await createProject({ workspaceId, name: 'View probe', technology: 'tidal-stream' }, database.knex);
+		const scenario = await createScenario({ projectId: project.id, name: 'One query', document: tidalDocument, userId: owner.id }, database.knex);
+		const event = {
+			locals: { principal: { kind: 'member', user: owner, session: { id: 'unused', userId: owner.id, expiresAt: new Date(), workspaceId: null } }, user: owner, session: null },
+			url: new URL(`http://127.0.0.1/app/w/${workspaceId}/projects/${project.id}/scenarios/${scenario.id}`),
+			request: new Request('http://127.0.0.1/', { method: 'GET' })
+		} as unknown as RequestEvent;
+		const appDb = db();
+		let queries = 0;
+		const count = () => (queries += 1);
+		appDb.on('query', count);
+		try {
+			const params = { workspaceId, projectId: project.id, scenarioId: scenario.id };
+			const [layout, page] = [await authorize(event, params, 'viewer'), await authorize(event, params, 'viewer')];
+			expect(layout.project.id).toBe(project.id);
+			expect(page.scenarioId).toBe(scenario.id);
+			// One query for the project and the scenario (memberships come with the session; here the list is read once).
+			expect(queries).toBe(2);
+			expect(scenarioReadInView(event, scenario.id)?.document).toEqual(scenario.document);
+		} finally {
+			appDb.off('query', count);
+		}
+		const outsider = (await newWorkspace()).owner;
+		const outsiderEvent = { ...event, locals: { principal: { kind: 'member', user: outsider, session: { id: 'x', userId: outsider.id, expiresAt: new Date(), workspaceId: null } }, user: outsider, session: null } } as unknown as RequestEvent;
+		await expect(authorize(outsiderEvent, { scenarioId: scenario.id }, 'viewer')).rejects.toMatchObject({ status: 404 });
 	});
 });

@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestDatabase, type TestDatabase } from '../helpers/db';
 import { setAppEnv } from '../helpers/app-env';
 import { createProject } from '../../src/lib/server/db/projects';
-import { createScenario, saveScenario } from '../../src/lib/server/db/scenarios';
+import { archiveScenario, createScenario, listLiveScenariosWithStoredMetrics, saveScenario } from '../../src/lib/server/db/scenarios';
 import { getStoredResult } from '../../src/lib/server/db/scenario-results';
 import { evaluateScenario } from '../../src/lib/server/engine/evaluate';
 import { ENGINE_VERSION } from '../../src/lib/server/engine/version';
@@ -80,6 +80,29 @@ describe('resultOfSavedScenario', () => {
 		expect(engine.calls).toBe(2);
 		expect(next.reused).toBe(false);
 		expect(next.engineVersion).toBe(`${ENGINE_VERSION}-next`);
+	});
+});
+
+describe('listLiveScenariosWithStoredMetrics', () => {
+	it('gives each live scenario its current revision’s stored metrics in one query, null where none is stored for this engine', async () => {
+		const [{ id: workspaceId }] = await database.knex('workspaces').insert({ name: 'List Test', slug: 'list-test' }).returning('id');
+		const listProject = (await createProject({ workspaceId, name: 'Listed array', technology: 'tidal-stream' }, database.knex)).id;
+		const make = (name: string) => createScenario({ projectId: listProject, name, document: tidalDocument, userId: null }, database.knex);
+		const [stored, bare, gone] = [await make('A stored'), await make('B bare'), await make('C archived')];
+		const { result } = await resultOfSavedScenario(stored, project, { evaluate: evaluateScenario, knex: database.knex });
+		// A newer revision without a result of its own: the older revision's result must not be shown for it.
+		await resultOfSavedScenario(bare, project, { evaluate: evaluateScenario, knex: database.knex });
+		await saveScenario({ scenarioId: bare.id, expectedRevision: bare.revision, document: { ...bare.document, array: { ...bare.document.array, availability: 0.8 } }, userId: null }, database.knex);
+		await archiveScenario(gone.id, null, database.knex);
+		let queries = 0;
+		const count = () => (queries += 1);
+		database.knex.on('query', count);
+		const listed = await listLiveScenariosWithStoredMetrics(listProject, ENGINE_VERSION, database.knex);
+		database.knex.off('query', count);
+		expect(queries).toBe(1);
+		expect(listed.map((s) => s.name)).toEqual(['A stored', 'B bare']);
+		expect(listed[0].stored).toEqual({ metrics: result.metrics, currency: result.currency });
+		expect(listed[1].stored).toBeNull();
 	});
 });
 

@@ -15,6 +15,7 @@
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
 import { listWorkspacesForUser, type WorkspaceMembership } from '../db/memberships';
 import { getProjectById, getProjectOfRoom, getProjectOfScenario, getProjectOfUpload, type ProjectRow } from '../db/projects';
+import { getScenarioWithProject, type ScenarioRecord } from '../db/scenarios';
 import { roleAtLeast, type WorkspaceRole } from './roles';
 import type { ApiTokenPrincipal, GuestPrincipal, MemberPrincipal, Principal } from './principal';
 import type { SessionUser } from './session';
@@ -142,6 +143,32 @@ function projectOf(event: AccessEvent, key: string, lookup: () => Promise<Projec
 	return project;
 }
 
+/** Scenarios read with their project while a page view was authorized, for the page to use without a second query. */
+const scenariosOfView = new WeakMap<App.Locals, Map<string, ScenarioRecord>>();
+
+function isRead(event: AccessEvent): boolean {
+	const method = event.request?.method ?? 'GET';
+	return method === 'GET' || method === 'HEAD';
+}
+
+/** On a read, the project of a scenario and the scenario itself in one query; the scenario is kept for `scenarioReadInView`. */
+function projectOfScenarioInView(event: AccessEvent, scenarioId: string): Promise<ProjectRow | undefined> {
+	return projectOf(event, `scenario:${scenarioId}`, async () => {
+		if (!isRead(event)) return getProjectOfScenario(scenarioId);
+		const found = await getScenarioWithProject(scenarioId);
+		if (!found) return undefined;
+		const seen = scenariosOfView.get(event.locals) ?? new Map<string, ScenarioRecord>();
+		seen.set(scenarioId, found.scenario);
+		scenariosOfView.set(event.locals, seen);
+		return found.project;
+	});
+}
+
+/** The scenario `authorize` already read for this page view (reads only), or undefined. */
+export function scenarioReadInView(event: Pick<RequestEvent, 'locals'>, scenarioId: string): ScenarioRecord | undefined {
+	return scenariosOfView.get(event.locals)?.get(scenarioId);
+}
+
 async function membershipIn(event: AccessEvent, workspaceId: string, userId: string): Promise<WorkspaceMembership | undefined> {
 	return (await membershipsOf(event, userId)).find((m) => m.workspaceId === workspaceId);
 }
@@ -189,7 +216,7 @@ export async function authorize(
 	const place = { workspaceId: target.workspaceId, projectId: target.projectId };
 	if (target.scenarioId !== undefined) {
 		const scenarioId = target.scenarioId;
-		const project = isUuid(scenarioId) ? await projectOf(event, `scenario:${scenarioId}`, () => getProjectOfScenario(scenarioId)) : undefined;
+		const project = isUuid(scenarioId) ? await projectOfScenarioInView(event, scenarioId) : undefined;
 		const access = await projectAccess(event, project, place, minimum, hidden.scenario);
 		return { ...access, scenarioId: target.scenarioId };
 	}

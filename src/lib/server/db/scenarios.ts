@@ -11,6 +11,7 @@
  */
 import type { Knex } from 'knex';
 import { db } from './knex';
+import { projectColumns, type ProjectRow } from './projects';
 import { exactTimestamp, keysetPage, type KeysetPage, type KeysetRequest } from './keyset';
 import type { Scenario } from '../../schemas/scenario';
 import { changedSections, describeEdit } from '../workbench/document-changes';
@@ -152,6 +153,39 @@ export async function listScenariosInProject(
 	else query.whereNull('scenarios.archived_at');
 	const rows: SummaryDbRow[] = await query.orderByRaw(scenarioListOrder);
 	return rows.map(toSummary);
+}
+
+/**
+ * The project's live scenarios in list order, each with its current
+ * revision's stored metrics for one engine version (null when not stored),
+ * in one query: what a project page shows.
+ */
+export async function listLiveScenariosWithStoredMetrics(
+	projectId: string,
+	engineVersion: string,
+	knex: Knex = db()
+): Promise<(ScenarioSummary & { stored: { metrics: Record<string, string | null>; currency: string } | null })[]> {
+	const rows: (SummaryDbRow & { stored_metrics: Record<string, string | null> | null; stored_currency: string | null })[] = await summaries(knex)
+		.leftJoin('scenario_results as stored', function () {
+			this.on('stored.scenario_id', 'scenarios.id').andOn('stored.revision', 'scenarios.revision').andOnVal('stored.engine_version', engineVersion);
+		})
+		.select([...summaryColumns, 'stored.metrics as stored_metrics', 'stored.currency as stored_currency'])
+		.where('scenarios.project_id', projectId)
+		.whereNull('scenarios.archived_at')
+		.orderByRaw(scenarioListOrder);
+	return rows.map((row) => ({ ...toSummary(row), stored: row.stored_metrics ? { metrics: row.stored_metrics, currency: row.stored_currency ?? '' } : null }));
+}
+
+/** A scenario (with its document) and the project it belongs to, in one query: what the editor page needs after the access check. */
+export async function getScenarioWithProject(id: string, knex: Knex = db()): Promise<{ scenario: ScenarioRecord; project: ProjectRow } | undefined> {
+	const row = await summaries(knex)
+		.join('projects', 'projects.id', 'scenarios.project_id')
+		.select([...summaryColumns, 'scenarios.document', ...projectColumns.map((c) => `projects.${c} as project_${c}`)])
+		.where('scenarios.id', id)
+		.first();
+	if (!row) return undefined;
+	const project = Object.fromEntries(projectColumns.map((c) => [c, row[`project_${c}`]])) as unknown as ProjectRow;
+	return { scenario: { ...toSummary(row), document: row.document }, project };
 }
 
 /** Where a scenario sits in the list: base case or not, name, when it was created (to the microsecond), id. */

@@ -78,10 +78,11 @@ export async function storedKeyFigures(scenarios: readonly Pick<ScenarioRecord, 
 		scenarios.map((s) => ({ scenarioId: s.id, revision: s.revision })),
 		ENGINE_VERSION
 	);
-	return Object.fromEntries(
-		scenarios.map((s) => {
-			const found = stored.get(s.id);
-			return [s.id, found ? { currency: found.currency, values: Object.fromEntries(KEY_FIGURES.map((k) => [k, found.metrics[k] ?? null])) as KeyFigures['values'] } : null];
-		})
-	);
+	return Object.fromEntries(scenarios.map((s) => [s.id, keyFiguresOf(stored.get(s.id) ?? null)]));
+}
+
+/** The key figures of one stored result's metrics (null: none stored for this engine). */
+export function keyFiguresOf(stored: { metrics: Record<string, string | null>; currency: string } | null): KeyFigures | null {
+	if (!stored) return null;
+	return { currency: stored.currency, values: Object.fromEntries(KEY_FIGURES.map((k) => [k, stored.metrics[k] ?? null])) as KeyFigures['values'] };
 }

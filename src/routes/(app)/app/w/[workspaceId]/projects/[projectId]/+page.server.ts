@@ -1,9 +1,10 @@
 import { roleAtLeast } from '$lib/server/auth/roles';
 import { authorize } from '$lib/server/auth/access';
-import { listScenariosInProject } from '$lib/server/db/scenarios';
+import { listLiveScenariosWithStoredMetrics } from '$lib/server/db/scenarios';
 import { listUploadsInProject } from '$lib/server/db/uploads';
 import { projectJson, scenarioSummaryJson, uploadSummaryJson } from '$lib/server/workbench/serialize';
-import { storedKeyFigures } from '$lib/server/workbench/stored-results';
+import { keyFiguresOf } from '$lib/server/workbench/stored-results';
+import { ENGINE_VERSION } from '$lib/server/engine/version';
 import { isArchivedProject } from '$lib/server/workbench/live-project';
 import { asJson, type ProjectJson, type ScenarioSummaryJson, type UploadSummaryJson } from '$lib/workbench/api-types';
 import type { PageServerLoad } from './$types';
@@ -15,11 +16,11 @@ import type { PageServerLoad } from './$types';
  */
 export const load: PageServerLoad = async (event) => {
 	const { project, membership } = await authorize(event, event.params, 'viewer');
-	const [scenarios, uploads] = await Promise.all([listScenariosInProject(project.id), listUploadsInProject(project.id)]);
-	const figures = await storedKeyFigures(scenarios);
+	// The scenarios with their stored key figures in one query, the uploads beside it.
+	const [scenarios, uploads] = await Promise.all([listLiveScenariosWithStoredMetrics(project.id, ENGINE_VERSION), listUploadsInProject(project.id)]);
 	return {
 		project: asJson<ProjectJson>(projectJson(project)),
-		scenarios: asJson<ScenarioSummaryJson[]>(scenarios.map((s) => ({ ...scenarioSummaryJson(s), keyFigures: figures[s.id] }))),
+		scenarios: asJson<ScenarioSummaryJson[]>(scenarios.map((s) => ({ ...scenarioSummaryJson(s), keyFigures: keyFiguresOf(s.stored) }))),
 		uploads: asJson<UploadSummaryJson[]>(uploads.map(uploadSummaryJson)),
 		role: membership.role,
 		canEdit: roleAtLeast(membership.role, 'analyst') && !isArchivedProject(project),
