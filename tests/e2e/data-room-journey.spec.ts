@@ -84,6 +84,21 @@ test('an analyst publishes and invites; the investor accepts, reads, asks and do
 	const again = await investor.request.get(link);
 	expect(await again.text()).toContain('This link cannot be used');
 
+	// The team edits the published scenario afterwards: a new revision with 30 % more on every capex line.
+	const workspaceId = roomPath.split('/')[3];
+	const { projects } = await (await analyst.request.get(`/api/v1/workspaces/${workspaceId}/projects?limit=500`)).json();
+	const projectId = (projects as { id: string; name: string }[]).find((p) => p.name === demoProjects[0].name)!.id;
+	const { scenarios } = await (await analyst.request.get(`/api/v1/projects/${projectId}/scenarios`)).json();
+	const baseId = (scenarios as { id: string; isBaseCase: boolean }[]).find((sc) => sc.isBaseCase)!.id;
+	const { scenario: base } = await (await analyst.request.get(`/api/v1/scenarios/${baseId}`)).json();
+	const dearer = { ...base.document, capex: { ...base.document.capex, lines: base.document.capex.lines.map((line: { amount?: number }) => (line.amount === undefined ? line : { ...line, amount: line.amount * 1.3 })) } };
+	const edited = await analyst.request.put(`/api/v1/scenarios/${baseId}`, { data: { revision: base.revision, document: dearer } });
+	expect(edited.status(), await edited.text()).toBe(200);
+	await investor.reload();
+	// The room still shows what was published.
+	const lcoeAfterEdit = (await investor.locator('dt', { hasText: 'LCOE, real' }).first().locator('xpath=following-sibling::dd[1]').textContent())!.trim().split(' ')[0];
+	expect(lcoeAfterEdit).toBe(lcoeShown);
+
 	// The frozen results and the method, then the stamped PDF.
 	await investor.getByRole('link', { name: 'Results, assumptions and method' }).first().click();
 	await expect(investor.getByTestId('frozen-basis')).toContainText('as published in version 1');
