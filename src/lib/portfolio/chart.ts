@@ -117,13 +117,16 @@ export function bubbleChart(group: ChartGroup): ChartConfiguration<'bubble'> {
 				tooltip: { callbacks: { label: tooltipLabel } }
 			},
 			scales: {
+				// Room beyond the largest point, so the bubble there is not cut by the plot's edge.
 				x: {
 					beginAtZero: true,
+					grace: '12%',
 					grid,
 					title: axisTitle(`${figureDefinition('installedCapacityMW').label} (${metricUnit('installedCapacityMW', currency)})`)
 				},
 				y: {
 					beginAtZero: true,
+					grace: '12%',
 					grid,
 					title: axisTitle(`${figureDefinition('lcoeReal').label} (${metricUnit('lcoeReal', currency)})`)
 				}
