@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { atbCase } from './testing/fixtures';
 import { evaluateDetailed } from './evaluate';
 import { applyDriver, defaultDrivers, DRIVER_IDS, spider, tornado } from './sensitivity';
+import { SCENARIO_LIMITS } from '../../schemas/scenario-limits';
+import { parseScenario } from '../../schemas/scenario';
 
 const base = atbCase({
 	opex: { lines: [] },
@@ -57,5 +59,28 @@ describe('applyDriver', () => {
 		const shortLife = applyDriver(base, 'life', 5);
 		expect(shortLife.timeline.operatingYears).toBe(5);
 		expect(shortLife.finance.debt.sizing !== 'none' && shortLife.finance.debt.tenorYears).toBe(5);
+	});
+});
+
+describe('driver bounds', () => {
+	it('never asks for a life beyond the schema’s limit, however far a driver or spider step reaches', () => {
+		expect(applyDriver(base, 'life', 50_000).timeline.operatingYears).toBe(SCENARIO_LIMITS.operatingYears);
+		expect(applyDriver(base, 'life', -3).timeline.operatingYears).toBe(1);
+		// The clamped document still passes the schema.
+		expect(parseScenario(applyDriver(base, 'life', 50_000)).ok).toBe(true);
+	});
+});
+
+describe('defaultDrivers', () => {
+	it('gives its ranges without floating-point noise (0.07 - 0.015 is 0.055, not 0.05500000000000001)', () => {
+		const scenario = atbCase({ finance: { inflation: 0.05, debt: { sizing: 'gearing', gearing: 0.7, interestRate: 0.07, tenorYears: 12 } } });
+		expect(0.07 - 0.015).not.toBe(0.055); // IEEE 754 double arithmetic, the noise this removes
+		const interest = defaultDrivers(scenario).find((d) => d.driver === 'interestRate')!;
+		expect(interest).toEqual({ driver: 'interestRate', low: 0.055, high: 0.085 });
+		// 0.05 + 0.01 is 0.060000000000000005 in doubles.
+		expect(defaultDrivers(scenario).find((d) => d.driver === 'inflation')).toEqual({ driver: 'inflation', low: 0.04, high: 0.06 });
+		for (const range of defaultDrivers(scenario)) {
+			for (const value of [range.low, range.high]) expect(String(value).length, `${range.driver} ${value}`).toBeLessThan(14);
+		}
 	});
 });
