@@ -22,6 +22,16 @@ describe('solveBreakevenTariff', () => {
 		}
 	});
 
+	it('is lower than the LCOE by the grant when there is one (the LCOE leaves grants out, the breakeven counts them as money received)', () => {
+		// Same FCR form as above with the grant netted from the 50 M capex it arrives with: (CRF(8 %, 20) x 40 M + 2 M) / 30,660.
+		const s = atbCase({ revenue: { grants: [{ name: 'Innovation grant', basis: 'lump-sum', amount: 10e6 }] } });
+		const solved = solveBreakevenTariff(prepareCase(s, estimateEnergy(s)));
+		if (solved.tariffPerMWh === null) throw new Error(solved.reason);
+		const lcoe = (financial.pmt(0.08, 20, -1) * 50e6 + 2e6) / 30660;
+		expect(solved.tariffPerMWh.toNumber()).toBeCloseTo((financial.pmt(0.08, 20, -1) * 40e6 + 2e6) / 30660, 6);
+		expect(solved.tariffPerMWh.toNumber()).toBeLessThan(lcoe);
+	});
+
 	it('says why when there is no energy', () => {
 		const s = atbCase({ array: { availability: 0 } });
 		const solved = solveBreakevenTariff(prepareCase(s, estimateEnergy(s)));
