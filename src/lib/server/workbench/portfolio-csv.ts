@@ -6,37 +6,20 @@
  */
 import { CAUTIONS } from '../../cautions';
 import { roundedMetric } from '../../metrics/format';
-import { technologyLabels } from '../../technology';
 import { figureHeading, PORTFOLIO_FIGURE_KEYS, portfolioColumns } from '../../portfolio/columns';
 import type { PortfolioRow } from '../../schemas/portfolio';
 import { tableToCsv } from './export-csv';
 import type { ExportTable } from './export-tables';
-import { currenciesOf } from './portfolio-table';
+import { currenciesOf, portfolioText } from './portfolio-table';
 
 export function portfolioCsvTable(rows: readonly PortfolioRow[], options: { withWorkspace: boolean }): ExportTable {
 	const currencies = currenciesOf(rows);
 	const textColumns = portfolioColumns(options).filter((c) => !c.numeric);
-	const textCell = (row: PortfolioRow, key: (typeof textColumns)[number]['key']): string | null => {
-		switch (key) {
-			case 'project':
-				return row.projectName;
-			case 'workspace':
-				return row.workspaceName;
-			case 'technology':
-				return technologyLabels[row.technology];
-			case 'status':
-				return row.status;
-			case 'baseCase':
-				return row.baseCase?.name ?? null;
-			default:
-				return null;
-		}
-	};
 	return {
 		title: 'Portfolio',
 		headers: [...textColumns.map((c) => c.label), 'Currency', ...PORTFOLIO_FIGURE_KEYS.map((key) => figureHeading(key, currencies)), 'Why no figures'],
 		rows: rows.map((row) => [
-			...textColumns.map((c) => textCell(row, c.key)),
+			...textColumns.map((c) => portfolioText(row, c.key)),
 			row.missing === null ? row.currency : null,
 			...PORTFOLIO_FIGURE_KEYS.map((key) => roundedMetric(key, row.figures[key])),
 			row.reason

@@ -16,11 +16,8 @@ const statusOrder = { live: 0, archived: 1 } as const;
 
 type Comparable = string | number | Decimal | null;
 
-function sortValue(row: PortfolioRow, key: PortfolioSortKey): Comparable {
-	if (isFigureColumn(key)) {
-		const value = row.figures[key];
-		return value === null ? null : new Decimal(value);
-	}
+/** A text column's value as the page and the CSV show it (null for figure columns). */
+export function portfolioText(row: PortfolioRow, key: PortfolioSortKey): string | null {
 	switch (key) {
 		case 'project':
 			return row.projectName;
@@ -29,10 +26,21 @@ function sortValue(row: PortfolioRow, key: PortfolioSortKey): Comparable {
 		case 'technology':
 			return technologyLabels[row.technology];
 		case 'status':
-			return statusOrder[row.status];
+			return row.status;
 		case 'baseCase':
 			return row.baseCase?.name ?? null;
+		default:
+			return null;
 	}
+}
+
+function sortValue(row: PortfolioRow, key: PortfolioSortKey): Comparable {
+	if (isFigureColumn(key)) {
+		const value = row.figures[key];
+		return value === null ? null : new Decimal(value);
+	}
+	// Live before archived, not by the word.
+	return key === 'status' ? statusOrder[row.status] : portfolioText(row, key);
 }
 
 function compareValues(a: Exclude<Comparable, null>, b: Exclude<Comparable, null>): number {
