@@ -31,7 +31,6 @@ import { VIEWABLE_KINDS } from './document-response';
 import { DEFAULT_TERMS_TEXT } from './terms';
 
 export const INVITATION_LINK_DAYS = 7;
-export const DEFAULT_TERMS = DEFAULT_TERMS_TEXT;
 
 export class RoomProblem extends Error {
 	constructor(
@@ -45,7 +44,7 @@ export class RoomProblem extends Error {
 
 export async function createRoomForProject(access: ProjectAccess, input: { name: string; terms: string }): Promise<RoomRow> {
 	requireFeature(access.membership, 'dataRooms', 'change');
-	return createRoom({ workspaceId: access.membership.workspaceId, projectId: access.project.id, name: input.name, terms: input.terms || DEFAULT_TERMS, createdBy: access.user.id });
+	return createRoom({ workspaceId: access.membership.workspaceId, projectId: access.project.id, name: input.name, terms: input.terms || DEFAULT_TERMS_TEXT, createdBy: access.user.id });
 }
 
 export async function publishVersion(access: RoomAccess, scenarioIds: readonly string[]): Promise<number> {

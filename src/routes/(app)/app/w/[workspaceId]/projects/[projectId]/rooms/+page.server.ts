@@ -3,7 +3,8 @@ import { z } from 'zod';
 import { authorize } from '$lib/server/auth/access';
 import { roleAtLeast } from '$lib/server/auth/roles';
 import { listRoomsOfProject } from '$lib/server/db/rooms';
-import { createRoomForProject, DEFAULT_TERMS } from '$lib/server/rooms/team';
+import { createRoomForProject } from '$lib/server/rooms/team';
+import { DEFAULT_TERMS_TEXT } from '$lib/server/rooms/terms';
 import { PlanRefusal } from '$lib/server/billing/gates';
 import { readForm } from '$lib/server/forms';
 import { planAllows } from '$lib/billing/plans';
@@ -20,7 +21,7 @@ export const load: PageServerLoad = async (event) => {
 		canCreate: roleAtLeast(membership.role, 'analyst') && plan.allowed,
 		planMessage: plan.allowed ? null : plan.message,
 		billingUrl: membership.role === 'owner' ? `/app/w/${membership.workspaceId}/billing` : null,
-		defaultTerms: DEFAULT_TERMS
+		defaultTerms: DEFAULT_TERMS_TEXT
 	};
 };
 
