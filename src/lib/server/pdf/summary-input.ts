@@ -57,3 +57,16 @@ export function teamCopyInput(source: TeamCopySource): ScenarioSummaryInput {
 export function summaryFileName(scenarioName: string, revision: number): string {
 	return `${fileStem(scenarioName)}-r${revision}-summary.pdf`;
 }
+
+/** The PDF as a download: its file name from the scenario, no sniffing, no shared caching. */
+export function summaryPdfResponse(pdf: Uint8Array, scenarioName: string, revision: number): Response {
+	return new Response(new Uint8Array(pdf), {
+		headers: {
+			'content-type': 'application/pdf',
+			'content-disposition': `attachment; filename="${summaryFileName(scenarioName, revision)}"`,
+			'content-length': String(pdf.byteLength),
+			'x-content-type-options': 'nosniff',
+			'cache-control': 'private, no-store'
+		}
+	});
+}

@@ -5,7 +5,7 @@
  */
 import type { RoomVersion } from '../db/rooms';
 import type { ScenarioSummaryInput } from '../pdf/summary';
-import { summaryFileName, summaryNoteSlugs } from '../pdf/summary-input';
+import { summaryNoteSlugs } from '../pdf/summary-input';
 import type { Technology } from '../../technology';
 
 export function roomSummaryInput(roomName: string, version: RoomVersion, position: number, stamp: { email: string; at: Date } | null): ScenarioSummaryInput {
@@ -25,20 +25,4 @@ export function roomSummaryInput(roomName: string, version: RoomVersion, positio
 		edition: { label: `Data room ${roomName}, version ${version.version}`, date: version.publishedAt },
 		...(stamp ? { stamp } : {})
 	};
-}
-
-export function roomSummaryFileName(scenarioName: string, revision: number): string {
-	return summaryFileName(scenarioName, revision);
-}
-
-export function pdfResponse(pdf: Uint8Array, fileName: string): Response {
-	return new Response(new Uint8Array(pdf), {
-		headers: {
-			'content-type': 'application/pdf',
-			'content-disposition': `attachment; filename="${fileName}"`,
-			'content-length': String(pdf.byteLength),
-			'x-content-type-options': 'nosniff',
-			'cache-control': 'private, no-store'
-		}
-	});
 }

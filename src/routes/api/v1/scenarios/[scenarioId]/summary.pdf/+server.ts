@@ -5,7 +5,7 @@ import { resultOfSavedScenario } from '$lib/server/workbench/stored-results';
 import { defaultDrivers } from '$lib/server/engine/sensitivity';
 import { renderSummaryPdfOnPool, tornadoOnPool } from '$lib/server/compute/pool';
 import { takeComputeAllowance } from '$lib/server/compute/limits';
-import { summaryFileName, teamCopyInput } from '$lib/server/pdf/summary-input';
+import { summaryPdfResponse, teamCopyInput } from '$lib/server/pdf/summary-input';
 import type { RequestHandler } from './$types';
 
 /**
@@ -32,11 +32,5 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 			date: new Date()
 		})
 	);
-	return new Response(pdf, {
-		headers: {
-			'content-type': 'application/pdf',
-			'content-disposition': `attachment; filename="${summaryFileName(scenario.name, scenario.revision)}"`,
-			'content-length': String(pdf.byteLength)
-		}
-	});
+	return summaryPdfResponse(pdf, scenario.name, scenario.revision);
 });

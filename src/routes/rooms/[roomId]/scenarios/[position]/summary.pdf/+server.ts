@@ -2,7 +2,8 @@ import { error } from '@sveltejs/kit';
 import { guestRoom } from '$lib/server/rooms/guest-access';
 import { recordRoomEvent } from '$lib/server/db/rooms';
 import { renderSummaryPdfOnPool } from '$lib/server/compute/pool';
-import { pdfResponse, roomSummaryFileName, roomSummaryInput } from '$lib/server/rooms/room-pdf';
+import { roomSummaryInput } from '$lib/server/rooms/room-pdf';
+import { summaryPdfResponse } from '$lib/server/pdf/summary-input';
 import type { RequestHandler } from './$types';
 
 /** An investor's copy of a published scenario's PDF summary, stamped with their address and the time. */
@@ -13,5 +14,5 @@ export const GET: RequestHandler = async (event) => {
 	if (!version || !Number.isInteger(position) || !scenario) error(404, 'No such scenario in this room.');
 	const pdf = await renderSummaryPdfOnPool(roomSummaryInput(room.name, version, position, { email: guest.email, at: new Date() }));
 	await recordRoomEvent({ roomId: room.id, version: version.version, guestId: guest.id, kind: 'pdf-download', targetId: scenario.id, targetName: `${scenario.name} (PDF)` });
-	return pdfResponse(pdf, roomSummaryFileName(scenario.name, scenario.revision));
+	return summaryPdfResponse(pdf, scenario.name, scenario.revision);
 };

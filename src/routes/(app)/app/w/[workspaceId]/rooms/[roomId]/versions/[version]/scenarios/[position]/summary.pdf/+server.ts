@@ -2,7 +2,8 @@ import { error } from '@sveltejs/kit';
 import { authorize } from '$lib/server/auth/access';
 import { getRoom, getRoomVersion } from '$lib/server/db/rooms';
 import { renderSummaryPdfOnPool } from '$lib/server/compute/pool';
-import { pdfResponse, roomSummaryFileName, roomSummaryInput } from '$lib/server/rooms/room-pdf';
+import { roomSummaryInput } from '$lib/server/rooms/room-pdf';
+import { summaryPdfResponse } from '$lib/server/pdf/summary-input';
 import type { RequestHandler } from './$types';
 
 /** The team's copy of a published scenario's PDF, exactly as the version froze it (unstamped). */
@@ -15,5 +16,5 @@ export const GET: RequestHandler = async (event) => {
 	if (!version || !Number.isInteger(position) || !scenario) error(404, 'No such scenario in this version.');
 	const room = (await getRoom(event.params.roomId))!;
 	const pdf = await renderSummaryPdfOnPool(roomSummaryInput(room.name, version, position, null));
-	return pdfResponse(pdf, roomSummaryFileName(scenario.name, scenario.revision));
+	return summaryPdfResponse(pdf, scenario.name, scenario.revision);
 };
