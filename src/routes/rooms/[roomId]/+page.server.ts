@@ -1,7 +1,7 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { guestRoom } from '$lib/server/rooms/guest-access';
-import { insertQuestion, listRoomDocuments, recordRoomEvent, getRoom } from '$lib/server/db/rooms';
+import { insertQuestion, listRoomDocuments, recordRoomEvent } from '$lib/server/db/rooms';
 import { questionsForGuest } from '$lib/server/rooms/team';
 import { listMembers } from '$lib/server/db/memberships';
 import { sendMail } from '$lib/server/mail/mailer';
@@ -53,10 +53,9 @@ export const actions: Actions = {
 		await insertQuestion(room.id, guest.id, parsed.data.question);
 		const origin = event.url.origin;
 		void afterResponse('Telling the team about a room question', async () => {
-			const current = (await getRoom(room.id))!;
-			const team = (await listMembers(current.workspace_id)).filter((m) => m.role !== 'viewer');
+			const team = (await listMembers(room.workspace_id)).filter((m) => m.role !== 'viewer');
 			for (const member of team) {
-				await sendMail(member.email, roomQuestionMessage({ roomName: current.name, askedBy: guest.email, question: parsed.data.question, url: `${origin}/app/w/${current.workspace_id}/rooms/${current.id}` }));
+				await sendMail(member.email, roomQuestionMessage({ roomName: room.name, askedBy: guest.email, question: parsed.data.question, url: `${origin}/app/w/${room.workspace_id}/rooms/${room.id}` }));
 			}
 		});
 		return { question: '', message: null, asked: true };
