@@ -609,6 +609,11 @@ export type Decommissioning = Scenario['decommissioning'];
 export type Grant = Scenario['revenue']['grants'][number];
 export type DebtSpec = Scenario['finance']['debt'];
 
+/** The DSCR the debt is sized to, when it is sized to one (charts draw it as the target line). */
+export function targetDscrOf(debt: DebtSpec): number | null {
+	return debt.sizing === 'target-dscr' ? debt.targetDscr : null;
+}
+
 export type ScenarioIssue = { path: string; message: string };
 /**
  * `upgradedFrom`: the version the document was written in when it was older

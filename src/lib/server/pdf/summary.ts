@@ -13,7 +13,7 @@ import PDFDocument from 'pdfkit';
 import { METRIC_LIST, metricUnit } from '../../metrics/catalogue';
 import { formatMetric } from '../../metrics/format';
 import { technologyLabels, type Technology } from '../../technology';
-import type { Scenario } from '../../schemas/scenario';
+import { targetDscrOf, type Scenario } from '../../schemas/scenario';
 import type { EngineResult } from '../engine/evaluate';
 import type { TornadoResult } from '../engine/sensitivity';
 import { assumptionSections } from './assumptions';
@@ -255,10 +255,9 @@ function charts(flow: PageFlow, input: ScenarioSummaryInput): void {
 	};
 	place(310, (box) => drawEnergyChart(doc, box, result.energy));
 	place(300, (box) => drawCashFlowChart(doc, box, result.cashFlow, result.currency));
-	const debt = document.finance.debt;
 	const anyCover = result.cashFlow.some((row) => row.phase === 'operation' && row.dscr !== null);
 	// Without debt service the DSCR chart is a sentence, not an empty frame.
-	place(anyCover ? 260 : 44, (box) => drawDscrChart(doc, box, result.cashFlow, debt.sizing === 'target-dscr' ? debt.targetDscr : null));
+	place(anyCover ? 260 : 44, (box) => drawDscrChart(doc, box, result.cashFlow, targetDscrOf(document.finance.debt)));
 	const tornado = input.tornado;
 	if (tornado) place(Math.min(flow.bottom - flow.top - 40, 100 + tornado.rows.length * 22), (box) => drawTornadoChart(doc, box, tornado, result.currency));
 	doc.x = flow.left;

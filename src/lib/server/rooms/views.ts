@@ -5,11 +5,11 @@
  */
 import type { RoomVersion } from '../db/rooms';
 import { assumptionSections } from '../pdf/assumptions';
+import { targetDscrOf } from '../../schemas/scenario';
 
 export function snapshotScenarioView(version: RoomVersion, position: number) {
 	const snapshot = version.snapshot;
 	const scenario = snapshot.scenarios[position - 1];
-	const debt = scenario.document.finance.debt;
 	return {
 		version: { number: version.version, publishedAt: version.publishedAt.toISOString(), engineVersion: snapshot.engineVersion },
 		project: snapshot.project,
@@ -21,7 +21,7 @@ export function snapshotScenarioView(version: RoomVersion, position: number) {
 			revision: scenario.revision,
 			isBaseCase: scenario.isBaseCase,
 			result: scenario.result,
-			targetDscr: debt && debt.sizing === 'target-dscr' ? debt.targetDscr : null,
+			targetDscr: targetDscrOf(scenario.document.finance.debt),
 			assumptions: assumptionSections(scenario.document, scenario.result)
 		},
 		methodNotes: snapshot.methodNotes,
