@@ -43,7 +43,8 @@ interface Node {
 
 const root = scenarioSchema as unknown as Node;
 
-function valueAt(document: unknown, path: FieldPath): unknown {
+/** The value at a field path in a document (undefined when the path runs out). */
+export function valueAt(document: unknown, path: FieldPath): unknown {
 	let current: unknown = document;
 	for (const key of path) {
 		if (current === null || typeof current !== 'object') return undefined;

@@ -11,7 +11,7 @@ import { groupDigits } from '../../metrics/format';
 import { METRICS } from '../../metrics/catalogue';
 import { technologyLabels } from '../../technology';
 import { unitOf } from '../../workbench/field-units';
-import type { FieldPath } from '../../workbench/schema-fields';
+import { valueAt, type FieldPath } from '../../workbench/schema-fields';
 import type { Scenario } from '../../schemas/scenario';
 import type { EngineResult } from '../engine/evaluate';
 import type { TableColumn } from './tables';
@@ -42,15 +42,6 @@ const MAX_PLACES = 6;
 export function plainNumber(value: DecimalJs.Value): string {
 	const d = new Decimal(value).toDecimalPlaces(MAX_PLACES, Decimal.ROUND_HALF_EVEN);
 	return groupDigits(d, d.decimalPlaces());
-}
-
-function valueAt(document: unknown, path: FieldPath): unknown {
-	let current: unknown = document;
-	for (const key of path) {
-		if (current === null || typeof current !== 'object') return undefined;
-		current = (current as Record<string | number, unknown>)[key];
-	}
-	return current;
 }
 
 /**
