@@ -7,7 +7,7 @@ import type { Knex } from 'knex';
 import type { Cookies } from '@sveltejs/kit';
 import { db } from '../db/knex';
 import { generateRandomToken, hashToken } from './tokens';
-import type { PlanStatus } from '../../billing/plans';
+import type { WorkspaceMembership } from '../db/memberships';
 import { cachedSession, forgetCachedSessions, rememberSession } from './session-cache';
 
 export const SESSION_COOKIE = 'tw_session';
@@ -29,16 +29,8 @@ export interface SessionUser {
 	emailVerified: boolean;
 }
 
-/** A member's workspaces and role in each, read with the session so a page view costs one query. */
-export interface SessionMembership {
-	workspaceId: string;
-	workspaceName: string;
-	workspaceSlug: string;
-	plan: string;
-	planStatus: PlanStatus;
-	pastDueSince: string | null;
-	role: 'owner' | 'analyst' | 'viewer';
-}
+/** A member's workspaces, role and plan standing in each, read with the session so a page view costs one query. */
+export type SessionMembership = WorkspaceMembership;
 
 export type SessionValidation =
 	| { session: Session; user: SessionUser; memberships: SessionMembership[]; /** the expiry moved: send the cookie again */ extended: boolean }
