@@ -133,14 +133,19 @@ export interface SeatChangePreview {
 	nextRenewal: Date | null;
 }
 
-/** What a new seat count costs, before the owner confirms it. */
-export async function previewSeatChange(workspaceId: string, seats: number): Promise<SeatChangePreview> {
+/** The live subscription, its price and its one item, once the new seat count is known to fit the plan and the seats in use. */
+async function seatChange(workspaceId: string, seats: number) {
 	const { account, subscription } = await liveSubscription(workspaceId);
 	const price = account.priceLookupKey ? await getPlanPrice(account.priceLookupKey) : undefined;
 	if (!price) throw new Error(`No offered price for ${account.priceLookupKey}`);
 	const holders = await seatHolders(workspaceId);
 	checkSeatCount(price.plan, seats, seatsUsed(holders), holderNames(holders));
-	const item = subscription.items.data[0];
+	return { account, subscription, price, item: subscription.items.data[0] };
+}
+
+/** What a new seat count costs, before the owner confirms it. */
+export async function previewSeatChange(workspaceId: string, seats: number): Promise<SeatChangePreview> {
+	const { account, subscription, price, item } = await seatChange(workspaceId, seats);
 	const preview = await stripe().invoices.createPreview({
 		customer: account.customerId,
 		subscription: subscription.id,
@@ -159,12 +164,7 @@ export async function previewSeatChange(workspaceId: string, seats: number): Pro
 
 /** Changes the seat count; the difference for the rest of the period is invoiced at once. */
 export async function changeSeats(workspaceId: string, seats: number): Promise<void> {
-	const { account, subscription } = await liveSubscription(workspaceId);
-	const price = account.priceLookupKey ? await getPlanPrice(account.priceLookupKey) : undefined;
-	if (!price) throw new Error(`No offered price for ${account.priceLookupKey}`);
-	const holders = await seatHolders(workspaceId);
-	checkSeatCount(price.plan, seats, seatsUsed(holders), holderNames(holders));
-	const item = subscription.items.data[0];
+	const { subscription, item } = await seatChange(workspaceId, seats);
 	await stripe().subscriptions.update(subscription.id, {
 		items: [{ id: item.id, quantity: seats }],
 		proration_behavior: 'always_invoice'
