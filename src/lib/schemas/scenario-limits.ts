@@ -29,7 +29,9 @@ export const SCENARIO_LIMITS = {
 	/** timeline.operatingYears */
 	operatingYears: 60,
 	/** finance.depreciation.lifeYears */
-	depreciationLifeYears: 100
+	depreciationLifeYears: 100,
+	/** finance.debt.downsideCases: P90 and P99 are the usual ones */
+	downsideCases: 4
 } as const;
 
 export type ScenarioLimit = keyof typeof SCENARIO_LIMITS;
@@ -48,7 +50,8 @@ export const SCENARIO_LIMIT_WORDS: Record<ScenarioLimit, string> = {
 	exceedanceLevels: 'exceedance levels',
 	constructionYears: 'construction years',
 	operatingYears: 'operating years',
-	depreciationLifeYears: 'years of depreciation life'
+	depreciationLifeYears: 'years of depreciation life',
+	downsideCases: 'downside sizing cases'
 };
 
 /** `at most 1000 speed bins` */

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { Decimal } from '../server/engine/decimal';
 import { parseScenario } from './scenario';
-import { OLDEST_SCHEMA_VERSION, SCHEMA_VERSION, upgradeScenarioDocument, upgradeSteps, upgradeV1ToV2 } from './scenario-upgrades';
+import { OLDEST_SCHEMA_VERSION, SCHEMA_VERSION, upgradeScenarioDocument, upgradeSteps, upgradeV1ToV2, upgradeV2ToV3 } from './scenario-upgrades';
 import { evaluateScenario } from '../server/engine/evaluate';
 import { atbCaseInput } from '../server/engine/testing/fixtures';
 
@@ -91,14 +91,44 @@ describe('upgradeV1ToV2', () => {
 	});
 });
 
+describe('upgradeV2ToV3', () => {
+	const debt = { sizing: 'gearing', gearing: 0.6, interestRate: 0.06, tenorYears: 10 };
+
+	it('writes out the pro-rata funding version 2 used, on debt only', () => {
+		const { document, notes } = upgradeV2ToV3.upgrade({ schemaVersion: 2, finance: { taxRate: 0.2, debt } });
+		expect(document).toEqual({ schemaVersion: 3, finance: { taxRate: 0.2, debt: { ...debt, fundingOrder: 'pro-rata' } } });
+		expect(notes).toEqual(['finance.debt.fundingOrder set to "pro-rata", how version 2 funded construction']);
+		expect(upgradeV2ToV3.upgrade({ schemaVersion: 2, finance: { debt: { sizing: 'none' } } }).notes).toEqual([]);
+		expect(upgradeV2ToV3.upgrade({ schemaVersion: 2, finance: { debt: { ...debt, fundingOrder: 'equity-first' } } }).notes).toEqual([]);
+	});
+
+	it('keeps a partly indexed tariff growing at a share of inflation; full or no indexation needs nothing', () => {
+		const partly = upgradeV2ToV3.upgrade({ schemaVersion: 2, revenue: { tariffPerMWh: 200, tariffIndexation: 0.5 } });
+		expect(partly.document).toEqual({ schemaVersion: 3, revenue: { tariffPerMWh: 200, tariffIndexation: 0.5, indexationMethod: 'scaled-inflation' } });
+		expect(partly.notes).toEqual(['revenue.indexationMethod set to "scaled-inflation": version 2 grew the tariff at 0.5 x inflation']);
+		for (const share of [0, 1, undefined]) {
+			expect(upgradeV2ToV3.upgrade({ schemaVersion: 2, revenue: { tariffPerMWh: 200, tariffIndexation: share } }).notes).toEqual([]);
+		}
+	});
+
+	it('does not change the document it was given', () => {
+		const input = { schemaVersion: 2, finance: { debt: { ...debt } }, revenue: { tariffIndexation: 0.3 } };
+		const copy = structuredClone(input);
+		upgradeV2ToV3.upgrade(input);
+		expect(input).toEqual(copy);
+	});
+});
+
 describe('upgradeScenarioDocument', () => {
 	it('runs every step from the document’s own version and reports which', () => {
 		const outcome = upgradeScenarioDocument(version1);
-		expect(outcome).toEqual({ ok: true, document: version2, upgradedFrom: 1, notes: expect.arrayContaining([expect.stringMatching(/^decommissioning/)]) });
+		const version3 = upgradeV2ToV3.upgrade(version2).document;
+		expect(outcome).toEqual({ ok: true, document: version3, upgradedFrom: 1, notes: expect.arrayContaining([expect.stringMatching(/^decommissioning/)]) });
 	});
 
 	it('returns a current document as it is', () => {
-		expect(upgradeScenarioDocument(version2)).toEqual({ ok: true, document: version2, upgradedFrom: null, notes: [] });
+		const version3 = { ...version2, schemaVersion: 3 };
+		expect(upgradeScenarioDocument(version3)).toEqual({ ok: true, document: version3, upgradedFrom: null, notes: [] });
 	});
 
 	it('refuses a missing, malformed or newer version, and anything but an object', () => {

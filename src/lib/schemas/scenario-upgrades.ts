@@ -15,7 +15,7 @@
  */
 
 /** The version this code writes. */
-export const SCHEMA_VERSION = 2 as const;
+export const SCHEMA_VERSION = 3 as const;
 /** The oldest version this code still reads. */
 export const OLDEST_SCHEMA_VERSION = 1;
 
@@ -83,8 +83,46 @@ export const upgradeV1ToV2: UpgradeStep = {
 	}
 };
 
+/**
+ * Version 2 -> 3: two choices version 2 made silently are written out, so a
+ * version 2 document reads as it always did while version 3 defaults differ.
+ * - Debt was funded in step with equity (pro rata); version 3 defaults to
+ *   equity first: `finance.debt.fundingOrder: "pro-rata"` on any debt.
+ * - A tariff indexed to a share s of inflation grew at (1 + s i); version 3
+ *   defaults to indexing a share s of the price: for 0 < s < 1 the two differ,
+ *   so `revenue.indexationMethod: "scaled-inflation"` is set (at 0 and 1 they
+ *   agree and nothing is written).
+ * Construction timing is not kept: booking a year's spend at its end was a
+ * flaw of the engine, not a choice of the document, and version 3 evaluates
+ * every document with the spend spread through the year (mid-year unless the
+ * document says otherwise).
+ */
+export const upgradeV2ToV3: UpgradeStep = {
+	from: 2,
+	summary:
+		'finance.debt.fundingOrder "pro-rata" written on debt; revenue.indexationMethod "scaled-inflation" written when 0 < revenue.tariffIndexation < 1',
+	upgrade(document) {
+		const notes: string[] = [];
+		const next: RawDocument = { ...document, schemaVersion: 3 };
+		const finance = document.finance;
+		if (isObject(finance) && isObject(finance.debt) && finance.debt.sizing !== undefined && finance.debt.sizing !== 'none' && !('fundingOrder' in finance.debt)) {
+			next.finance = { ...finance, debt: { ...finance.debt, fundingOrder: 'pro-rata' } };
+			notes.push('finance.debt.fundingOrder set to "pro-rata", how version 2 funded construction');
+		}
+		const revenue = document.revenue;
+		if (isObject(revenue) && !('indexationMethod' in revenue)) {
+			const share = revenue.tariffIndexation;
+			if (typeof share === 'number' && share > 0 && share < 1) {
+				next.revenue = { ...revenue, indexationMethod: 'scaled-inflation' };
+				notes.push(`revenue.indexationMethod set to "scaled-inflation": version 2 grew the tariff at ${share} x inflation`);
+			}
+		}
+		return { document: next, notes };
+	}
+};
+
 /** Every step, oldest first: step i reads version OLDEST_SCHEMA_VERSION + i. */
-export const upgradeSteps: readonly UpgradeStep[] = [upgradeV1ToV2];
+export const upgradeSteps: readonly UpgradeStep[] = [upgradeV1ToV2, upgradeV2ToV3];
 
 export type UpgradeOutcome =
 	| { ok: true; document: RawDocument; upgradedFrom: number | null; notes: string[] }
