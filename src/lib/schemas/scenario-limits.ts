@@ -31,7 +31,9 @@ export const SCENARIO_LIMITS = {
 	/** finance.depreciation.lifeYears */
 	depreciationLifeYears: 100,
 	/** finance.debt.downsideCases: P90 and P99 are the usual ones */
-	downsideCases: 4
+	downsideCases: 4,
+	/** revenue.indexationBaseYearsBeforeCod: a tariff priced at bid or financial close, a few years before COD */
+	indexationBaseYears: 20
 } as const;
 
 export type ScenarioLimit = keyof typeof SCENARIO_LIMITS;
@@ -51,7 +53,8 @@ export const SCENARIO_LIMIT_WORDS: Record<ScenarioLimit, string> = {
 	constructionYears: 'construction years',
 	operatingYears: 'operating years',
 	depreciationLifeYears: 'years of depreciation life',
-	downsideCases: 'downside sizing cases'
+	downsideCases: 'downside sizing cases',
+	indexationBaseYears: 'years between the indexation base year and COD'
 };
 
 /** `at most 1000 speed bins` */
