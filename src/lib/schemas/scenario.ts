@@ -392,9 +392,28 @@ const revenueSchema = z
 	.strictObject({
 		tariffPerMWh: nonNegative('Support tariff or PPA price, currency per MWh, real (COD-year prices)'),
 		supportYears: wholeYears('Operating years the tariff applies, then the merchant price', 0),
-		tariffIndexation: fraction('Share of inflation the tariff is indexed to (1 = fully indexed, 0 = flat nominal)').default(
-			1
-		),
+		tariffIndexation: fraction(
+			'How much of the tariff is indexed (1 = fully indexed, 0 = flat nominal); its meaning between 0 and 1 is set by indexationMethod'
+		).default(1),
+		indexationMethod: z
+			.enum(['indexed-share', 'scaled-inflation'])
+			.describe(
+				'indexed-share: a share tariffIndexation of the price grows with the tariff inflation and the rest stays fixed in money; scaled-inflation: the whole price grows at tariffIndexation x the tariff inflation'
+			)
+			.default('indexed-share'),
+		indexationBaseYearsBeforeCod: wholeYears(
+			'Whole years from the indexation base year (the year whose prices the tariff is given in) to COD; the tariff is indexed from that year',
+			0
+		)
+			.max(SCENARIO_LIMITS.indexationBaseYears, atMost('indexationBaseYears'))
+			.default(0),
+		tariffInflation: z
+			.number()
+			.min(-0.05)
+			.max(0.5)
+			.optional()
+			.describe('Inflation of the index the tariff and merchant price follow, per year (fraction); absent = finance.inflation'),
+		curtailment: fraction('Share of the net energy the grid does not take and nobody pays for').default(0),
 		merchantPricePerMWh: nonNegative('Merchant price after the support period, currency per MWh, real').default(0),
 		merchantEscalation: escalation,
 		grants: z
