@@ -102,6 +102,47 @@ describe('parseScenario', () => {
 	});
 });
 
+describe('parseScenario: reserves and covenants', () => {
+	const issuesOf = (patch: (doc: Record<string, any>) => void) => {
+		const r = withPatch(patch);
+		return r.ok ? [] : r.issues;
+	};
+
+	it('leaves both out when absent, and fills the stated defaults when present', () => {
+		const absent = parseScenario(atbCaseInput);
+		expect(absent.ok && [absent.scenario.finance.reserves, absent.scenario.finance.covenants]).toEqual([undefined, undefined]);
+		const r = withPatch((d) => {
+			d.finance.reserves = { debtService: {}, maintenance: {} };
+			d.finance.covenants = { cashSweep: { share: 0.5 } };
+		});
+		if (!r.ok) throw new Error(JSON.stringify(r.issues));
+		expect(r.scenario.finance.reserves).toEqual({ debtService: { months: 6, funding: 'from-funding' }, maintenance: {} });
+		expect(r.scenario.finance.covenants).toEqual({ cashSweep: { share: 0.5, when: 'always' } });
+	});
+
+	it('refuses a default DSCR above the lock-up DSCR, naming the default', () => {
+		expect(issuesOf((d) => (d.finance.covenants = { lockUpDscr: 1.1, defaultDscr: 1.2 }))).toEqual([
+			{ path: 'finance.covenants.defaultDscr', message: 'the default DSCR (1.2) must not exceed the lock-up DSCR (1.1)' }
+		]);
+		expect(issuesOf((d) => (d.finance.covenants = { lockUpDscr: 1.2, defaultDscr: 1.2 }))).toEqual([]);
+		expect(issuesOf((d) => (d.finance.covenants = { defaultDscr: 0.9 }))[0].path).toBe('finance.covenants.defaultDscr');
+	});
+
+	it('refuses a sweep in lock-up without a lock-up DSCR', () => {
+		expect(issuesOf((d) => (d.finance.covenants = { cashSweep: { share: 1, when: 'in-lock-up' } }))).toEqual([
+			{ path: 'finance.covenants.cashSweep.when', message: 'a sweep in lock-up needs a lock-up DSCR (finance.covenants.lockUpDscr)' }
+		]);
+	});
+
+	it('bounds the reserve sizes and funding years, naming the field', () => {
+		expect(issuesOf((d) => (d.finance.reserves = { debtService: { months: 25 } }))[0].path).toBe('finance.reserves.debtService.months');
+		expect(issuesOf((d) => (d.finance.reserves = { maintenance: { fundingYears: 2.5 } }))[0].path).toBe('finance.reserves.maintenance.fundingYears');
+		expect(issuesOf((d) => (d.finance.reserves = { decommissioning: { fundingYears: 21 } }))).toEqual([
+			{ path: 'finance.reserves.decommissioning.fundingYears', message: 'funding years (21) must not exceed the operating life (20 years)' }
+		]);
+	});
+});
+
 describe('parseScenario: unknown keys', () => {
 	const refusal = (patch: (doc: Record<string, any>) => void) => {
 		const r = withPatch(patch);

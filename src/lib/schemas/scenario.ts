@@ -458,6 +458,70 @@ const debtSchema = z
 	])
 	.describe('Senior debt: none, sized by gearing, or sized by a target DSCR (the lesser of that and the gearing cap)');
 
+const reservesSchema = z
+	.strictObject({
+		debtService: z
+			.strictObject({
+				months: z.number().min(0).max(24).describe("Target balance: this many months of the next year's debt service (0..24)").default(6),
+				funding: z
+					.enum(['from-funding', 'from-cash-flow'])
+					.describe(
+						'from-funding: filled in full at COD as a use of the construction funding; from-cash-flow: filled from the cash left after debt service, before any distribution'
+					)
+					.default('from-funding')
+			})
+			.optional()
+			.describe('Debt service reserve account: drawn when CFADS falls short of the debt service, topped up after, released as its target falls and at final maturity'),
+		maintenance: z
+			.strictObject({
+				fundingYears: wholeYears(
+					'Each periodic overhaul is funded in equal nominal contributions over this many operating years, ending in its own year (default: the overhaul interval)',
+					1
+				)
+					.max(SCENARIO_LIMITS.operatingYears, atMost('operatingYears'))
+					.optional()
+			})
+			.optional()
+			.describe('Maintenance reserve account for the periodic-overhaul opex lines: its contributions and draws are netted in CFADS'),
+		decommissioning: z
+			.strictObject({
+				fundingYears: wholeYears('The decommissioning cost is funded in equal nominal contributions over the last this many operating years', 1).max(
+					SCENARIO_LIMITS.operatingYears,
+					atMost('operatingYears')
+				)
+			})
+			.optional()
+			.describe('Decommissioning reserve account: funded ahead, drawn to pay the decommissioning in the final year; netted in CFADS')
+	})
+	.describe('Reserve accounts, left out when absent; they earn no interest');
+
+const covenantsSchema = z
+	.strictObject({
+		lockUpDscr: z
+			.number()
+			.min(1)
+			.max(5)
+			.optional()
+			.describe('Distribution lock-up: no distributions in a year whose DSCR is below this; the cash is held and released in the first later year at or above it, or at final maturity'),
+		defaultDscr: z
+			.number()
+			.min(1)
+			.max(5)
+			.optional()
+			.describe('Default covenant: a year whose DSCR is below this is flagged as an event of default (at most the lock-up DSCR)'),
+		cashSweep: z
+			.strictObject({
+				share: fraction('Share of the cash swept to prepay the loan'),
+				when: z
+					.enum(['always', 'in-lock-up'])
+					.describe('always: that share of the cash otherwise distributable, every year; in-lock-up: that share of the cash trapped in lock-up years')
+					.default('always')
+			})
+			.optional()
+			.describe('Cash sweep: prepays the loan from cash that would otherwise reach equity, so it is repaid sooner')
+	})
+	.describe('Covenants on the yearly DSCR while the loan is outstanding, left out when absent');
+
 const financeSchema = z
 	.strictObject({
 		inflation: z.number().min(-0.05).max(0.5).describe('Inflation per year (fraction)').default(0.02),
@@ -477,7 +541,9 @@ const financeSchema = z
 			.default({ method: 'straight-line', decliningBalanceFactor: 2 })
 			.describe('Tax depreciation of capex net of grants'),
 		taxLossCarryForward: z.boolean().describe('Carry tax losses forward against later profits').default(true),
-		debt: debtSchema.default({ sizing: 'none' })
+		debt: debtSchema.default({ sizing: 'none' }),
+		reserves: reservesSchema.optional(),
+		covenants: covenantsSchema.optional()
 	})
 	.describe('Rates, tax and debt');
 
@@ -529,6 +595,7 @@ export const scenarioSchema = scenarioObject.superRefine(
 		checkDevice(s.device, ctx);
 		checkPhasing(s, ctx);
 		checkFinance(s, ctx);
+		checkReservesAndCovenants(s, ctx);
 	},
 	// Cross-field checks need a structurally valid document; they run once the field errors are fixed.
 	{ when: (payload) => payload.issues.length === 0 }
@@ -619,6 +686,25 @@ function checkFinance(s: z.output<typeof scenarioObject>, ctx: RefineCtx) {
 	}
 }
 
+function checkReservesAndCovenants(s: z.output<typeof scenarioObject>, ctx: RefineCtx) {
+	const { reserves, covenants } = s.finance;
+	const life = s.timeline.operatingYears;
+	for (const account of ['maintenance', 'decommissioning'] as const) {
+		const years = reserves?.[account]?.fundingYears;
+		if (years !== undefined && years > life) {
+			flag(ctx, ['finance', 'reserves', account, 'fundingYears'], `funding years (${years}) must not exceed the operating life (${life} years)`);
+		}
+	}
+	if (!covenants) return;
+	const { lockUpDscr, defaultDscr, cashSweep } = covenants;
+	if (lockUpDscr !== undefined && defaultDscr !== undefined && defaultDscr > lockUpDscr) {
+		flag(ctx, ['finance', 'covenants', 'defaultDscr'], `the default DSCR (${defaultDscr}) must not exceed the lock-up DSCR (${lockUpDscr})`);
+	}
+	if (cashSweep?.when === 'in-lock-up' && lockUpDscr === undefined) {
+		flag(ctx, ['finance', 'covenants', 'cashSweep', 'when'], 'a sweep in lock-up needs a lock-up DSCR (finance.covenants.lockUpDscr)');
+	}
+}
+
 export type Scenario = z.output<typeof scenarioSchema>;
 export type ScenarioInput = z.input<typeof scenarioSchema>;
 export type Resource = Scenario['resource'];
@@ -627,6 +713,8 @@ export type OpexLine = Scenario['opex']['lines'][number];
 export type Decommissioning = Scenario['decommissioning'];
 export type Grant = Scenario['revenue']['grants'][number];
 export type DebtSpec = Scenario['finance']['debt'];
+export type ReservesSpec = NonNullable<Scenario['finance']['reserves']>;
+export type CovenantsSpec = NonNullable<Scenario['finance']['covenants']>;
 
 /** The DSCR the debt is sized to, when it is sized to one (charts draw it as the target line). */
 export function targetDscrOf(debt: DebtSpec): number | null {

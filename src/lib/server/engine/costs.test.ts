@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { dec, Decimal } from './decimal';
-import { capexSchedule, decommissioningCost, opexSchedule, totalOpex } from './costs';
+import { capexSchedule, decommissioningCost, opexSchedule, overhaulSchedules, totalOpex } from './costs';
 
 const ones = (n: number) => Array.from({ length: n }, () => dec(1));
 
@@ -73,6 +73,24 @@ describe('opexSchedule', () => {
 	it('adds revenue-share lines once revenue is known', () => {
 		const s = opexSchedule({ lines: [{ name: 'lease', basis: 'percent-of-revenue', fraction: 0.02 }] }, ctx);
 		expect(totalOpex(s, [dec(1000), dec(2000), dec(0), dec(0)]).map(String)).toEqual(['20', '40', '0', '0']);
+	});
+});
+
+describe('overhaulSchedules', () => {
+	it('gives the periodic-overhaul lines alone, with their interval, as opexSchedule prices them', () => {
+		const ctx = { installedKW: dec(1000), deviceCount: 5, capexRealTotal: dec(1), energyMWh: ones(4), priceIndex: [1.02, 1.0404, 1.061208, 1.08243216].map((x) => new Decimal(x)) };
+		const opex = {
+			lines: [
+				{ name: 'om', basis: 'fixed-per-year' as const, amount: 10, escalation: 0 },
+				{ name: 'o', basis: 'periodic-overhaul' as const, amount: 100, perDevice: true, intervalYears: 2, escalation: 0 }
+			]
+		};
+		const [overhaul, ...rest] = overhaulSchedules(opex, ctx);
+		expect(rest).toEqual([]);
+		expect(overhaul.intervalYears).toBe(2);
+		// Hand calculation: 100 x 5 devices x 1.0404 in year 2 only (year 4 is the final year).
+		expect(overhaul.nominal.map(String)).toEqual(['0', '520.2', '0', '0']);
+		expect(overhaul.nominal).toEqual(opexSchedule(opex, ctx).lines[1].nominal);
 	});
 });
 

@@ -127,12 +127,30 @@ export function opexSchedule(opex: Scenario['opex'], ctx: OpexContext): OpexSche
 			revenueShare = revenueShare.plus(line.fraction);
 			continue;
 		}
-		const index = escalatedIndex(ctx.priceIndex, line.escalation);
-		const nominal = lineRealAmounts(line, ctx).map((real, k) => real.times(index[k]));
+		const nominal = nominalAmounts(line, ctx);
 		nominal.forEach((v, k) => (revenueIndependent[k] = revenueIndependent[k].plus(v)));
 		lines.push({ name: line.name, nominal });
 	}
 	return { lines, revenueIndependent, revenueShareLines, revenueShare };
+}
+
+function nominalAmounts(line: Exclude<OpexLine, { basis: 'percent-of-revenue' }>, ctx: OpexContext): Decimal[] {
+	const index = escalatedIndex(ctx.priceIndex, line.escalation);
+	return lineRealAmounts(line, ctx).map((real, k) => real.times(index[k]));
+}
+
+export type OverhaulSchedule = { name: string; intervalYears: number; nominal: Decimal[] };
+
+/**
+ * The periodic-overhaul opex lines on their own, each with its interval and
+ * its nominal cost per operating year: the same amounts opexSchedule counts in
+ * the opex (A (x devices) x (1 + i)^k (1 + e)^k in years n, 2n, ... before the
+ * final year), for the maintenance reserve (./reserves). Source: common practice.
+ */
+export function overhaulSchedules(opex: Scenario['opex'], ctx: OpexContext): OverhaulSchedule[] {
+	return opex.lines.flatMap((line) =>
+		line.basis === 'periodic-overhaul' ? [{ name: line.name, intervalYears: line.intervalYears, nominal: nominalAmounts(line, ctx) }] : []
+	);
 }
 
 /** Total opex per year once revenue is known. */
