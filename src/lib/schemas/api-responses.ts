@@ -165,6 +165,9 @@ export const evaluationResultSchema = z.object({
 		grossAepMWh: decimalStringSchema,
 		lossFactor: decimalStringSchema,
 		netAepMWh: decimalStringSchema,
+		curtailment: decimalStringSchema.describe('Share of the net energy curtailed (revenue.curtailment): neither delivered nor paid for'),
+		curtailedAepMWh: decimalStringSchema.describe('Year-1 energy curtailed, MWh (net AEP x curtailment)'),
+		deliveredAepMWh: decimalStringSchema.describe('Year-1 energy delivered and sold, MWh (net AEP less curtailment): what revenue, per-MWh opex and the LCOE use'),
 		combinedSigma: decimalStringSchema,
 		exceedances: z.array(z.object({ label: z.string(), levelPercent: z.number(), aepMWh: decimalStringSchema, shareOfP50: decimalStringSchema })),
 		capacityFactor: decimalStringSchema.nullable(),
@@ -176,7 +179,12 @@ export const evaluationResultSchema = z.object({
 		grantsRealTotal: decimalStringSchema,
 		decommissioningNominal: decimalStringSchema
 	}),
-	rates: z.object({ inflation: decimalStringSchema, realDiscountRate: decimalStringSchema, nominalDiscountRate: decimalStringSchema }),
+	rates: z.object({
+		inflation: decimalStringSchema,
+		tariffInflation: decimalStringSchema.describe('Inflation the tariff and merchant price follow (revenue.tariffInflation, else inflation)'),
+		realDiscountRate: decimalStringSchema,
+		nominalDiscountRate: decimalStringSchema
+	}),
 	financing: z
 		.object({
 			sizedBy: z.enum(['gearing', 'target-dscr', 'gearing-cap']),

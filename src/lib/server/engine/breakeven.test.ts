@@ -32,6 +32,20 @@ describe('solveBreakevenTariff', () => {
 		expect(solved.tariffPerMWh.toNumber()).toBeLessThan(lcoe);
 	});
 
+	it('indexes the breakeven price to the tariff inflation when it differs from cost inflation', () => {
+		// The breakeven is a fully indexed tariff: p x (1 + j)^k with j the tariff inflation (3.5 %), costs at 2 %.
+		// Revenue rising faster than costs needs a lower starting price than the real LCOE (which it equals at j = i).
+		const s = atbCase({ finance: { inflation: 0.02 }, revenue: { tariffInflation: 0.035 } });
+		const prep = prepareCase(s, estimateEnergy(s));
+		const solved = solveBreakevenTariff(prep);
+		if (solved.tariffPerMWh === null) throw new Error(solved.reason);
+		expect(operate(prep, flatRealPricePath(solved.tariffPerMWh, prep.tariffPriceIndex)).npv.abs().toNumber()).toBeLessThan(1e-6);
+		const same = atbCase({ finance: { inflation: 0.02 } });
+		const atGeneral = solveBreakevenTariff(prepareCase(same, estimateEnergy(same)));
+		if (atGeneral.tariffPerMWh === null) throw new Error(atGeneral.reason);
+		expect(solved.tariffPerMWh.lt(atGeneral.tariffPerMWh)).toBe(true);
+	});
+
 	it('says why when there is no energy', () => {
 		const s = atbCase({ array: { availability: 0 } });
 		const solved = solveBreakevenTariff(prepareCase(s, estimateEnergy(s)));

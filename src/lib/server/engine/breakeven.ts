@@ -1,7 +1,7 @@
 /**
- * Breakeven tariff: the flat real price per MWh, paid in every operating year
- * (indexed to inflation), at which the project's post-tax NPV at the discount
- * rate is zero.
+ * Breakeven tariff: the flat price per MWh in COD-year money, paid in every
+ * operating year and indexed like a fully indexed tariff (to the tariff
+ * inflation), at which the project's post-tax NPV at the discount rate is zero.
  */
 import { dec, Decimal, ONE, ZERO } from './decimal';
 import { solveRoot } from './finance/roots';
@@ -13,7 +13,7 @@ import { corporateTax } from './tax';
  * numbers of cashflow.operate, with everything that does not move with p
  * computed once.
  *
- *     EBITDA_k(p) = p x E_k x (1 + i)^k x (1 - revenue-share opex) - other opex_k
+ *     EBITDA_k(p) = p x E_k x (1 + j)^k x (1 - revenue-share opex) - other opex_k   (j tariff inflation)
  *     NPV(p) = -sum_j F_j DF_j + sum_k DF_k (EBITDA_k(p) - decommissioning_k - tax_k(p))
  */
 export function flatTariffNpv(prep: CasePreparation): (pricePerMWh: Decimal) => Decimal {
@@ -21,7 +21,7 @@ export function flatTariffNpv(prep: CasePreparation): (pricePerMWh: Decimal) => 
 	const df = prep.nominalDiscountFactors;
 	const n = prep.timeline.operatingYears;
 	const keep = ONE.minus(prep.opex.revenueShare);
-	const netRevenuePerUnitPrice = prep.energyMWh.map((e, k) => e.times(prep.priceIndex.operation[k]).times(keep));
+	const netRevenuePerUnitPrice = prep.energyMWh.map((e, k) => e.times(prep.tariffPriceIndex[k]).times(keep));
 	const decommissioning = Array.from({ length: n }, (_, k) => (k === n - 1 ? prep.decommissioning : ZERO));
 	const cashCosts = prep.opex.revenueIndependent.map((o, k) => o.plus(decommissioning[k]));
 	const deductions = cashCosts.map((c, k) => c.plus(prep.depreciation[k]));
@@ -48,7 +48,8 @@ const MAX_SECANT_STEPS = 12;
  * NPV(p) is affine in the flat real tariff p (revenue and revenue-share opex are
  * linear in p) except where tax switches on or losses are carried forward,
  * which makes it piecewise linear and increasing. So: two evaluations near
- * the guess (the real LCOE, which is the answer when there is no tax) give the
+ * the guess (the real LCOE, which is the answer when there is no tax or grant
+ * and the tariff follows general inflation) give the
  * line, its root is checked, and secant steps (each landing on the next
  * linear piece) finish it; Brent's method (finance/roots)
  * is the fallback on a bracket. Tolerance: |NPV| below 1e-6 currency units or
@@ -62,7 +63,7 @@ export function solveBreakevenTariff(prep: CasePreparation, guessPerMWh: Decimal
 		evaluations++;
 		return npv(p);
 	};
-	if (prep.energy.netAepMWh.isZero()) return { tariffPerMWh: null, evaluations, reason: 'no energy is produced, so no tariff can pay for the project' };
+	if (prep.deliveredAepMWh.isZero()) return { tariffPerMWh: null, evaluations, reason: 'no energy is delivered, so no tariff can pay for the project' };
 
 	// Start near the answer (the real LCOE is the breakeven without tax), so the first line is the right piece.
 	let a = guessPerMWh && guessPerMWh.gt(0) ? guessPerMWh : dec(100);

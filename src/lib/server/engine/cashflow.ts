@@ -19,7 +19,7 @@ import { nominalFromReal } from './finance/rates';
 import { depreciationSchedule } from './finance/depreciation';
 import { buildTimeline, discountFactorsOnTimeline, powersOnTimeline, presentValue, type Timeline, type TimeSeries } from './timeline';
 import { capexSchedule, decommissioningCost, opexSchedule, totalOpex, type CapexSchedule, type OpexSchedule } from './costs';
-import { grantSchedule, revenueByYear } from './revenue';
+import { deliveredEnergy, grantSchedule, revenueByYear, tariffInflationOf } from './revenue';
 import { corporateTax } from './tax';
 import { structureDebt, type DebtStructure } from './debt';
 import { sculptedLoan } from './finance/loans';
@@ -32,11 +32,17 @@ export type CasePreparation = {
 	realDiscountRate: Decimal;
 	nominalDiscountRate: Decimal;
 	priceIndex: TimeSeries;
+	/** Inflation of the tariff and merchant price (revenue.tariffInflation, else the general rate). */
+	tariffInflation: Decimal;
+	/** (1 + tariff inflation)^k for operating years k: the index a fully indexed COD-year price follows. */
+	tariffPriceIndex: Decimal[];
 	/** 1 / price index: turns nominal amounts back into COD-year money. */
 	priceDeflator: TimeSeries;
 	realDiscountFactors: TimeSeries;
 	nominalDiscountFactors: TimeSeries;
-	/** Net P50 energy delivered in each operating year (after degradation), MWh. */
+	/** Year-1 net P50 energy less curtailment (revenue.curtailment), before degradation, MWh. */
+	deliveredAepMWh: Decimal;
+	/** Net P50 energy delivered in each operating year (after curtailment and degradation), MWh. */
 	energyMWh: Decimal[];
 	capex: CapexSchedule;
 	grants: { realTotal: Decimal; nominal: Decimal[]; capped: boolean };
@@ -58,7 +64,9 @@ export function prepareCase(scenario: Scenario, energy: EnergyEstimate): CasePre
 	const realDiscountRate = dec(scenario.finance.realDiscountRate);
 	const nominalDiscountRate = nominalFromReal(realDiscountRate, inflation);
 	const priceIndex = powersOnTimeline(ONE.plus(inflation), timeline);
-	const energyMWh = degradationFactors(scenario.array.degradationPerYear, operatingYears).map((f) => f.times(energy.netAepMWh));
+	const tariffInflation = tariffInflationOf(scenario);
+	const deliveredAepMWh = deliveredEnergy(energy.netAepMWh, scenario.revenue.curtailment);
+	const energyMWh = degradationFactors(scenario.array.degradationPerYear, operatingYears).map((f) => f.times(deliveredAepMWh));
 	const capex = capexSchedule(scenario.capex, energy.installedCapacityKW, scenario.array.deviceCount, priceIndex.construction);
 	const grants = grantSchedule(scenario.revenue.grants, capex.realTotal, capex.real, priceIndex.construction);
 	if (grants.capped) warnings.push('Grants exceed capex; they were limited to the capex.');
@@ -87,9 +95,12 @@ export function prepareCase(scenario: Scenario, energy: EnergyEstimate): CasePre
 		realDiscountRate,
 		nominalDiscountRate,
 		priceIndex,
+		tariffInflation,
+		tariffPriceIndex: powersOnTimeline(ONE.plus(tariffInflation), timeline).operation,
 		priceDeflator: powersOnTimeline(ONE.div(ONE.plus(inflation)), timeline),
 		realDiscountFactors: discountFactorsOnTimeline(realDiscountRate, timeline),
 		nominalDiscountFactors: discountFactorsOnTimeline(nominalDiscountRate, timeline),
+		deliveredAepMWh,
 		energyMWh,
 		capex,
 		grants,

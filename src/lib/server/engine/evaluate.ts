@@ -45,7 +45,7 @@ type Computed = Omit<DetailedEvaluation, 'financing'> & { financing: FinancingRe
 function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlySet<MetricKey>): Computed {
 	const energy = options.energy ?? estimateEnergy(scenario);
 	const prep = prepareCase(scenario, energy);
-	const prices = nominalPricePath(scenario.revenue, scenario.finance.inflation, prep.priceIndex.operation);
+	const prices = nominalPricePath(scenario.revenue, prep.tariffInflation, prep.timeline.operatingYears);
 	const operating = operate(prep, prices);
 	const needsFinancing = [...wanted].some((m) => FINANCING_METRICS.has(m));
 	const financing = needsFinancing ? financeCase(prep, operating) : null;
@@ -53,8 +53,8 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 	const note = (metric: MetricKey, reason: string) => warnings.push(`${METRICS[metric].label} is not available: ${reason}.`);
 	const want = (m: MetricKey) => wanted.has(m);
 
-	const lcoe = discountedLcoe(prep, operating);
-	if (lcoe.real === null && want('lcoeReal')) note('lcoeReal', 'no energy is produced');
+	const lcoe = discountedLcoe(prep);
+	if (lcoe.real === null && want('lcoeReal')) note('lcoeReal', lcoe.reason);
 
 	const times = prep.timeline.constructionTimes;
 	const irrOf = (metric: MetricKey, series: typeof operating.projectPreTax) => {
@@ -101,7 +101,7 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 		capacityFactor: energy.capacityFactor,
 		lcoeReal: lcoe.real,
 		lcoeNominal: lcoe.nominal,
-		lcoeFcr: want('lcoeFcr') ? fixedChargeRateLcoe(prep, operating) : null,
+		lcoeFcr: want('lcoeFcr') ? fixedChargeRateLcoe(prep) : null,
 		projectIrrPreTax: irrOf('projectIrrPreTax', operating.projectPreTax),
 		projectIrrPostTax: irrOf('projectIrrPostTax', operating.projectPostTax),
 		equityIrr: financing ? irrOf('equityIrr', financing.equity) : null,
@@ -190,6 +190,10 @@ export type EngineResult = {
 		grossAepMWh: DecimalString;
 		lossFactor: DecimalString;
 		netAepMWh: DecimalString;
+		/** Share of the net energy curtailed (revenue.curtailment), and the year-1 energy curtailed and delivered. */
+		curtailment: DecimalString;
+		curtailedAepMWh: DecimalString;
+		deliveredAepMWh: DecimalString;
 		combinedSigma: DecimalString;
 		exceedances: { label: string; levelPercent: number; aepMWh: DecimalString; shareOfP50: DecimalString }[];
 		capacityFactor: DecimalString | null;
@@ -201,7 +205,7 @@ export type EngineResult = {
 		grantsRealTotal: DecimalString;
 		decommissioningNominal: DecimalString;
 	};
-	rates: { inflation: DecimalString; realDiscountRate: DecimalString; nominalDiscountRate: DecimalString };
+	rates: { inflation: DecimalString; tariffInflation: DecimalString; realDiscountRate: DecimalString; nominalDiscountRate: DecimalString };
 	financing: null | {
 		sizedBy: 'gearing' | 'target-dscr' | 'gearing-cap';
 		gearing: DecimalString;
@@ -325,6 +329,9 @@ export function toEngineResult(d: DetailedEvaluation): EngineResult {
 			grossAepMWh: decimalString(energy.grossAepMWh),
 			lossFactor: decimalString(energy.lossFactor),
 			netAepMWh: decimalString(energy.netAepMWh),
+			curtailment: decimalString(new Decimal(scenario.revenue.curtailment)),
+			curtailedAepMWh: decimalString(energy.netAepMWh.minus(prep.deliveredAepMWh)),
+			deliveredAepMWh: decimalString(prep.deliveredAepMWh),
 			combinedSigma: decimalString(energy.combinedSigma),
 			exceedances: energy.exceedances.map((e) => ({
 				label: `P${e.levelPercent}`,
@@ -352,6 +359,7 @@ export function toEngineResult(d: DetailedEvaluation): EngineResult {
 		},
 		rates: {
 			inflation: decimalString(prep.inflation),
+			tariffInflation: decimalString(prep.tariffInflation),
 			realDiscountRate: decimalString(prep.realDiscountRate),
 			nominalDiscountRate: decimalString(prep.nominalDiscountRate)
 		},

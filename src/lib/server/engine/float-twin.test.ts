@@ -39,7 +39,13 @@ describe('evaluateFloat', () => {
 			{ finance: { taxRate: 0.3, depreciation: { method: 'declining-balance', lifeYears: 10 } } },
 			{ timeline: { constructionYears: 3 }, finance: { inflation: 0.03, debt: { sizing: 'gearing', gearing: 0.7, interestRate: 0.06, tenorYears: 15, graceYears: 2, repayment: 'sculpted', capitalizeInterestDuringConstruction: false } } },
 			{ finance: { taxRate: 0.25, debt: { sizing: 'target-dscr', targetDscr: 1.25, maxGearing: 0.85, interestRate: 0.07, tenorYears: 12, repayment: 'straight-line' } } },
-			{ opex: { lines: [{ name: 'lease', basis: 'percent-of-revenue', fraction: 0.03 }, { name: 'o', basis: 'periodic-overhaul', amount: 2e6, perDevice: false, intervalYears: 5, escalation: 0.01 }] } }
+			{ opex: { lines: [{ name: 'lease', basis: 'percent-of-revenue', fraction: 0.03 }, { name: 'o', basis: 'periodic-overhaul', amount: 2e6, perDevice: false, intervalYears: 5, escalation: 0.01 }] } },
+			{
+				revenue: { supportYears: 12, tariffIndexation: 0.4, indexationBaseYearsBeforeCod: 2, tariffInflation: 0.035, curtailment: 0.05, merchantPricePerMWh: 90, merchantEscalation: 0.01 },
+				opex: { lines: [{ name: 'lease', basis: 'percent-of-revenue', fraction: 0.02 }, { name: 'grid', basis: 'per-MWh', amount: 6 }] },
+				finance: { inflation: 0.02, taxRate: 0.25 }
+			},
+			{ revenue: { supportYears: 15, tariffIndexation: 0.6, indexationMethod: 'scaled-inflation', indexationBaseYearsBeforeCod: 1 }, finance: { inflation: 0.03 } }
 		];
 		variants.forEach((v, n) => expectSame(atbCase(v), `variant ${n}`));
 	});

@@ -217,10 +217,14 @@ export function evaluateFloat(s: Scenario): FloatMetrics {
 	const sigma = Math.sqrt(sumOf(s.uncertainty.components.map((c) => c.sigma ** 2)));
 	const kW = ratedKW * devices;
 	const i = f.inflation;
+	const rv = s.revenue;
+	const tariffInflation = rv.tariffInflation ?? i;
 	const nominalRate = (1 + f.realDiscountRate) * (1 + i) - 1;
 	const idxC = Array.from({ length: C }, (_, j) => Math.pow(1 + i, j + 1 - C));
 	const idx = Array.from({ length: N }, (_, k) => Math.pow(1 + i, k + 1));
-	const energy = idx.map((_, k) => net * Math.pow(1 - a.degradationPerYear, k));
+	const delivered = net * (1 - rv.curtailment);
+	const energy = idx.map((_, k) => delivered * Math.pow(1 - a.degradationPerYear, k));
+	const tariffIdx = idx.map((_, k) => Math.pow(1 + tariffInflation, k + 1));
 
 	const even = Array(C).fill(1 / C);
 	const realC = Array(C).fill(0);
@@ -275,20 +279,26 @@ export function evaluateFloat(s: Scenario): FloatMetrics {
 		const npv = sumOf(funding.map((x, j) => -x * dfN(j + 1 - C))) + sumOf(post.map((x, k) => x * dfN(k + 1)));
 		return { opex, ebitda, pre, post, npv };
 	};
-	const tariffStep = 1 + i * s.revenue.tariffIndexation;
-	const price = idx.map((x, k) =>
-		k + 1 <= s.revenue.supportYears
-			? s.revenue.tariffPerMWh * Math.pow(tariffStep, k + 1)
-			: s.revenue.merchantPricePerMWh * x * Math.pow(1 + s.revenue.merchantEscalation, k + 1)
+	// revenue.tariffIndexPath and nominalPricePath: indexed share or scaled inflation, from the base year.
+	const indexedShare = rv.tariffIndexation;
+	const years = (k: number) => rv.indexationBaseYearsBeforeCod + k + 1;
+	const tariffIndex = (k: number) =>
+		rv.indexationMethod === 'scaled-inflation'
+			? Math.pow(1 + indexedShare * tariffInflation, years(k))
+			: indexedShare * Math.pow(1 + tariffInflation, years(k)) + 1 - indexedShare;
+	const price = tariffIdx.map((x, k) =>
+		k + 1 <= rv.supportYears ? rv.tariffPerMWh * tariffIndex(k) : rv.merchantPricePerMWh * x * Math.pow(1 + rv.merchantEscalation, k + 1)
 	);
 	const op = operate(price);
 
-	const pvCosts = sumOf(capexNom.map((c, j) => c * dfN(j + 1 - C))) + sumOf(op.opex.map((o, k) => (o + decom[k]) * dfN(k + 1)));
-	const lcoeReal = pvCosts / sumOf(energy.map((e, k) => e * Math.pow(1 + f.realDiscountRate, -(k + 1))));
-	const lcoeNominal = pvCosts / sumOf(energy.map((e, k) => e * dfN(k + 1)));
+	// metrics.discountedLcoe: revenue-share opex is a deduction from the price, not a cost.
+	const kept = 1 - leaseShare;
+	const pvCosts = sumOf(capexNom.map((c, j) => c * dfN(j + 1 - C))) + sumOf(fixedOpex.map((o, k) => (o + decom[k]) * dfN(k + 1)));
+	const lcoeReal = pvCosts / (kept * sumOf(energy.map((e, k) => e * Math.pow(1 + f.realDiscountRate, -(k + 1)))));
+	const lcoeNominal = pvCosts / (kept * sumOf(energy.map((e, k) => e * dfN(k + 1))));
 	const r = f.realDiscountRate;
 	const crf = r === 0 ? 1 / N : r / (1 - Math.pow(1 + r, -N));
-	const lcoeFcr = (crf * capexReal + sumOf(op.opex.map((o, k) => o / idx[k])) / N) / net;
+	const lcoeFcr = (crf * capexReal + sumOf(fixedOpex.map((o, k) => o / idx[k])) / N) / (delivered * kept);
 
 	// Debt and the tax-interest circle (cashflow.financeCase, debt.structureDebt).
 	const debt = f.debt;
@@ -353,7 +363,7 @@ export function evaluateFloat(s: Scenario): FloatMetrics {
 		cumulative += op.post[k];
 	}
 
-	const flat = (p: number) => operate(idx.map((x) => x * p)).npv;
+	const flat = (p: number) => operate(tariffIdx.map((x) => x * p)).npv;
 	const root = solveRoot(flat, -10 * lcoeReal - 1000, 10 * lcoeReal + 1000, { xTolerance: 1e-9 });
 
 	return {

@@ -70,6 +70,63 @@ describe('LCOE properties', () => {
 	});
 });
 
+describe('discountedLcoe with a revenue-share cost', () => {
+	const withLease = (share: number, tariffPerMWh = 300, extra: Record<string, unknown> = {}) =>
+		atbCase({
+			...extra,
+			revenue: { tariffPerMWh },
+			opex: { lines: [{ name: 'Fixed O&M', basis: 'percent-of-capex', fraction: 0.04 }, { name: 'Seabed lease', basis: 'percent-of-revenue', fraction: share }] }
+		});
+
+	it('divides the LCOE without the share by (1 - share)', () => {
+		// Derivation (docs/methods/lcoe.md): p (1 - s) sum E_k v^k = PV(other costs), so p = LCOE_without / (1 - s).
+		// FCR check case (NREL ATB form): (CRF(8 %, 20) x 50 M + 2 M) / 30,660 = 231.3311; with a 4 % lease 231.3311 / 0.96.
+		const without = (financial.pmt(0.08, 20, -1) * 50e6 + 2e6) / 30660;
+		const e = evaluateDetailed(withLease(0.04), { breakeven: false });
+		expect(e.metrics.lcoeReal!.toNumber()).toBeCloseTo(without / 0.96, 9);
+		expect(e.metrics.lcoeNominal!.toNumber()).toBeCloseTo(without / 0.96, 9);
+		expect(e.metrics.lcoeFcr!.toNumber()).toBeCloseTo(without / 0.96, 9);
+	});
+
+	it('does not move when the tariff moves', () => {
+		// Property: the LCOE is a cost measure, so the tariff (and so the lease paid at it) cannot change it.
+		fc.assert(
+			fc.property(
+				fc.double({ min: 0, max: 0.3, noNaN: true }),
+				fc.array(fc.integer({ min: 20, max: 2000 }), { minLength: 3, maxLength: 5 }),
+				fc.double({ min: 0, max: 0.05, noNaN: true }),
+				(share, tariffs, inflation) => {
+					const extra = { finance: { inflation } };
+					const reference = evaluateDetailed(withLease(share, 300, extra), { breakeven: false }).metrics;
+					return tariffs.every((tariff) => {
+						const m = evaluateDetailed(withLease(share, tariff, extra), { breakeven: false }).metrics;
+						return m.lcoeReal!.eq(reference.lcoeReal!) && m.lcoeNominal!.eq(reference.lcoeNominal!) && m.lcoeFcr!.eq(reference.lcoeFcr!);
+					});
+				}
+			),
+			{ numRuns: 20 }
+		);
+	});
+
+	it('equals the breakeven tariff with no tax and no grant, lease or not', () => {
+		// Breakeven (NPV = 0 at a flat real price) and LCOE solve the same equation when tax and grants are absent.
+		for (const share of [0, 0.05, 0.2]) {
+			const e = evaluateDetailed(withLease(share, 300, { finance: { inflation: 0.02 } }));
+			expect(e.metrics.breakevenTariff!.minus(e.metrics.lcoeReal!).abs().toNumber()).toBeLessThan(1e-6);
+		}
+	});
+
+	it('is undefined, with the reason, when the revenue shares take all the revenue', () => {
+		const e = evaluateDetailed(
+			atbCase({ opex: { lines: [{ name: 'Lease', basis: 'percent-of-revenue', fraction: 0.6 }, { name: 'Royalty', basis: 'percent-of-revenue', fraction: 0.4 }] } }),
+			{ breakeven: false }
+		);
+		expect(e.metrics.lcoeReal).toBeNull();
+		expect(e.metrics.lcoeFcr).toBeNull();
+		expect(e.warnings.some((w) => w.includes('revenue-share costs take all of the revenue'))).toBe(true);
+	});
+});
+
 describe('IRR property', () => {
 	it('makes the NPV of the project and equity flows zero', () => {
 		// CHECK-VALUES property: NPV at the IRR is zero (IRR definition); present values by finance/discounting.
