@@ -33,6 +33,8 @@ export const METHOD_NOTES = [
 	{ slug: 'loan-repayment', title: 'Loan repayment: annuity, straight line, sculpted' },
 	{ slug: 'dscr', title: 'Debt service cover ratio (DSCR)' },
 	{ slug: 'llcr', title: 'Loan life cover ratio (LLCR)' },
+	{ slug: 'reserves', title: 'Reserve accounts: debt service, maintenance and decommissioning' },
+	{ slug: 'covenants', title: 'Covenants: lock-up, default and cash sweep' },
 	{ slug: 'breakeven-tariff', title: 'Breakeven tariff' },
 	{ slug: 'sensitivity', title: 'Sensitivity: tornado and spider' }
 ] as const satisfies readonly MethodNote[];

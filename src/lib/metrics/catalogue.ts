@@ -23,6 +23,7 @@ export const METRIC_KEYS = [
 	'minDscr',
 	'avgDscr',
 	'llcr',
+	'yearsInLockUp',
 	'debtAmount',
 	'breakevenTariff'
 ] as const;
@@ -90,6 +91,7 @@ const ENTRIES: Record<MetricKey, Entry> = {
 	minDscr: cover('Minimum DSCR', 'dscr'),
 	avgDscr: cover('Average DSCR', 'dscr'),
 	llcr: cover('LLCR', 'llcr'),
+	yearsInLockUp: { label: 'Years in lock-up', unit: 'years', basis: 'operating years whose DSCR fails the lock-up test', places: 0, scale: 'plain', betterWhen: 'lower', method: 'covenants' },
 	debtAmount: { label: 'Debt at COD', unit: '{currency}', basis: 'balance at COD', places: 0, scale: 'plain', betterWhen: 'neither', method: 'debt-sizing' },
 	breakevenTariff: pricePerMWh('Breakeven tariff', 'flat, real', 'breakeven-tariff')
 };
