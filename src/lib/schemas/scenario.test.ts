@@ -143,6 +143,60 @@ describe('parseScenario: reserves and covenants', () => {
 	});
 });
 
+describe('parseScenario: assessed energy and uncertainty kinds', () => {
+	const assessed = (resource: Record<string, unknown>, patch: (doc: Record<string, any>) => void = () => {}) => {
+		const r = withPatch((d) => {
+			d.resource = { kind: 'assessed-energy', p50MWh: 30_000, ...resource };
+			d.device.ratedPowerKW = 10_000;
+			patch(d);
+		});
+		return r.ok ? [] : r.issues;
+	};
+
+	it('accepts a given P50 with a P90, a sigma, or the split, for every technology', () => {
+		expect(assessed({ p90MWh: 26_000 })).toEqual([]);
+		expect(assessed({ sigma: 0.1 })).toEqual([]);
+		expect(assessed({ interAnnualSigma: 0.05, longTermSigma: 0.08 })).toEqual([]);
+		const wave = assessed({ sigma: 0.1 }, (d) => {
+			d.technology = 'wave';
+			d.device = { kind: 'capture-width', captureWidthRatio: 0.2, characteristicWidthM: 20, ratedPowerKW: 750 };
+		});
+		expect(wave).toEqual([]);
+	});
+
+	it('asks for exactly one form of the uncertainty, naming the field', () => {
+		expect(assessed({})).toEqual([{ path: 'resource.p90MWh', message: expect.stringMatching(/give the assessment's uncertainty/) }]);
+		expect(assessed({ p90MWh: 26_000, sigma: 0.1 })).toEqual([{ path: 'resource.sigma', message: expect.stringMatching(/only one form/) }]);
+		expect(assessed({ interAnnualSigma: 0.05 })).toEqual([{ path: 'resource.longTermSigma', message: expect.stringMatching(/give longTermSigma with interAnnualSigma/) }]);
+	});
+
+	it('refuses a P90 above the P50 and a negative P50', () => {
+		expect(assessed({ p90MWh: 31_000 })).toEqual([{ path: 'resource.p90MWh', message: 'P90 (31000 MWh) must not exceed P50 (30000 MWh)' }]);
+		expect(assessed({ p50MWh: -1, sigma: 0.1 }).map((i) => i.path)).toEqual(['resource.p50MWh']);
+		expect(assessed({ sigma: 1.5 }).map((i) => i.path)).toEqual(['resource.sigma']);
+	});
+
+	it('refuses losses on a net figure, naming each loss', () => {
+		const issues = assessed({ sigma: 0.1 }, (d) => (d.array = { deviceCount: 1, arrayLoss: 0.05, availability: 0.95 }));
+		expect(issues.map((i) => i.path)).toEqual(['array.arrayLoss', 'array.availability']);
+		expect(issues[0].message).toMatch(/must be 0 with an assessed-energy resource/);
+		expect(issues[1].message).toMatch(/must be 1 with an assessed-energy resource/);
+	});
+
+	it('asks a power curve or matrix for its rated power', () => {
+		const issues = assessed({ sigma: 0.1 }, (d) => delete d.device.ratedPowerKW);
+		expect(issues).toEqual([{ path: 'device.ratedPowerKW', message: expect.stringMatching(/sets the installed capacity/) }]);
+	});
+
+	it('reads an uncertainty component without a kind as long-term, and refuses an unknown kind', () => {
+		const r = withPatch((d) => (d.uncertainty = { components: [{ name: 'Model', sigma: 0.05 }, { name: 'Year to year', sigma: 0.04, kind: 'inter-annual' }] }));
+		if (!r.ok) throw new Error(JSON.stringify(r.issues));
+		expect(r.scenario.uncertainty.components.map((c) => c.kind)).toEqual(['long-term', 'inter-annual']);
+		const bad = withPatch((d) => (d.uncertainty = { components: [{ name: 'x', sigma: 0.05, kind: 'yearly' }] }));
+		expect(!bad.ok && bad.issues.map((i) => i.path)).toEqual(['uncertainty.components[0].kind']);
+	});
+});
+
 describe('parseScenario: unknown keys', () => {
 	const refusal = (patch: (doc: Record<string, any>) => void) => {
 		const r = withPatch(patch);

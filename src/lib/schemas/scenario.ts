@@ -131,15 +131,37 @@ const seaStateSchema = z
 	})
 	.describe('A single characteristic sea state occurring all year');
 
+const assessedSigma = (what: string) =>
+	z.number().min(0).max(1).optional().describe(`${what}, one standard deviation as a fraction of P50 (0..1)`);
+
+const assessedEnergySchema = z
+	.strictObject({
+		kind: z.literal('assessed-energy').describe('Resource kind'),
+		p50MWh: positive(
+			'Net annual energy of the whole array at P50, MWh/yr, as the assessment gives it: after wake, availability, electrical and other losses, first operating year before degradation'
+		),
+		p90MWh: positive(
+			'Net annual energy at P90 over one year, MWh/yr, at most p50MWh; its sigma (1 - P90/P50) / 1.2816 counts as long-term uncertainty. Give this, or sigma, or interAnnualSigma with longTermSigma'
+		).optional(),
+		sigma: assessedSigma('Total uncertainty of the assessed energy (counted as long-term); give this, or p90MWh, or interAnnualSigma with longTermSigma'),
+		interAnnualSigma: assessedSigma('Year-to-year variability of the resource, which averages out over several years; give it with longTermSigma'),
+		longTermSigma: assessedSigma('Long-term uncertainty of the assessment (measurement, model, losses); give it with interAnnualSigma'),
+		assessedBy: z.string().max(200).optional().describe('Who made the assessment, and the report it is taken from (free text)')
+	})
+	.describe(
+		"An independent yield assessment's figures taken as they are, for any technology: the device's power curve or matrix is not used for energy, only its rated power (for the installed capacity); losses must stay at their no-loss values because the figures are net; degradation still applies"
+	);
+
 export const resourceSchema = z
 	.discriminatedUnion('kind', [
 		speedHistogramSchema,
 		weibullSchema,
 		rayleighSchema,
 		seaStateTableSchema,
-		seaStateSchema
+		seaStateSchema,
+		assessedEnergySchema
 	])
-	.describe('The resource: flow speeds for currents, sea states for waves');
+	.describe('The resource: flow speeds for currents, sea states for waves, or a given net energy (assessed-energy) for either');
 
 // ---------------------------------------------------------------- device
 
@@ -248,12 +270,20 @@ const uncertaintySchema = z
 			.array(
 				z.strictObject({
 					name: lineName,
-					sigma: nonNegative('One standard deviation as a fraction of P50 energy')
+					sigma: nonNegative('One standard deviation as a fraction of P50 energy'),
+					kind: z
+						.enum(['long-term', 'inter-annual'])
+						.describe(
+							'inter-annual: year-to-year variability of the resource, which averages out over an N-year horizon as 1/sqrt(N); long-term: everything else (measurement, model, losses), the same in every year'
+						)
+						.default('long-term')
 				})
 			)
 			.max(SCENARIO_LIMITS.uncertaintyComponents, atMost('uncertaintyComponents'))
 			.default([])
-			.describe('Independent yield uncertainties, combined as root sum of squares'),
+			.describe(
+				'Independent yield uncertainties, combined as root sum of squares; over N years sigma_N = sqrt(sigma_long-term^2 + sigma_inter-annual^2 / N). With an assessed-energy resource they add to the assessment\'s own'
+			),
 		exceedanceLevels: z
 			.array(z.number().gt(0).lt(100).describe('Exceedance probability, percent (90 for P90)'))
 			.max(SCENARIO_LIMITS.exceedanceLevels, atMost('exceedanceLevels'))
@@ -610,13 +640,14 @@ function flag(ctx: RefineCtx, path: (string | number)[], message: string) {
 
 function checkTechnologyFit(s: z.output<typeof scenarioObject>, ctx: RefineCtx) {
 	const flow = s.technology !== 'wave';
-	if (flow !== speedResources.has(s.resource.kind)) {
+	if (s.resource.kind === 'assessed-energy') checkAssessedEnergy(s, s.resource, ctx);
+	else if (flow !== speedResources.has(s.resource.kind)) {
 		ctx.addIssue({
 			code: 'custom',
 			path: ['resource', 'kind'],
 			message: flow
-				? `${s.technology} needs a flow-speed resource (speed-histogram, weibull or rayleigh), not ${s.resource.kind}`
-				: `wave needs a sea-state resource (sea-state-table or sea-state), not ${s.resource.kind}`
+				? `${s.technology} needs a flow-speed resource (speed-histogram, weibull or rayleigh) or assessed-energy, not ${s.resource.kind}`
+				: `wave needs a sea-state resource (sea-state-table or sea-state) or assessed-energy, not ${s.resource.kind}`
 		});
 	}
 	if (flow !== speedDevices.has(s.device.kind)) {
@@ -627,6 +658,43 @@ function checkTechnologyFit(s: z.output<typeof scenarioObject>, ctx: RefineCtx) 
 				? `${s.technology} needs a rotor or power-curve device, not ${s.device.kind}`
 				: `wave needs a power-matrix or capture-width device, not ${s.device.kind}`
 		});
+	}
+}
+
+type AssessedEnergy = Extract<z.output<typeof resourceSchema>, { kind: 'assessed-energy' }>;
+
+/**
+ * An assessed energy (valid for every technology) comes with exactly one form
+ * of its uncertainty, is net of losses (so the array's losses must stay at
+ * their no-loss values, else they would be applied twice), and the device
+ * must state its rated power, the one thing taken from it.
+ */
+function checkAssessedEnergy(s: z.output<typeof scenarioObject>, r: AssessedEnergy, ctx: RefineCtx) {
+	const split = r.interAnnualSigma !== undefined || r.longTermSigma !== undefined;
+	// One field of each form given, in the order named; a second form is flagged at its field.
+	const forms = [
+		r.p90MWh !== undefined ? 'p90MWh' : null,
+		r.sigma !== undefined ? 'sigma' : null,
+		split ? (r.interAnnualSigma !== undefined ? 'interAnnualSigma' : 'longTermSigma') : null
+	].filter((f) => f !== null);
+	const choice = 'p90MWh, or sigma, or interAnnualSigma with longTermSigma';
+	if (forms.length === 0) flag(ctx, ['resource', 'p90MWh'], `give the assessment's uncertainty: ${choice}`);
+	if (forms.length > 1) flag(ctx, ['resource', forms[1]], `give only one form of the uncertainty: ${choice}`);
+	if (split && r.interAnnualSigma === undefined) flag(ctx, ['resource', 'interAnnualSigma'], 'give interAnnualSigma with longTermSigma (0 when the assessment has none)');
+	if (split && r.longTermSigma === undefined) flag(ctx, ['resource', 'longTermSigma'], 'give longTermSigma with interAnnualSigma (0 when the assessment has none)');
+	if (r.p90MWh !== undefined && r.p90MWh > r.p50MWh) flag(ctx, ['resource', 'p90MWh'], `P90 (${r.p90MWh} MWh) must not exceed P50 (${r.p50MWh} MWh)`);
+
+	const net = 'with an assessed-energy resource, because the assessed P50 is already net of losses and would be reduced twice';
+	for (const loss of ['arrayLoss', 'electricalLoss', 'otherLoss'] as const) {
+		if (s.array[loss] !== 0) flag(ctx, ['array', loss], `must be 0 ${net}`);
+	}
+	if (s.array.availability !== 1) flag(ctx, ['array', 'availability'], `must be 1 ${net}`);
+	if ((s.device.kind === 'power-curve' || s.device.kind === 'power-matrix') && s.device.ratedPowerKW === undefined) {
+		flag(
+			ctx,
+			['device', 'ratedPowerKW'],
+			`give the rated power per device: with an assessed-energy resource it sets the installed capacity (capacity factor, per-kW costs), and the ${s.device.kind === 'power-curve' ? 'power curve' : 'power matrix'} is not used`
+		);
 	}
 }
 

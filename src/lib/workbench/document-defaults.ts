@@ -20,9 +20,9 @@ type Device = DeviceSpec;
 type Debt = DebtSpec;
 
 export const resourceKindsFor: Record<Technology, Resource['kind'][]> = {
-	'tidal-stream': ['speed-histogram', 'weibull', 'rayleigh'],
-	'ocean-current': ['speed-histogram', 'weibull', 'rayleigh'],
-	wave: ['sea-state-table', 'sea-state']
+	'tidal-stream': ['speed-histogram', 'weibull', 'rayleigh', 'assessed-energy'],
+	'ocean-current': ['speed-histogram', 'weibull', 'rayleigh', 'assessed-energy'],
+	wave: ['sea-state-table', 'sea-state', 'assessed-energy']
 };
 
 export const deviceKindsFor: Record<Technology, Device['kind'][]> = {
@@ -36,7 +36,8 @@ export const resourceKindLabels: Record<Resource['kind'], string> = {
 	weibull: 'Weibull distribution',
 	rayleigh: 'Rayleigh distribution',
 	'sea-state-table': 'Sea-state table (scatter diagram)',
-	'sea-state': 'Single sea state'
+	'sea-state': 'Single sea state',
+	'assessed-energy': 'Assessed net energy (P50 and P90 given)'
 };
 
 export const deviceKindLabels: Record<Device['kind'], string> = {
@@ -73,6 +74,8 @@ export function resourceOfKind(kind: Resource['kind']): Resource {
 			};
 		case 'sea-state':
 			return { kind, periodType: 'energy-period', teOverTp: 0.9, hsM: 2, periodS: 8 };
+		case 'assessed-energy':
+			return { kind, p50MWh: 20000, p90MWh: 17500 };
 	}
 }
 

@@ -254,3 +254,38 @@ describe('evaluateScenario: output shape', () => {
 		}
 	});
 });
+
+describe('evaluateScenario: assessed energy', () => {
+	// One 10 MW device; an assessment's net P50 30,000 MWh and P90 26,000 MWh; 0.5 %/yr degradation.
+	const assessedCase = () =>
+		atbCase({
+			resource: { kind: 'assessed-energy', p50MWh: 30_000, p90MWh: 26_000, assessedBy: 'Invented assessor, report 1' },
+			device: { kind: 'power-curve', ratedPowerKW: 10_000, points: [{ speedMPerS: 0.5, powerKW: 0 }, { speedMPerS: 2, powerKW: 10_000 }] },
+			array: { deviceCount: 1, degradationPerYear: 0.005 }
+		});
+
+	it('delivers the given P50 times degradation each year, with the capacity factor by hand', () => {
+		const r = evaluateScenario(assessedCase());
+		const operating = r.cashFlow.filter((row) => row.phase === 'operation');
+		// E_k = 30,000 x 0.995^(k - 1): year 1 30,000; year 10 30,000 x 0.995^9 = 28,676.68735 MWh.
+		expect(operating[0].energyMWh).toBe('30000');
+		expect(Number(operating[9].energyMWh)).toBeCloseTo(28_676.68735072679, 6);
+		operating.forEach((row, k) => expect(Number(row.energyMWh)).toBeCloseTo(30_000 * 0.995 ** k, 6));
+		// CF = 30,000 MWh / (10,000 kW x 8760 h / 1000) = 30,000 / 87,600 = 0.3424657534.
+		expect(Number(r.metrics.capacityFactor)).toBeCloseTo(0.3424657534, 10);
+		expect(r.metrics.netAepMWh).toBe('30000');
+		expect(Number(r.metrics.p90AepMWh)).toBeCloseTo(26_000, 6);
+		// Per-kW capex on the rated power x device count: 5000 x 10,000 kW = 50,000,000.
+		expect(r.costs.capexRealTotal).toBe('50000000');
+		expect(r.energy.energySource).toBe('assessed');
+		expect(r.energy.bins).toEqual([]);
+	});
+
+	it('reports the levels over one and ten years, equal when the uncertainty is all long-term', () => {
+		const r = evaluateScenario(assessedCase());
+		expect(r.energy.exceedancesByHorizon.map((h) => h.horizonYears)).toEqual([1, 10]);
+		expect(r.energy.exceedancesByHorizon[0].levels).toEqual(r.energy.exceedances);
+		expect(r.energy.exceedancesByHorizon[1].levels).toEqual(r.energy.exceedances);
+		expect(r.energy.sigmaInterAnnual).toBe('0');
+	});
+});

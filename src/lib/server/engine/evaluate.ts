@@ -8,7 +8,7 @@
  */
 import { Decimal } from './decimal';
 import type { Scenario } from '../../schemas/scenario';
-import { estimateEnergy, type EnergyEstimate } from './energy/yield';
+import { estimateEnergy, type EnergyEstimate, type Exceedance } from './energy/yield';
 import { financeCase, operate, prepareCase, type CasePreparation, type FinancingResult, type OperatingResult } from './cashflow';
 import { nominalPricePath } from './revenue';
 import { coverRatios, discountedLcoe, type CoverRatios, fixedChargeRateLcoe, internalRate, loanLifeCoverRatio, paybackYears } from './metrics';
@@ -110,8 +110,6 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 		minDscr: cover.min,
 		avgDscr: cover.average,
 		llcr,
-		// Filled by the cash waterfall (./waterfall) once it is wired into the cash-flow model.
-		yearsInLockUp: null,
 		debtAmount: financing ? (debt ? debt.balanceAtCod : new Decimal(0)) : null,
 		breakevenTariff
 	};
@@ -178,6 +176,8 @@ export type EnergyBinRow = {
 	arrayGrossEnergyMWh: DecimalString;
 };
 
+export type ExceedanceRow = { label: string; levelPercent: number; aepMWh: DecimalString; shareOfP50: DecimalString };
+
 export type EngineResult = {
 	schemaVersion: 1;
 	scenarioName: string;
@@ -197,7 +197,14 @@ export type EngineResult = {
 		curtailedAepMWh: DecimalString;
 		deliveredAepMWh: DecimalString;
 		combinedSigma: DecimalString;
-		exceedances: { label: string; levelPercent: number; aepMWh: DecimalString; shareOfP50: DecimalString }[];
+		/** One-year exceedance levels. */
+		exceedances: ExceedanceRow[];
+		/** Whether the energy comes from the resource and the device, or is an assessment's given P50. */
+		energySource: 'resource-and-device' | 'assessed';
+		sigmaLongTerm: DecimalString;
+		sigmaInterAnnual: DecimalString;
+		/** Exceedance levels of the mean annual energy over one and ten years (the first equals `exceedances`). */
+		exceedancesByHorizon: { horizonYears: number; sigma: DecimalString; levels: ExceedanceRow[] }[];
 		capacityFactor: DecimalString | null;
 		bins: EnergyBinRow[];
 	};
@@ -309,6 +316,10 @@ function cashFlowRows(d: DetailedEvaluation): CashFlowRow[] {
 	return rows;
 }
 
+function exceedanceRow(e: Exceedance): ExceedanceRow {
+	return { label: `P${e.levelPercent}`, levelPercent: e.levelPercent, aepMWh: decimalString(e.aepMWh), shareOfP50: decimalString(e.factor) };
+}
+
 /** Turn a detailed evaluation into the plain-data result. */
 export function toEngineResult(d: DetailedEvaluation): EngineResult {
 	const { prep } = d;
@@ -335,11 +346,14 @@ export function toEngineResult(d: DetailedEvaluation): EngineResult {
 			curtailedAepMWh: decimalString(energy.netAepMWh.minus(prep.deliveredAepMWh)),
 			deliveredAepMWh: decimalString(prep.deliveredAepMWh),
 			combinedSigma: decimalString(energy.combinedSigma),
-			exceedances: energy.exceedances.map((e) => ({
-				label: `P${e.levelPercent}`,
-				levelPercent: e.levelPercent,
-				aepMWh: decimalString(e.aepMWh),
-				shareOfP50: decimalString(e.factor)
+			exceedances: energy.exceedances.map(exceedanceRow),
+			energySource: energy.energySource,
+			sigmaLongTerm: decimalString(energy.uncertaintySplit.longTerm),
+			sigmaInterAnnual: decimalString(energy.uncertaintySplit.interAnnual),
+			exceedancesByHorizon: energy.exceedancesByHorizon.map((h) => ({
+				horizonYears: h.horizonYears,
+				sigma: decimalString(h.sigma),
+				levels: h.levels.map(exceedanceRow)
 			})),
 			capacityFactor: maybe(energy.capacityFactor),
 			bins: energy.bins.map((b) => ({

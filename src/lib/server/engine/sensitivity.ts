@@ -63,6 +63,9 @@ function scaleResource(s: Scenario, f: number): Scenario {
 			return { ...s, resource: { ...r, states: r.states.map((st) => ({ ...st, hsM: st.hsM * f })) } };
 		case 'sea-state':
 			return { ...s, resource: { ...r, hsM: r.hsM * f } };
+		case 'assessed-energy':
+			// A given energy has no speed or wave height to scale: the energy itself (P50 and P90) scales.
+			return { ...s, resource: { ...r, p50MWh: r.p50MWh * f, ...(r.p90MWh === undefined ? {} : { p90MWh: r.p90MWh * f }) } };
 	}
 }
 
@@ -81,7 +84,7 @@ function setLife(s: Scenario, years: number): Scenario {
 	});
 }
 
-/** The drivers. Resource scales flow speeds (currents) or wave heights Hs (waves). */
+/** The drivers. Resource scales flow speeds (currents), wave heights Hs (waves) or an assessed energy. */
 export const DRIVERS: Record<DriverId, DriverDefinition> = {
 	capex: {
 		label: 'Capex',
@@ -93,7 +96,7 @@ export const DRIVERS: Record<DriverId, DriverDefinition> = {
 	},
 	opex: { label: 'Opex', kind: 'multiplier', unit: 'x base', changesEnergy: false, base: () => 1, apply: scaleOpex },
 	resource: {
-		label: 'Resource (flow speed or wave height)',
+		label: 'Resource (flow speed, wave height or assessed energy)',
 		kind: 'multiplier',
 		unit: 'x base',
 		changesEnergy: true,

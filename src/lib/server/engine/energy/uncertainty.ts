@@ -1,8 +1,22 @@
 /**
  * Yield uncertainty: combined standard deviation and exceedance levels (P90,
- * any Pxx) under a normal model. Sigmas are fractions of the P50 energy.
+ * any Pxx) under a normal model, over a one-year or an N-year horizon. Sigmas
+ * are fractions of the P50 energy.
  */
 import { dec, Decimal, ONE, ZERO, type DecimalInput } from '../decimal';
+
+/**
+ * inter-annual: the resource's year-to-year variability, which averages out
+ * over several years; long-term: everything that does not (measurement,
+ * model, losses, power performance): a bias common to every year.
+ */
+export type UncertaintyKind = 'long-term' | 'inter-annual';
+
+/** Root-sum-square sigma of each kind, fractions of P50. */
+export type UncertaintySplit = { longTerm: Decimal; interAnnual: Decimal };
+
+/** The horizons the result reports exceedance levels for, years. */
+export const EXCEEDANCE_HORIZON_YEARS = [1, 10] as const;
 
 /**
  * Combined standard deviation of independent uncertainties (root sum of squares).
@@ -80,4 +94,73 @@ export function normalQuantile(p: number): number {
 export function exceedanceFactor(levelPercent: number, sigma: DecimalInput): Decimal {
 	const z = new Decimal(normalQuantile(levelPercent / 100));
 	return Decimal.max(ZERO, ONE.minus(z.times(sigma)));
+}
+
+/**
+ * Combined sigma of each kind (root sum of squares within the kind).
+ *
+ *     sigma_LT  = sqrt(sum over long-term components sigma_i^2)
+ *     sigma_IAV = sqrt(sum over inter-annual components sigma_i^2)
+ *
+ * A component without a kind is long-term. Source: as combinedSigma.
+ */
+export function splitSigmas(components: readonly { sigma: DecimalInput; kind?: UncertaintyKind }[]): UncertaintySplit {
+	const of = (kind: UncertaintyKind) => combinedSigma(components.filter((c) => (c.kind ?? 'long-term') === kind).map((c) => c.sigma));
+	return { longTerm: of('long-term'), interAnnual: of('inter-annual') };
+}
+
+/**
+ * Standard deviation of the mean annual energy over an N-year horizon.
+ *
+ *     sigma_N = sqrt(sigma_LT^2 + sigma_IAV^2 / N)
+ *
+ * The year-to-year variability of N independent years averages out as
+ * 1/sqrt(N) (the variance of a mean of N independent values); long-term
+ * uncertainty is the same error in every year and does not. With N = 1 this
+ * is the plain root sum of squares of all components. Sources: common
+ * practice in yield assessment; D. Thevenard and S. Pelland, "Estimating the
+ * uncertainty in long-term photovoltaic yield predictions", Solar Energy 91
+ * (2013) 432-445 (first-year against lifetime uncertainty); EWEA, Wind Energy
+ * - The Facts (2009), Part I (results for one-year and ten-year periods).
+ * Example: sigma_LT 8 %, sigma_IAV 6 %: sigma_1 = 10 %, sigma_10 = sqrt(0.0064
+ * + 0.00036) = 8.2219 %.
+ */
+export function horizonSigma(split: UncertaintySplit, horizonYears: number): Decimal {
+	if (!(Number.isFinite(horizonYears) && horizonYears >= 1)) throw new RangeError(`horizon must be at least one year, got ${horizonYears}`);
+	const lt = dec(split.longTerm);
+	const iav = dec(split.interAnnual);
+	// Only long-term uncertainty: the same sigma over every horizon, exactly (no square-and-root rounding).
+	if (iav.isZero()) return lt;
+	return lt.times(lt).plus(iav.times(iav).div(horizonYears)).sqrt();
+}
+
+/**
+ * Energy exceeded with probability `levelPercent` % by the mean annual energy
+ * over `horizonYears`, as a share of P50: what debt sizing multiplies the
+ * P50 energy by to size on, say, the one-year P90.
+ *
+ *     Pxx,N / P50 = max(0, 1 - z_xx sigma_N)
+ *
+ * Source: exceedanceFactor and horizonSigma. Example: sigma_LT 8 %, sigma_IAV
+ * 6 %, P90 over 10 years: 1 - 1.2815516 x 0.0822192 = 0.894632.
+ */
+export function horizonExceedanceFactor(levelPercent: number, horizonYears: number, split: UncertaintySplit): Decimal {
+	return exceedanceFactor(levelPercent, horizonSigma(split, horizonYears));
+}
+
+/**
+ * Sigma implied by a given exceedance value under the normal model, the
+ * inverse of exceedanceFactor.
+ *
+ *     sigma = (1 - Pxx / P50) / z_xx,   z_xx = Phi^-1(xx / 100)
+ *
+ * so a P90 gives sigma = (1 - P90/P50) / 1.2815515655. Source: normal
+ * exceedance model (common practice); z_90 from the standard normal table
+ * (NIST/SEMATECH e-Handbook of Statistical Methods, 1.3.6.7.1). Example:
+ * P50 100, P90 87.1845: sigma = 0.128155 / 1.281552 = 0.1000.
+ */
+export function sigmaFromExceedance(p50: DecimalInput, pxx: DecimalInput, levelPercent = 90): Decimal {
+	if (!(levelPercent > 50 && levelPercent < 100)) throw new RangeError(`exceedance level must be between 50 and 100 percent, got ${levelPercent}`);
+	const z = new Decimal(normalQuantile(levelPercent / 100));
+	return ONE.minus(dec(pxx).div(p50)).div(z);
 }

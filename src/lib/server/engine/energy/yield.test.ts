@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { atbCase } from '../testing/fixtures';
-import { estimateEnergy } from './yield';
+import { energyFactor, estimateEnergy } from './yield';
 import { waveEnergyFluxKWPerM } from './wave';
 
 describe('estimateEnergy', () => {
@@ -68,5 +68,93 @@ describe('estimateEnergy', () => {
 		const e = estimateEnergy(s);
 		expect(e.meanDevicePowerKW.toString()).toBe('75');
 		expect(e.warnings.join(' ')).toMatch(/25 % of the time falls in sea states outside the power matrix/);
+	});
+});
+
+describe('estimateEnergy: exceedance horizons', () => {
+	it('keeps the one-year levels and gives equal horizons when every uncertainty is long-term', () => {
+		// Existing documents have no inter-annual component: P90 over ten years is P90 over one year.
+		const e = estimateEnergy(atbCase({ uncertainty: { components: [{ name: 'Resource', sigma: 0.06 }, { name: 'Power', sigma: 0.08 }] } }));
+		const [one, ten] = e.exceedancesByHorizon;
+		expect([one.horizonYears, ten.horizonYears]).toEqual([1, 10]);
+		expect(one.levels).toEqual(e.exceedances);
+		expect(ten.levels.map((l) => l.aepMWh.toString())).toEqual(one.levels.map((l) => l.aepMWh.toString()));
+		// RSS of 6 % and 8 % is 10 %; P90 = 30,660 x (1 - 1.2815515655 x 0.1) = 26,730.7629 MWh (z from the standard normal table).
+		expect(e.combinedSigma.toString()).toBe('0.1');
+		expect(e.p90AepMWh.toNumber()).toBeCloseTo(30_660 * (1 - 1.2815515655446004 * 0.1), 6);
+	});
+
+	it('lets the inter-annual part average out over ten years', () => {
+		// sigma_LT 8 %, sigma_IAV 6 % (common practice: sigma_N = sqrt(sigma_LT^2 + sigma_IAV^2 / N)):
+		// 1 year  sigma 0.1,          P90 = 30,660 x 0.8718448434 = 26,730.7629
+		// 10 years sigma 0.0822192192, P90 = 30,660 x 0.8946318310 = 27,429.4119
+		const e = estimateEnergy(
+			atbCase({ uncertainty: { components: [{ name: 'Model', sigma: 0.08 }, { name: 'Year to year', sigma: 0.06, kind: 'inter-annual' }], exceedanceLevels: [75, 90] } })
+		);
+		const [one, ten] = e.exceedancesByHorizon;
+		expect(one.sigma.toString()).toBe('0.1');
+		expect(ten.sigma.toNumber()).toBeCloseTo(0.0822192191643779, 15);
+		expect(one.levels.find((l) => l.levelPercent === 90)!.aepMWh.toNumber()).toBeCloseTo(26_730.7629, 3);
+		expect(ten.levels.find((l) => l.levelPercent === 90)!.aepMWh.toNumber()).toBeCloseTo(27_429.4119, 3);
+		expect(ten.levels.map((l) => l.levelPercent)).toEqual([75, 90]);
+		expect(e.uncertaintySplit.longTerm.toString()).toBe('0.08');
+		expect(e.uncertaintySplit.interAnnual.toString()).toBe('0.06');
+	});
+});
+
+describe('energyFactor', () => {
+	it('gives the share of P50 for a level and a horizon, as the reported levels do', () => {
+		const e = estimateEnergy(
+			atbCase({ uncertainty: { components: [{ name: 'Model', sigma: 0.08 }, { name: 'Year to year', sigma: 0.06, kind: 'inter-annual' }] } })
+		);
+		// 1 - 1.2815515655 x 0.1 = 0.8718448434; 1 - 1.2815515655 x 0.0822192192 = 0.8946318310.
+		expect(energyFactor(e, 90, 1).toNumber()).toBeCloseTo(0.8718448434, 10);
+		expect(energyFactor(e, 90, 10).toNumber()).toBeCloseTo(0.894631831, 9);
+		expect(energyFactor(e, 90, 10).times(e.netAepMWh).minus(e.exceedancesByHorizon[1].levels.find((l) => l.levelPercent === 90)!.aepMWh).abs().lt(1e-20)).toBe(true);
+	});
+});
+
+describe('estimateEnergy: assessed energy', () => {
+	const assessed = (resource: Record<string, unknown>, patch: Record<string, unknown> = {}) =>
+		estimateEnergy(atbCase({ resource: { kind: 'assessed-energy', p50MWh: 30_000, ...resource }, device: { kind: 'power-curve', ratedPowerKW: 10_000, points: [{ speedMPerS: 0.5, powerKW: 0 }, { speedMPerS: 2, powerKW: 10_000 }] }, ...patch }));
+
+	it('takes the given P50 as the net energy and the given P90 as it is', () => {
+		// Given P50 30,000 MWh, P90 26,000 MWh: sigma = (1 - 26,000 / 30,000) / 1.2815515655 = 0.1040358;
+		// capacity factor = 30,000 / (10,000 kW x 8760 h / 1000) = 30,000 / 87,600 = 0.3424658.
+		const e = assessed({ p90MWh: 26_000 });
+		expect(e.energySource).toBe('assessed');
+		expect(e.netAepMWh.toString()).toBe('30000');
+		expect(e.grossAepMWh.toString()).toBe('30000');
+		expect(e.lossFactor.toString()).toBe('1');
+		expect(e.p90AepMWh.toNumber()).toBeCloseTo(26_000, 9);
+		expect(e.combinedSigma.toNumber()).toBeCloseTo((1 - 26 / 30) / 1.2815515655446004, 12);
+		expect(e.capacityFactor!.toNumber()).toBeCloseTo(30_000 / 87_600, 14);
+		expect(e.installedCapacityKW.toString()).toBe('10000');
+		expect(e.bins).toEqual([]);
+		// Mean net power of the one device: 30,000 MWh x 1000 / 8760 h = 3424.658 kW.
+		expect(e.meanDevicePowerKW.toNumber()).toBeCloseTo(30_000_000 / 8760, 9);
+	});
+
+	it('takes a total sigma, or the split into inter-annual and long-term', () => {
+		// sigma 10 %: P90 = 30,000 x (1 - 1.2815515655 x 0.1) = 26,155.3453 MWh, over both horizons.
+		const total = assessed({ sigma: 0.1 });
+		expect(total.p90AepMWh.toNumber()).toBeCloseTo(26_155.3453, 3);
+		expect(total.exceedancesByHorizon[1].levels[0].aepMWh.eq(total.p90AepMWh)).toBe(true);
+		// Split 6 % inter-annual and 8 % long-term: one year 26,155.3453, ten years 30,000 x 0.8946318310 = 26,838.9549.
+		const split = assessed({ interAnnualSigma: 0.06, longTermSigma: 0.08 });
+		expect(split.p90AepMWh.toNumber()).toBeCloseTo(26_155.3453, 3);
+		expect(split.exceedancesByHorizon[1].levels[0].aepMWh.toNumber()).toBeCloseTo(26_838.9549, 3);
+	});
+
+	it("adds the scenario's own components to the assessment's, with a warning", () => {
+		// RSS: sqrt(0.06^2 + 0.08^2) = 0.1 (the assessment's 6 % with a further 8 %).
+		const e = assessed({ sigma: 0.06 }, { uncertainty: { components: [{ name: 'Lender adjustment', sigma: 0.08 }] } });
+		expect(e.combinedSigma.toString()).toBe('0.1');
+		expect(e.warnings.join(' ')).toMatch(/combined with the assessment's own uncertainty/);
+	});
+
+	it('warns when the P50 is more than the installed capacity can make', () => {
+		// 10,000 kW x 8760 h = 87,600 MWh a year at most.
+		expect(assessed({ p50MWh: 90_000, sigma: 0.1 }).warnings.join(' ')).toMatch(/capacity factor 102\.7 %/);
 	});
 });

@@ -9,7 +9,17 @@ import { energyPeriodFromPeakPeriod, normaliseOccurrences, rayleighBins, weibull
 import { flowDeviceRatedPowerKW, powerCurveKW, rotorPowerFunction } from './current';
 import { captureWidthPowerKW, powerMatrixFunction, powerMatrixRatedPowerKW, waveFluxFunction } from './wave';
 import { netLossFactor } from './losses';
-import { combinedSigma, exceedanceFactor } from './uncertainty';
+import {
+	combinedSigma,
+	EXCEEDANCE_HORIZON_YEARS,
+	exceedanceFactor,
+	horizonExceedanceFactor,
+	horizonSigma,
+	sigmaFromExceedance,
+	splitSigmas,
+	type UncertaintyKind,
+	type UncertaintySplit
+} from './uncertainty';
 
 export type EnergyBin = {
 	/** Flow bins: centre speed. */
@@ -27,6 +37,9 @@ export type EnergyBin = {
 
 export type Exceedance = { levelPercent: number; factor: Decimal; aepMWh: Decimal };
 
+/** Exceedance levels of the mean annual energy over a horizon of some years. */
+export type HorizonExceedances = { horizonYears: number; sigma: Decimal; levels: Exceedance[] };
+
 export type EnergyEstimate = {
 	ratedPowerPerDeviceKW: Decimal;
 	installedCapacityKW: Decimal;
@@ -36,9 +49,16 @@ export type EnergyEstimate = {
 	lossFactor: Decimal;
 	/** P50 net energy of operating year 1 (before degradation), MWh/yr. */
 	netAepMWh: Decimal;
+	/** One-year sigma: all components, root sum of squares. */
 	combinedSigma: Decimal;
+	/** Sigma of each kind, for exceedance over other horizons (see energyFactor). */
+	uncertaintySplit: UncertaintySplit;
+	/** One-year exceedance levels (the same as exceedancesByHorizon's first). */
 	exceedances: Exceedance[];
+	exceedancesByHorizon: HorizonExceedances[];
 	p90AepMWh: Decimal;
+	/** How the energy was found: from the resource and the device, or given by an assessment. */
+	energySource: 'resource-and-device' | 'assessed';
 	/** Net AEP over installed capacity x hours in a year. */
 	capacityFactor: Decimal | null;
 	bins: EnergyBin[];
@@ -132,38 +152,90 @@ function binsWithPower(scenario: Scenario, warnings: string[]): { bins: EnergyBi
 	return { bins, ratedKW };
 }
 
+/** Rated power of one device, kW: the given rating, or the curve or matrix maximum. */
+function deviceRatedPowerKW(device: Scenario['device']): Decimal {
+	if (device.kind === 'rotor' || device.kind === 'power-curve') return flowDeviceRatedPowerKW(device);
+	if (device.kind === 'power-matrix') return powerMatrixRatedPowerKW(device);
+	return dec(device.ratedPowerKW);
+}
+
+type AssessedEnergy = Extract<Scenario['resource'], { kind: 'assessed-energy' }>;
+
+/**
+ * The uncertainty components: the scenario's own, and for an assessed energy
+ * the assessment's (a given P90 or total sigma counts as long-term; see
+ * sigmaFromExceedance for a P90).
+ */
+function uncertaintyComponents(scenario: Scenario, assessed: AssessedEnergy | null): { sigma: Decimal; kind: UncertaintyKind }[] {
+	const components = scenario.uncertainty.components.map((c) => ({ sigma: dec(c.sigma), kind: c.kind }));
+	if (!assessed) return components;
+	const own: { sigma: Decimal; kind: UncertaintyKind }[] = [];
+	if (assessed.p90MWh !== undefined) own.push({ sigma: sigmaFromExceedance(assessed.p50MWh, assessed.p90MWh, 90), kind: 'long-term' });
+	if (assessed.sigma !== undefined) own.push({ sigma: dec(assessed.sigma), kind: 'long-term' });
+	if (assessed.longTermSigma !== undefined) own.push({ sigma: dec(assessed.longTermSigma), kind: 'long-term' });
+	if (assessed.interAnnualSigma !== undefined) own.push({ sigma: dec(assessed.interAnnualSigma), kind: 'inter-annual' });
+	return [...own, ...components];
+}
+
 /**
  * Annual energy estimate.
  *
  *     gross AEP = N_devices x hours/yr x sum_i p_i P(bin_i) / 1000        (MWh)
+ *               = the assessed P50 for an assessed-energy resource (already net)
  *     net AEP (P50) = gross AEP x loss factor
- *     Pxx = P50 x max(0, 1 - z_xx sigma)
+ *     Pxx,N = P50 x max(0, 1 - z_xx sigma_N),  sigma_N = sqrt(sigma_LT^2 + sigma_IAV^2 / N)
  *     capacity factor = net AEP / (installed kW x hours / 1000)
  *
- * Source: IEC TS 62600-100 / -200 (mean annual energy from power matrix or
- * power curve times the resource occurrence); losses and exceedance levels as
- * in ./losses and ./uncertainty.
+ * For an assessed energy the schema holds the losses at their no-loss values,
+ * so the loss factor is 1; a sensitivity run that lowers availability still
+ * scales the assessed energy. Source: IEC TS 62600-100 / -200 (mean annual
+ * energy from power matrix or power curve times the resource occurrence);
+ * losses and exceedance levels as in ./losses and ./uncertainty.
  */
 export function estimateEnergy(scenario: Scenario): EnergyEstimate {
 	const warnings: string[] = [];
-	const { bins, ratedKW } = binsWithPower(scenario, warnings);
-	let grossAep = ZERO;
+	const assessed = scenario.resource.kind === 'assessed-energy' ? scenario.resource : null;
+	const { bins, ratedKW } = assessed ? { bins: [] as EnergyBin[], ratedKW: deviceRatedPowerKW(scenario.device) } : binsWithPower(scenario, warnings);
+	let grossAep = assessed ? dec(assessed.p50MWh) : ZERO;
 	let meanPower = ZERO;
 	for (const b of bins) {
 		grossAep = grossAep.plus(b.arrayGrossEnergyMWh);
 		meanPower = meanPower.plus(b.devicePowerKW.times(b.probability));
 	}
+	// Assessed: the mean (net) power of one device that delivers the P50.
+	if (assessed) meanPower = grossAep.times(1000).div(dec(scenario.hoursPerYear).times(scenario.array.deviceCount));
 	const lossFactor = netLossFactor(scenario.array);
 	const netAep = grossAep.times(lossFactor);
-	const sigma = combinedSigma(scenario.uncertainty.components.map((c) => c.sigma));
+
+	const components = uncertaintyComponents(scenario, assessed);
+	// The one-year sigma is the plain root sum of squares of every component (the same number as before horizons).
+	const sigma = combinedSigma(components.map((c) => c.sigma));
+	const split = splitSigmas(components);
 	const levels = [...new Set([90, ...scenario.uncertainty.exceedanceLevels])].sort((a, b) => a - b);
-	const exceedances = levels.map((levelPercent) => {
-		const factor = exceedanceFactor(levelPercent, sigma);
-		return { levelPercent, factor, aepMWh: netAep.times(factor) };
+	const exceedancesByHorizon = EXCEEDANCE_HORIZON_YEARS.map((horizonYears) => {
+		const sigmaN = horizonYears === 1 ? sigma : horizonSigma(split, horizonYears);
+		const atLevels = levels.map((levelPercent) => {
+			const factor = exceedanceFactor(levelPercent, sigmaN);
+			return { levelPercent, factor, aepMWh: netAep.times(factor) };
+		});
+		return { horizonYears, sigma: sigmaN, levels: atLevels };
 	});
+	const exceedances = exceedancesByHorizon[0].levels;
+
 	const installedKW = ratedKW.times(scenario.array.deviceCount);
 	const capacityMWhPerYear = installedKW.times(scenario.hoursPerYear).div(1000);
+	const capacityFactor = capacityMWhPerYear.isZero() ? null : netAep.div(capacityMWhPerYear);
 	if (netAep.isZero()) warnings.push('Net annual energy is zero: LCOE and energy-based metrics are undefined.');
+	if (assessed && capacityFactor?.gt(1)) {
+		warnings.push(
+			`The assessed P50 is more than the installed capacity can deliver in a year (capacity factor ${capacityFactor.times(100).toDecimalPlaces(1).toString()} %): check the P50, the rated power and the device count.`
+		);
+	}
+	if (assessed && scenario.uncertainty.components.length > 0) {
+		warnings.push(
+			`The ${scenario.uncertainty.components.length === 1 ? 'uncertainty component is' : `${scenario.uncertainty.components.length} uncertainty components are`} combined with the assessment's own uncertainty: list only what the assessment leaves out.`
+		);
+	}
 	return {
 		ratedPowerPerDeviceKW: ratedKW,
 		installedCapacityKW: installedKW,
@@ -172,10 +244,27 @@ export function estimateEnergy(scenario: Scenario): EnergyEstimate {
 		lossFactor,
 		netAepMWh: netAep,
 		combinedSigma: sigma,
+		uncertaintySplit: split,
 		exceedances,
+		exceedancesByHorizon,
 		p90AepMWh: exceedances.find((e) => e.levelPercent === 90)!.aepMWh,
-		capacityFactor: capacityMWhPerYear.isZero() ? null : netAep.div(capacityMWhPerYear),
+		energySource: assessed ? 'assessed' : 'resource-and-device',
+		capacityFactor,
 		bins,
 		warnings
 	};
+}
+
+/**
+ * Share of the P50 energy exceeded with probability `levelPercent` % by the
+ * mean annual energy over `horizonYears`: what debt sizing multiplies each
+ * year's P50 energy by to size on, say, the one-year P90.
+ *
+ *     f = max(0, 1 - z_xx sqrt(sigma_LT^2 + sigma_IAV^2 / N))
+ *
+ * Source: ./uncertainty horizonExceedanceFactor. Example: sigma_LT 8 %,
+ * sigma_IAV 6 %: P90 over 1 year 0.871845, over 10 years 0.894632.
+ */
+export function energyFactor(energy: Pick<EnergyEstimate, 'uncertaintySplit'>, levelPercent: number, horizonYears: number): Decimal {
+	return horizonExceedanceFactor(levelPercent, horizonYears, energy.uncertaintySplit);
 }
