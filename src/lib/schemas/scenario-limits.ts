@@ -30,6 +30,10 @@ export const SCENARIO_LIMITS = {
 	operatingYears: 60,
 	/** finance.depreciation.lifeYears */
 	depreciationLifeYears: 100,
+	/** finance.depreciation.schedule (and each asset class's): a share per operating year */
+	depreciationScheduleYears: 100,
+	/** finance.depreciation.assetClasses: tax regimes have a handful of pools */
+	depreciationAssetClasses: 20,
 	/** finance.debt.downsideCases: P90 and P99 are the usual ones */
 	downsideCases: 4,
 	/** revenue.indexationBaseYearsBeforeCod: a tariff priced at bid or financial close, a few years before COD */
@@ -53,6 +57,8 @@ export const SCENARIO_LIMIT_WORDS: Record<ScenarioLimit, string> = {
 	constructionYears: 'construction years',
 	operatingYears: 'operating years',
 	depreciationLifeYears: 'years of depreciation life',
+	depreciationScheduleYears: 'years in a depreciation schedule',
+	depreciationAssetClasses: 'asset classes',
 	downsideCases: 'downside sizing cases',
 	indexationBaseYears: 'years between the indexation base year and COD'
 };

@@ -552,6 +552,37 @@ const covenantsSchema = z
 	})
 	.describe('Covenants on the yearly DSCR while the loan is outstanding, left out when absent');
 
+/** How a part of the depreciable base is written off: the top-level rule, or an asset class's own. */
+const depreciationRuleFields = {
+	method: z
+		.enum(['straight-line', 'declining-balance', 'schedule'])
+		.describe('Straight line; declining balance switching to straight line when that is larger; or a schedule of shares per year (a published tax table)')
+		.default('straight-line'),
+	lifeYears: wholeYears('Tax depreciation life, years (defaults to the operating life; not used by schedule)', 1)
+		.max(SCENARIO_LIMITS.depreciationLifeYears, atMost('depreciationLifeYears'))
+		.optional(),
+	decliningBalanceFactor: positive('Declining-balance factor (2 = double declining, 1.5 = 150 %)').default(2),
+	firstYearConvention: z
+		.enum(['full-year', 'half-year'])
+		.optional()
+		.describe(
+			"full-year (absent): a whole year's charge in operating year 1; half-year: half a year's charge in year 1 and in the year after the life, as the US MACRS tables (not used by schedule)"
+		),
+	schedule: z
+		.array(fraction('Share of the depreciable base written off in this operating year'))
+		.max(SCENARIO_LIMITS.depreciationScheduleYears, atMost('depreciationScheduleYears'))
+		.optional()
+		.describe('For the schedule method: the share written off in each operating year, year 1 first; must sum to 1')
+};
+
+const depreciationAssetClassSchema = z
+	.strictObject({
+		name: lineName,
+		share: fraction('Share of the depreciable base in this class; leave it out on one class to give that class the rest').optional(),
+		...depreciationRuleFields
+	})
+	.describe('An asset class: a share of the depreciable base written off by its own rule');
+
 const financeSchema = z
 	.strictObject({
 		inflation: z.number().min(-0.05).max(0.5).describe('Inflation per year (fraction)').default(0.02),
@@ -559,18 +590,19 @@ const financeSchema = z
 		taxRate: fraction('Corporate tax rate').default(0),
 		depreciation: z
 			.strictObject({
-				method: z
-					.enum(['straight-line', 'declining-balance'])
-					.describe('Straight line, or declining balance switching to straight line when that is larger')
-					.default('straight-line'),
-				lifeYears: wholeYears('Tax depreciation life, years (defaults to the operating life)', 1)
-					.max(SCENARIO_LIMITS.depreciationLifeYears, atMost('depreciationLifeYears'))
-					.optional(),
-				decliningBalanceFactor: positive('Declining-balance factor (2 = double declining)').default(2)
+				...depreciationRuleFields,
+				assetClasses: z
+					.array(depreciationAssetClassSchema)
+					.max(SCENARIO_LIMITS.depreciationAssetClasses, atMost('depreciationAssetClasses'))
+					.optional()
+					.describe('Asset classes, each a share of the depreciable base with its own rule; when given, the rule fields above are not used')
 			})
 			.default({ method: 'straight-line', decliningBalanceFactor: 2 })
 			.describe('Tax depreciation of capex net of grants'),
 		taxLossCarryForward: z.boolean().describe('Carry tax losses forward against later profits').default(true),
+		taxLossCarryForwardCap: fraction(
+			"Share of a year's taxable profit that losses brought forward may offset, e.g. 0.6 for a 60 % rule; absent = no cap"
+		).optional(),
 		debt: debtSchema.default({ sizing: 'none' }),
 		reserves: reservesSchema.optional(),
 		covenants: covenantsSchema.optional()
@@ -625,6 +657,7 @@ export const scenarioSchema = scenarioObject.superRefine(
 		checkDevice(s.device, ctx);
 		checkPhasing(s, ctx);
 		checkFinance(s, ctx);
+		checkDepreciation(s, ctx);
 		checkReservesAndCovenants(s, ctx);
 	},
 	// Cross-field checks need a structurally valid document; they run once the field errors are fixed.
@@ -770,6 +803,37 @@ function checkReservesAndCovenants(s: z.output<typeof scenarioObject>, ctx: Refi
 	}
 	if (cashSweep?.when === 'in-lock-up' && lockUpDscr === undefined) {
 		flag(ctx, ['finance', 'covenants', 'cashSweep', 'when'], 'a sweep in lock-up needs a lock-up DSCR (finance.covenants.lockUpDscr)');
+	}
+}
+
+type DepreciationRuleFields = { method: string; schedule?: number[] };
+
+/** Schedules sum to 1 and asset-class shares add up to the base (the engine's tolerance, finance/depreciation.ts). */
+function checkDepreciation(s: z.output<typeof scenarioObject>, ctx: RefineCtx) {
+	const base = ['finance', 'depreciation'];
+	const checkSchedule = (rule: DepreciationRuleFields, path: (string | number)[]) => {
+		if (rule.method !== 'schedule') return;
+		if (!rule.schedule || rule.schedule.length === 0) {
+			flag(ctx, [...path, 'schedule'], 'the schedule method needs a schedule: the share written off in each operating year, summing to 1');
+			return;
+		}
+		const total = rule.schedule.reduce((a, b) => a + b, 0);
+		if (Math.abs(total - 1) > 1e-6) flag(ctx, [...path, 'schedule'], `schedule must sum to 1, sums to ${total}`);
+	};
+	const dep = s.finance.depreciation;
+	const classes = dep.assetClasses ?? [];
+	if (classes.length === 0) {
+		checkSchedule(dep, base);
+		return;
+	}
+	classes.forEach((c, i) => checkSchedule(c, [...base, 'assetClasses', i]));
+	const open = classes.map((c, i) => (c.share === undefined ? i : -1)).filter((i) => i >= 0);
+	open.slice(1).forEach((i) => flag(ctx, [...base, 'assetClasses', i, 'share'], 'only one asset class may leave its share empty (it takes the rest)'));
+	const given = classes.reduce((a, c) => a + (c.share ?? 0), 0);
+	if (open.length === 0 && Math.abs(given - 1) > 1e-6) {
+		flag(ctx, [...base, 'assetClasses'], `asset-class shares must sum to 1, sum to ${given}; or leave one share empty to take the rest`);
+	} else if (open.length === 1 && given > 1 + 1e-6) {
+		flag(ctx, [...base, 'assetClasses'], `the asset-class shares given sum to ${given}, more than 1, leaving nothing for the class without a share`);
 	}
 }
 

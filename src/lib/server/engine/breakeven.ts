@@ -32,7 +32,8 @@ export function flatTariffNpv(prep: CasePreparation): (pricePerMWh: Decimal) => 
 		const tax = corporateTax(
 			revenue.map((r, k) => r.minus(deductions[k])),
 			finance.taxRate,
-			finance.taxLossCarryForward
+			finance.taxLossCarryForward,
+			finance.taxLossCarryForwardCap
 		).tax;
 		let value = constructionValue;
 		revenue.forEach((r, k) => (value = value.plus(r.minus(cashCosts[k]).minus(tax[k]).times(df.operation[k]))));

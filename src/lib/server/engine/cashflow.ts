@@ -16,7 +16,7 @@ import type { Scenario } from '../../schemas/scenario';
 import type { EnergyEstimate } from './energy/yield';
 import { degradationFactors } from './energy/losses';
 import { nominalFromReal } from './finance/rates';
-import { depreciationSchedule } from './finance/depreciation';
+import { depreciationByYear } from './finance/depreciation';
 import { buildTimeline, discountFactorsOnTimeline, powersOnTimeline, presentValue, type Timeline, type TimeSeries } from './timeline';
 import { capexSchedule, decommissioningCost, opexSchedule, totalOpex, type CapexSchedule, type OpexSchedule } from './costs';
 import { deliveredEnergy, grantSchedule, revenueByYear, tariffInflationOf } from './revenue';
@@ -79,14 +79,7 @@ export function prepareCase(scenario: Scenario, energy: EnergyEstimate): CasePre
 	});
 	let depreciableCost = ZERO;
 	for (const f of fundingNeed) depreciableCost = depreciableCost.plus(f);
-	const dep = scenario.finance.depreciation;
-	const depreciation = depreciationSchedule(
-		dep.method,
-		depreciableCost,
-		dep.lifeYears ?? operatingYears,
-		operatingYears,
-		dep.decliningBalanceFactor
-	);
+	const depreciation = depreciationByYear(scenario.finance.depreciation, depreciableCost, operatingYears);
 	return {
 		scenario,
 		energy,
@@ -136,7 +129,7 @@ export function operate(prep: CasePreparation, pricePerMWh: readonly Decimal[]):
 	const decommissioning = Array.from({ length: n }, (_, k) => (k === n - 1 ? prep.decommissioning : ZERO));
 	const taxable = ebitda.map((e, k) => e.minus(prep.depreciation[k]).minus(decommissioning[k]));
 	const { finance } = prep.scenario;
-	const unleveredTax = corporateTax(taxable, finance.taxRate, finance.taxLossCarryForward).tax;
+	const unleveredTax = corporateTax(taxable, finance.taxRate, finance.taxLossCarryForward, finance.taxLossCarryForwardCap).tax;
 	const construction = prep.fundingNeed.map((f) => f.neg());
 	const operatingPreTax = ebitda.map((e, k) => e.minus(decommissioning[k]));
 	const projectPreTax = { construction, operation: operatingPreTax };
@@ -220,7 +213,7 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 	/** Tax with the given interest over the first interest.length years. */
 	const taxFor = (interest: readonly Decimal[]) => {
 		const taxableIncome = interest.map((i, k) => preInterest[k].minus(i));
-		return { taxableIncome, ...corporateTax(taxableIncome, finance.taxRate, finance.taxLossCarryForward) };
+		return { taxableIncome, ...corporateTax(taxableIncome, finance.taxRate, finance.taxLossCarryForward, finance.taxLossCarryForwardCap) };
 	};
 	const cfadsFor = (tax: readonly Decimal[]) => tax.map((t, k) => cashBeforeTax[k].minus(t));
 
