@@ -11,7 +11,8 @@ import type { Scenario } from '../../schemas/scenario';
 import { estimateEnergy, type EnergyEstimate, type Exceedance } from './energy/yield';
 import { financeCase, operate, prepareCase, type CasePreparation, type FinancingResult, type OperatingResult } from './cashflow';
 import { nominalPricePath } from './revenue';
-import { coverRatios, discountedLcoe, type CoverRatios, fixedChargeRateLcoe, internalRate, loanLifeCoverRatio, paybackYears } from './metrics';
+import { coverRatios, discountedLcoe, type CoverRatios, fixedChargeRateLcoe, internalRate, loanLifeCoverRatio, paybackYears, timedFlows } from './metrics';
+import { multipleIrrWarning, paybackReversalWarning } from './metric-warnings';
 import { solveBreakevenTariff } from './breakeven';
 import { METRIC_KEYS, METRICS, type MetricKey } from '../../metrics/catalogue';
 
@@ -52,6 +53,9 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 	const warnings = [...energy.warnings, ...prep.warnings, ...(financing?.warnings ?? [])];
 	const note = (metric: MetricKey, reason: string) => warnings.push(`${METRICS[metric].label} is not available: ${reason}.`);
 	const want = (m: MetricKey) => wanted.has(m);
+	const warnIf = (sentence: string | null) => {
+		if (sentence !== null) warnings.push(sentence);
+	};
 
 	const lcoe = discountedLcoe(prep);
 	if (lcoe.real === null && want('lcoeReal')) note('lcoeReal', lcoe.reason);
@@ -61,6 +65,7 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 		if (!want(metric)) return null;
 		const result = internalRate(series, times);
 		if (result.rate === null) note(metric, result.reason);
+		else warnIf(multipleIrrWarning(METRICS[metric].label, timedFlows(series, times), result.rate));
 		return result.rate;
 	};
 
@@ -68,6 +73,7 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 	if (want('paybackYears')) {
 		payback = paybackYears(operating.projectPostTax);
 		if (payback === null) note('paybackYears', 'the cumulative post-tax cash flow never turns positive');
+		else warnIf(paybackReversalWarning(METRICS.paybackYears.label, operating.projectPostTax));
 	}
 
 	let cover: CoverRatios = { perYear: [], min: null, average: null };
