@@ -42,6 +42,8 @@ const namedUnits: Record<string, string> = {
 	maxGearing: 'fraction',
 	upfrontFee: 'fraction of debt',
 	taxRate: 'fraction',
+	taxLossCarryForwardCap: 'fraction of profit',
+	schedule: 'fraction/yr',
 	contingency: 'fraction',
 	fraction: 'fraction'
 };
