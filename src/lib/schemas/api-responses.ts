@@ -279,7 +279,8 @@ export const spiderResponseSchema = z.object({
 				label: z.string(),
 				points: z.array(z.object({ change: z.number(), input: z.number(), output: decimalStringSchema.nullable() }))
 			})
-		)
+		),
+		warnings: z.array(z.string()).describe('Energy warnings the moved runs raise and the base case does not, each after the run it came from')
 	})
 });
 

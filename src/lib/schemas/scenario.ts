@@ -39,7 +39,10 @@ const siteSchema = z
 		waterDensityKgPerM3: positive('Seawater density, kg/m^3').default(1025),
 		gravityMPerS2: positive('Gravitational acceleration used in the wave energy flux, m/s^2').default(
 			9.80665
-		)
+		),
+		waterDepthM: positive(
+			'Still-water depth at the devices, m, for the wave energy flux at finite depth (linear dispersion). Leave out for deep water'
+		).optional()
 	})
 	.describe('Physical constants of the site');
 

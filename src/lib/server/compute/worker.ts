@@ -37,7 +37,7 @@ async function guarded<T>(compute: () => T | Promise<T>): Promise<TaskOutcome<T>
 	}
 }
 
-export type SpiderAnswer = { metric: MetricKey; unit: string; series: SpiderSeries[] };
+export type SpiderAnswer = { metric: MetricKey; unit: string; series: SpiderSeries[]; warnings: string[] };
 
 export const TASKS = {
 	evaluate: (input: { document: Scenario }): Promise<TaskOutcome<EngineResult>> => guarded(() => evaluateScenario(input.document)),

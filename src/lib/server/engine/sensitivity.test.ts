@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { atbCase } from './testing/fixtures';
 import { evaluateDetailed } from './evaluate';
-import { applyDriver, defaultDrivers, DRIVER_IDS, spider, tornado } from './sensitivity';
+import { applyDriver, defaultDrivers, DRIVER_IDS, DRIVERS, spider, tornado } from './sensitivity';
 import { SCENARIO_LIMITS } from '../../schemas/scenario-limits';
 import { parseScenario } from '../../schemas/scenario';
 
@@ -48,6 +48,29 @@ describe('spider', () => {
 		// Higher discount rate, higher LCOE (capex-heavy case).
 		const rate = s.series[1].points.map((p) => Number(p.output));
 		expect(rate[4]).toBeGreaterThan(rate[0]);
+	});
+});
+
+describe('energy warnings from driver runs', () => {
+	// Two sea states at Te 7 s; the matrix's cells reach Hs 0.5..2.5 m, so Hs 2.3 m is covered at base
+	// but not at 1.1 x base (2.53 m) nor at +20 % (2.76 m): half the hours then fall outside.
+	const wave = atbCase({
+		technology: 'wave',
+		resource: { kind: 'sea-state-table', states: [{ hsM: 1, periodS: 7, occurrence: 0.5 }, { hsM: 2.3, periodS: 7, occurrence: 0.5 }] },
+		device: { kind: 'power-matrix', hsM: [1, 2], periodS: [6, 8], powerKW: [[100, 100], [200, 200]] }
+	});
+	const outside = '50 % of the time falls in sea states outside the power matrix, which give no power: 50 % with Hs above it (over 2.5 m).';
+	const resource = DRIVERS.resource.label;
+
+	it('tornado names the run that pushes sea states outside the power matrix', () => {
+		const t = tornado(wave, [{ driver: 'resource', low: 0.9, high: 1.1 }], 'netAepMWh');
+		expect(t.warnings).toEqual([`${resource} at the high value (1.1 x base): ${outside}`]);
+	});
+
+	it('spider does the same for each step that pushes them out', () => {
+		const s = spider(wave, ['resource', 'capex'], 'netAepMWh', [-0.2, 0, 0.1, 0.2]);
+		expect(s.warnings).toEqual([`${resource} at +10 %: ${outside}`, `${resource} at +20 %: ${outside}`]);
+		expect(spider(base, ['resource'], 'lcoeReal').warnings).toEqual([]);
 	});
 });
 

@@ -263,11 +263,29 @@ export type TornadoRow = {
 /** `unit`: the unit of the outputs as sent (rates as fractions), with the scenario's currency, from the metric catalogue. */
 export type TornadoResult = { metric: MetricKey; unit: string; baseOutput: DecimalString | null; rows: TornadoRow[]; warnings: string[] };
 
-/** Evaluates scenarios for one metric, reusing the base energy estimate where a driver leaves it alone. */
+/**
+ * Evaluates scenarios for one metric, reusing the base energy estimate where a
+ * driver leaves it alone. Energy warnings a driver run raises and the base case
+ * does not (sea states pushed outside the power matrix, distribution bins
+ * widened) are kept in `warnings`, each after the words naming the run.
+ */
 function metricEvaluator(metric: MetricKey, base: Scenario) {
 	const baseEnergy: EnergyEstimate = estimateEnergy(base);
-	return (s: Scenario, changesEnergy: boolean): Decimal | null => evaluateMetric(s, metric, changesEnergy ? undefined : baseEnergy);
+	const baseWarnings = new Set(baseEnergy.warnings);
+	const warnings: string[] = [];
+	const evaluate = (s: Scenario, changesEnergy: boolean, run = ''): Decimal | null => {
+		if (!changesEnergy) return evaluateMetric(s, metric, baseEnergy);
+		const energy = estimateEnergy(s);
+		for (const warning of energy.warnings) {
+			const line = `${run}: ${warning}`;
+			if (!baseWarnings.has(warning) && !warnings.includes(line)) warnings.push(line);
+		}
+		return evaluateMetric(s, metric, energy);
+	};
+	return { evaluate, warnings };
 }
+
+const signedPercent = (change: number) => `${change > 0 ? '+' : ''}${Number((change * 100).toPrecision(6))} %`;
 
 /**
  * Tornado: for each driver the output at its low and at its high value, all
@@ -276,13 +294,13 @@ function metricEvaluator(metric: MetricKey, base: Scenario) {
  * sensitivity).
  */
 export function tornado(scenario: Scenario, drivers: readonly DriverRange[], metric: MetricKey): TornadoResult {
-	const evaluate = metricEvaluator(metric, scenario);
+	const { evaluate, warnings: runWarnings } = metricEvaluator(metric, scenario);
 	const baseOutput = evaluate(scenario, false);
 	const warnings: string[] = [];
 	const rows = drivers.map(({ driver, low, high }) => {
 		const def = DRIVERS[driver];
-		const lowOutput = evaluate(def.apply(scenario, low), def.changesEnergy);
-		const highOutput = evaluate(def.apply(scenario, high), def.changesEnergy);
+		const lowOutput = evaluate(def.apply(scenario, low), def.changesEnergy, `${def.label} at the low value (${low} ${def.unit})`);
+		const highOutput = evaluate(def.apply(scenario, high), def.changesEnergy, `${def.label} at the high value (${high} ${def.unit})`);
 		if (lowOutput === null || highOutput === null) warnings.push(`${def.label}: ${METRICS[metric].label} is undefined at the ${lowOutput === null ? 'low' : 'high'} value.`);
 		const swing = lowOutput !== null && highOutput !== null ? highOutput.minus(lowOutput).abs() : null;
 		return { row: { driver, label: def.label, unit: def.unit, baseInput: def.base(scenario), lowInput: low, highInput: high }, lowOutput, highOutput, swing };
@@ -294,7 +312,7 @@ export function tornado(scenario: Scenario, drivers: readonly DriverRange[], met
 		unit: engineValueUnit(metric, scenario.currency),
 		baseOutput: str(baseOutput),
 		rows: rows.map((r) => ({ ...r.row, lowOutput: str(r.lowOutput), highOutput: str(r.highOutput), swing: str(r.swing) })),
-		warnings
+		warnings: [...warnings, ...runWarnings]
 	};
 }
 
@@ -307,24 +325,25 @@ export type SpiderSeries = {
 /**
  * Spider: each driver's base input moved by the same relative changes (for
  * example -20 % .. +20 %), the output at each. Drivers whose base input is 0
- * (no debt, no degradation) stay flat. Source: common practice.
+ * (no debt, no degradation) stay flat. `warnings`: energy warnings the moved
+ * runs raise and the base does not. Source: common practice.
  */
 export function spider(
 	scenario: Scenario,
 	drivers: readonly DriverId[],
 	metric: MetricKey,
 	changes: readonly number[] = [-0.2, -0.1, 0, 0.1, 0.2]
-): { metric: MetricKey; unit: string; series: SpiderSeries[] } {
-	const evaluate = metricEvaluator(metric, scenario);
+): { metric: MetricKey; unit: string; series: SpiderSeries[]; warnings: string[] } {
+	const { evaluate, warnings } = metricEvaluator(metric, scenario);
 	const series = drivers.map((driver) => {
 		const def = DRIVERS[driver];
 		const base = def.base(scenario);
 		const points = changes.map((change) => {
 			const input = base * (1 + change);
-			const output = evaluate(def.apply(scenario, input), def.changesEnergy);
+			const output = evaluate(def.apply(scenario, input), def.changesEnergy, `${def.label} at ${signedPercent(change)}`);
 			return { change, input, output: output === null ? null : decimalString(output) };
 		});
 		return { driver, label: def.label, points };
 	});
-	return { metric, unit: engineValueUnit(metric, scenario.currency), series };
+	return { metric, unit: engineValueUnit(metric, scenario.currency), series, warnings };
 }

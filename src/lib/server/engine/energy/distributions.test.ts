@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { Decimal, dec, sum } from '../decimal';
-import { energyPatternFactor, energyPeriodFromPeakPeriod, normaliseOccurrences, rayleighBins, weibullBins } from './distributions';
+import { energyPatternFactor, energyPeriodFromPeakPeriod, MAX_DISTRIBUTION_BINS, normaliseOccurrences, rayleighBins, weibullBins } from './distributions';
 
 /** Gamma function by the Lanczos approximation (g = 7), for the Weibull moments. */
 function gamma(x: number): number {
@@ -48,6 +48,57 @@ describe('weibullBins', () => {
 		expect(bins[0].speedMPerS.toString()).toBe('0.05');
 		expect(bins[0].probability.toNumber()).toBeCloseTo(1 - Math.exp(-((0.1 / 2) ** 2)), 15);
 		expect(sum(bins.map((b) => b.probability)).toNumber()).toBeCloseTo(1, 14);
+	});
+});
+
+describe('weibullBins with bins too fine for the cap', () => {
+	// Weibull c 2.5 m/s, k 2: the bins reach v_max = 2.5 sqrt(-ln 1e-9) = 2.5 x 4.55228 = 11.3807 m/s (tail 1e-9).
+	// E[v^3] = c^3 G(1 + 3/k) = 15.625 x G(2.5) = 15.625 x 1.329340 = 20.7709 m^3/s^3 (Weibull moments, statistics texts).
+	const meanCube = (bins: ReturnType<typeof weibullBins>) => sum(bins.map((b) => b.probability.times(b.speedMPerS.pow(3)))).toNumber();
+	const exact = 2.5 ** 3 * gamma(2.5);
+
+	it.each([
+		// 0.0001 m/s would need 113,808 bins: the smallest multiple reaching 11.3807 m/s in 10,000 is 12 x 0.0001 = 0.0012.
+		[0.0001, '0.0012'],
+		// 0.00001 m/s would need 1,138,071 bins: 114 x 0.00001 = 0.00114.
+		[0.00001, '0.00114']
+	])('widens %d m/s bins to %s m/s, keeps the energy and says so', (width, used) => {
+		// Before, the bins stopped at 10,000 x width (1 m/s and 0.1 m/s) with the whole tail on the last bin:
+		// E[v^3] fell to about 1 m^3/s^3 and 0.001 m^3/s^3, most or all of the energy lost without a word.
+		const warnings: string[] = [];
+		const bins = weibullBins(2.5, 2, width, warnings);
+		expect(bins.length).toBeLessThanOrEqual(MAX_DISTRIBUTION_BINS);
+		expect(bins[1].speedMPerS.minus(bins[0].speedMPerS).toString()).toBe(used);
+		expect(Math.abs(meanCube(bins) / exact - 1)).toBeLessThan(1e-5);
+		expect(sum(bins.map((b) => b.probability)).toNumber()).toBeCloseTo(1, 14);
+		expect(warnings).toEqual([
+			`The Weibull distribution's bins of ${width} m/s would take more than 10,000 bins to reach 11.3807 m/s, where the tail left is 1e-9; bins of ${used} m/s were used instead.`
+		]);
+	});
+
+	it('names the Rayleigh distribution when it is the one widened', () => {
+		const warnings: string[] = [];
+		const bins = rayleighBins(1.8, 0.00001, warnings);
+		expect(warnings[0]).toMatch(/^The Rayleigh distribution's bins of 0\.00001 m\/s .* bins of 0\.00\d+ m\/s were used instead\.$/);
+		// Rayleigh mean = c sqrt(pi)/2 (textbook): the mean survives the wider bins.
+		expect(sum(bins.map((b) => b.probability.times(b.speedMPerS))).toNumber()).toBeCloseTo(1.8, 5);
+	});
+
+	it('leaves a width that fits alone, without a warning', () => {
+		// c 2, k 2: v_max = 9.1 m/s, 9,105 bins of 0.001 m/s fit under the cap.
+		const warnings: string[] = [];
+		const bins = weibullBins(2, 2, 0.001, warnings);
+		expect(bins).toHaveLength(9105);
+		expect(bins[0].speedMPerS.toString()).toBe('0.0005');
+		expect(warnings).toEqual([]);
+	});
+
+	it('copes with a width so small that the multiple overflows', () => {
+		const warnings: string[] = [];
+		const bins = weibullBins(2.5, 2, 1e-320, warnings);
+		expect(bins.length).toBeLessThanOrEqual(MAX_DISTRIBUTION_BINS);
+		expect(Math.abs(meanCube(bins) / exact - 1)).toBeLessThan(1e-5);
+		expect(warnings).toHaveLength(1);
 	});
 });
 

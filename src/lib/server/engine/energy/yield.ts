@@ -7,7 +7,7 @@ import { dec, Decimal, ZERO } from '../decimal';
 import type { Scenario } from '../../../schemas/scenario';
 import { energyPeriodFromPeakPeriod, normaliseOccurrences, rayleighBins, weibullBins, type FlowBin, type SeaStateBin } from './distributions';
 import { flowDeviceRatedPowerKW, powerCurveKW, rotorPowerFunction } from './current';
-import { captureWidthPowerKW, powerMatrixFunction, powerMatrixRatedPowerKW, waveFluxFunction } from './wave';
+import { captureWidthPowerKW, matrixCoverageWarning, powerMatrixCoverage, powerMatrixFunction, powerMatrixRatedPowerKW, waveFluxFunction } from './wave';
 import { netLossFactor } from './losses';
 import {
 	combinedSigma,
@@ -24,7 +24,7 @@ import {
 export type EnergyBin = {
 	/** Flow bins: centre speed. */
 	speedMPerS?: Decimal;
-	/** Sea states: Hs, energy period and the deep-water flux. */
+	/** Sea states: Hs, energy period and the flux at the site's water depth (deep water when none is given). */
 	hsM?: Decimal;
 	teS?: Decimal;
 	fluxKWPerM?: Decimal;
@@ -67,8 +67,8 @@ export type EnergyEstimate = {
 
 function flowBins(scenario: Scenario, warnings: string[]): FlowBin[] {
 	const r = scenario.resource;
-	if (r.kind === 'weibull') return weibullBins(r.scaleMPerS, r.shape, r.binWidthMPerS);
-	if (r.kind === 'rayleigh') return rayleighBins(r.meanSpeedMPerS, r.binWidthMPerS);
+	if (r.kind === 'weibull') return weibullBins(r.scaleMPerS, r.shape, r.binWidthMPerS, warnings);
+	if (r.kind === 'rayleigh') return rayleighBins(r.meanSpeedMPerS, r.binWidthMPerS, warnings);
 	if (r.kind !== 'speed-histogram') return [];
 	const probabilities = normaliseOccurrences(r.bins.map((b) => b.occurrence));
 	if (!probabilities) {
@@ -129,25 +129,18 @@ function binsWithPower(scenario: Scenario, warnings: string[]): { bins: EnergyBi
 			: device.periodType === 'peak-period'
 				? device.periodS.map((p) => energyPeriodFromPeakPeriod(p, device.teOverTp))
 				: device.periodS;
-	let outside = ZERO;
-	const fluxOf = waveFluxFunction(site.waterDensityKgPerM3, site.gravityMPerS2);
+	const fluxOf = waveFluxFunction(site.waterDensityKgPerM3, site.gravityMPerS2, site.waterDepthM);
 	const lookup = device.kind === 'power-matrix' ? powerMatrixFunction(device, teAxis) : null;
-	const bins = seaStateBins(scenario, warnings).map((s) => {
+	const states = seaStateBins(scenario, warnings);
+	const bins = states.map((s) => {
 		const flux = fluxOf(s.hsM, s.teS);
 		let powerKW: Decimal;
 		if (device.kind === 'capture-width') powerKW = captureWidthPowerKW(device, flux);
-		else {
-			const looked = lookup ? lookup(s.hsM, s.teS) : null;
-			if (looked === null) outside = outside.plus(s.probability);
-			powerKW = looked ?? ZERO;
-		}
+		else powerKW = (lookup ? lookup(s.hsM, s.teS) : null) ?? ZERO;
 		return withEnergy({ hsM: s.hsM, teS: s.teS, fluxKWPerM: flux, probability: s.probability, devicePowerKW: powerKW });
 	});
-	if (outside.gt(0)) {
-		warnings.push(
-			`${outside.times(100).toDecimalPlaces(2).toString()} % of the time falls in sea states outside the power matrix; they produce no power.`
-		);
-	}
+	const uncovered = device.kind === 'power-matrix' ? matrixCoverageWarning(powerMatrixCoverage(device, teAxis, states)) : null;
+	if (uncovered) warnings.push(uncovered);
 	const ratedKW = device.kind === 'power-matrix' ? powerMatrixRatedPowerKW(device) : dec(device.ratedPowerKW);
 	return { bins, ratedKW };
 }
