@@ -130,6 +130,19 @@ function siteAndResource(document: Scenario): AssumptionSection {
 			list.push({ label: 'Period given as', value: periods(r.periodType) });
 			if (r.periodType === 'peak-period') list.push(...facts(document, [['Te/Tp', ['resource', 'teOverTp']]]));
 			break;
+		case 'assessed-energy':
+			list.push({ label: 'Resource given as', value: 'Net annual energy from an independent yield assessment, taken as given (the device is used for its rated power only)' });
+			if (r.assessedBy) list.push({ label: 'Assessed by', value: r.assessedBy });
+			list.push(
+				...facts(document, [
+					['Net annual energy, P50', ['resource', 'p50MWh']],
+					['Net annual energy, P90 (one year)', ['resource', 'p90MWh']],
+					['Total uncertainty (sigma)', ['resource', 'sigma']],
+					['Year-to-year variability (sigma)', ['resource', 'interAnnualSigma']],
+					['Long-term uncertainty (sigma)', ['resource', 'longTermSigma']]
+				])
+			);
+			break;
 	}
 	return { title: 'Site and resource', facts: list, tables: [] };
 }
@@ -352,17 +365,28 @@ function operatingCosts(document: Scenario, result: EngineResult): AssumptionSec
 	};
 }
 
+const indexationMethodLabels: Record<Scenario['revenue']['indexationMethod'], string> = {
+	'indexed-share': 'A share of the price indexed, the rest fixed in money',
+	'scaled-inflation': 'The whole price indexed to a share of inflation'
+};
+
 function revenue(document: Scenario, result: EngineResult): AssumptionSection {
 	const grants = document.revenue.grants;
 	return {
 		title: 'Revenue and grants',
 		facts: [
 			...facts(document, [
-				['Tariff (real, COD-year prices)', ['revenue', 'tariffPerMWh']],
-				['Support period', ['revenue', 'supportYears']],
-				['Tariff indexation', ['revenue', 'tariffIndexation']],
-				['Merchant price after support (real)', ['revenue', 'merchantPricePerMWh']],
-				['Merchant price escalation', ['revenue', 'merchantEscalation']]
+				['Tariff (prices of the indexation base year)', ['revenue', 'tariffPerMWh']],
+				['Support period', ['revenue', 'supportYears']]
+			]),
+			{ label: 'Tariff indexation', value: indexationMethodLabels[document.revenue.indexationMethod] },
+			...facts(document, [
+				['Indexed', ['revenue', 'tariffIndexation']],
+				['Indexation base year before COD', ['revenue', 'indexationBaseYearsBeforeCod']],
+				['Tariff and merchant price inflation', ['revenue', 'tariffInflation']],
+				['Merchant price after support (real, COD-year prices)', ['revenue', 'merchantPricePerMWh']],
+				['Merchant price escalation', ['revenue', 'merchantEscalation']],
+				['Curtailment (unpaid)', ['revenue', 'curtailment']]
 			]),
 			...(grants.length > 0 ? [{ label: 'Grants in total (real)', value: money(result.costs.grantsRealTotal, document.currency) }] : [])
 		],
