@@ -53,6 +53,14 @@ describe('unitOf', () => {
 		expect(unitOf(['decommissioning', 'amount'], { decommissioning: { basis: 'per-kW', amount: 1 } }, 'EUR')).toBe('EUR/kW');
 	});
 
+	it('reads the tariff’s indexed share by the indexation method, and names the other revenue units', () => {
+		expect(unitOf(['revenue', 'tariffIndexation'], { revenue: { indexationMethod: 'indexed-share' } }, 'EUR')).toBe('fraction of price');
+		expect(unitOf(['revenue', 'tariffIndexation'], { revenue: { indexationMethod: 'scaled-inflation' } }, 'EUR')).toBe('fraction of inflation');
+		expect(unitOf(['revenue', 'indexationBaseYearsBeforeCod'], {}, 'EUR')).toBe('years');
+		expect(unitOf(['revenue', 'tariffInflation'], {}, 'EUR')).toBe('fraction/yr');
+		expect(unitOf(['revenue', 'curtailment'], {}, 'EUR')).toBe('fraction of net energy');
+	});
+
 	it('names occurrences as hours or probabilities by the histogram’s basis', () => {
 		expect(unitOf(['resource', 'bins', 0, 'occurrence'], tidal, 'EUR')).toBe('h/yr');
 		const byProbability = { resource: { ...tidal.resource, occurrenceBasis: 'probability' } };

@@ -28,6 +28,10 @@ const namedUnits: Record<string, string> = {
 	teOverTp: 'ratio',
 	captureWidthRatio: 'fraction',
 	sigma: 'fraction of P50',
+	interAnnualSigma: 'fraction of P50',
+	longTermSigma: 'fraction of P50',
+	p50MWh: 'MWh/yr',
+	p90MWh: 'MWh/yr',
 	targetDscr: '×',
 	decliningBalanceFactor: '×',
 	inflation: 'fraction/yr',
@@ -37,7 +41,9 @@ const namedUnits: Record<string, string> = {
 	merchantEscalation: 'fraction/yr',
 	tariffPerMWh: '{c}/MWh',
 	merchantPricePerMWh: '{c}/MWh',
-	tariffIndexation: 'share of inflation',
+	tariffInflation: 'fraction/yr',
+	indexationBaseYearsBeforeCod: 'years',
+	curtailment: 'fraction of net energy',
 	gearing: 'fraction',
 	maxGearing: 'fraction',
 	upfrontFee: 'fraction of debt',
@@ -46,6 +52,8 @@ const namedUnits: Record<string, string> = {
 	defaultDscr: '×',
 	share: 'fraction',
 	taxRate: 'fraction',
+	taxLossCarryForwardCap: 'fraction of profit',
+	schedule: 'fraction/yr',
 	contingency: 'fraction',
 	fraction: 'fraction'
 };
@@ -90,6 +98,8 @@ export function unitOf(path: FieldPath, document: unknown, currency: string): st
 		return withCurrency(amountUnits[basis] ?? '{c}', currency);
 	}
 	if (key === 'fraction') return fractionUnits[String(parent?.basis)] ?? 'fraction';
+	// The indexed share is a share of the price, or (scaled-inflation) a share of the inflation rate.
+	if (key === 'tariffIndexation') return parent?.indexationMethod === 'scaled-inflation' ? 'fraction of inflation' : 'fraction of price';
 	if (key === 'occurrence') {
 		const basis = at(document, [...path.slice(0, -3), 'occurrenceBasis']);
 		return basis === 'hours' ? 'h/yr' : 'probability';
