@@ -197,6 +197,82 @@ describe('parseScenario: assessed energy and uncertainty kinds', () => {
 	});
 });
 
+describe('parseScenario: depreciation and the carry-forward cap', () => {
+	// IRS Publication 946, Table A-1, 5-year property, as fractions
+	const fiveYear = [0.2, 0.32, 0.192, 0.1152, 0.1152, 0.0576];
+	const issuesOf = (patch: (doc: Record<string, any>) => void) => {
+		const r = withPatch(patch);
+		return r.ok ? [] : r.issues;
+	};
+
+	it('leaves the new fields out of a document that does not give them', () => {
+		// existing documents keep their numbers: no convention, schedule, classes or cap appear
+		const r = parseScenario(atbCaseInput);
+		if (!r.ok) throw new Error(JSON.stringify(r.issues));
+		expect(r.scenario.finance.depreciation.firstYearConvention).toBeUndefined();
+		expect(r.scenario.finance.depreciation.assetClasses).toBeUndefined();
+		expect(r.scenario.finance.taxLossCarryForwardCap).toBeUndefined();
+	});
+
+	it('accepts a schedule summing to 1, asset classes and a cap', () => {
+		const r = withPatch((d) => {
+			d.finance.depreciation = {
+				method: 'schedule',
+				schedule: fiveYear,
+				assetClasses: [
+					{ name: 'Devices', share: 0.7, method: 'declining-balance', lifeYears: 7, firstYearConvention: 'half-year' },
+					{ name: 'Export cable', method: 'schedule', schedule: fiveYear }
+				]
+			};
+			d.finance.taxLossCarryForwardCap = 0.6;
+		});
+		if (!r.ok) throw new Error(JSON.stringify(r.issues));
+		expect(r.scenario.finance.depreciation.assetClasses?.[0].decliningBalanceFactor).toBe(2);
+	});
+
+	it('refuses a schedule that does not sum to 1, or is missing, naming its path', () => {
+		expect(issuesOf((d) => (d.finance.depreciation = { method: 'schedule', schedule: [0.5, 0.4] }))).toEqual([
+			{ path: 'finance.depreciation.schedule', message: 'schedule must sum to 1, sums to 0.9' }
+		]);
+		expect(issuesOf((d) => (d.finance.depreciation = { method: 'schedule' }))).toEqual([
+			{ path: 'finance.depreciation.schedule', message: expect.stringMatching(/needs a schedule/) }
+		]);
+		const inClass = issuesOf((d) => (d.finance.depreciation = { assetClasses: [{ name: 'A', method: 'schedule', schedule: [0.6] }] }));
+		expect(inClass).toEqual([{ path: 'finance.depreciation.assetClasses[0].schedule', message: 'schedule must sum to 1, sums to 0.6' }]);
+	});
+
+	it('ignores a schedule left behind when the method is no longer schedule', () => {
+		// nothing already entered is lost when the method is switched back
+		expect(issuesOf((d) => (d.finance.depreciation = { method: 'straight-line', schedule: [0.5] }))).toEqual([]);
+	});
+
+	it('refuses asset-class shares that do not add up, or two classes taking the rest', () => {
+		expect(issuesOf((d) => (d.finance.depreciation = { assetClasses: [{ name: 'A', share: 0.5 }, { name: 'B', share: 0.4 }] }))).toEqual([
+			{ path: 'finance.depreciation.assetClasses', message: expect.stringMatching(/^asset-class shares must sum to 1, sum to 0.9/) }
+		]);
+		expect(issuesOf((d) => (d.finance.depreciation = { assetClasses: [{ name: 'A' }, { name: 'B' }] }))).toEqual([
+			{ path: 'finance.depreciation.assetClasses[1].share', message: expect.stringMatching(/only one asset class/) }
+		]);
+		expect(issuesOf((d) => (d.finance.depreciation = { assetClasses: [{ name: 'A', share: 0.8 }, { name: 'B', share: 0.3 }, { name: 'C' }] }))).toEqual([
+			{ path: 'finance.depreciation.assetClasses', message: expect.stringMatching(/more than 1/) }
+		]);
+		// one class alone, without a share, takes the whole base
+		expect(issuesOf((d) => (d.finance.depreciation = { assetClasses: [{ name: 'All' }] }))).toEqual([]);
+	});
+
+	it('bounds the cap, the schedule length and the number of classes', () => {
+		expect(issuesOf((d) => (d.finance.taxLossCarryForwardCap = 1.2))[0].path).toBe('finance.taxLossCarryForwardCap');
+		const long = Array.from({ length: SCENARIO_LIMITS.depreciationScheduleYears + 1 }, () => 1 / (SCENARIO_LIMITS.depreciationScheduleYears + 1));
+		expect(issuesOf((d) => (d.finance.depreciation = { method: 'schedule', schedule: long }))).toEqual([
+			{ path: 'finance.depreciation.schedule', message: 'at most 100 years in a depreciation schedule' }
+		]);
+		const many = Array.from({ length: SCENARIO_LIMITS.depreciationAssetClasses + 1 }, (_, i) => ({ name: `C${i}` }));
+		expect(issuesOf((d) => (d.finance.depreciation = { assetClasses: many }))).toEqual([
+			{ path: 'finance.depreciation.assetClasses', message: 'at most 20 asset classes' }
+		]);
+	});
+});
+
 describe('parseScenario: unknown keys', () => {
 	const refusal = (patch: (doc: Record<string, any>) => void) => {
 		const r = withPatch(patch);
