@@ -68,6 +68,37 @@ describe('estimateEnergy', () => {
 		const e = estimateEnergy(s);
 		expect(e.meanDevicePowerKW.toString()).toBe('75');
 		expect(e.warnings.join(' ')).toMatch(/25 % of the time falls in sea states outside the power matrix/);
+		expect(e.warnings.join(' ')).toMatch(/: 25 % with Hs above it \(over 2\.5 m\)\./);
+	});
+
+	it('prices sea states with the flux at the site depth, in the bins and for capture-width power', () => {
+		// CHECK-VALUES: Cg(T 10 s, h 20 m, g 9.81) = 9.27450 m/s; J = 1025 x 9.81 x 2^2 / 16 x 9.27450 = 23.3144 kW/m.
+		const wave = (waterDepthM?: number) =>
+			atbCase({
+				technology: 'wave',
+				site: { waterDensityKgPerM3: 1025, gravityMPerS2: 9.81, ...(waterDepthM === undefined ? {} : { waterDepthM }) },
+				resource: { kind: 'sea-state', hsM: 2, periodS: 10 },
+				device: { kind: 'capture-width', captureWidthRatio: 0.25, characteristicWidthM: 20, ratedPowerKW: 1000 }
+			});
+		const shelf = estimateEnergy(wave(20));
+		expect(shelf.bins[0].fluxKWPerM!.toNumber()).toBeCloseTo(23.3144, 3);
+		expect(shelf.meanDevicePowerKW.toNumber()).toBeCloseTo(23.3144 * 0.25 * 20, 2);
+		// Deep water (no depth): the deep-water flux, 19.6242 kW/m; the ratio is Cg/Cg0 = 1.18804.
+		const deep = estimateEnergy(wave());
+		expect(deep.bins[0].fluxKWPerM!.toString()).toBe(waveEnergyFluxKWPerM(2, 10, 1025, 9.81).toString());
+		expect(shelf.netAepMWh.div(deep.netAepMWh).toNumber()).toBeCloseTo(1.18804, 5);
+	});
+
+	it('widens Weibull bins too fine for the cap instead of losing the tail, and says so', () => {
+		const flow = (binWidthMPerS: number) => estimateEnergy(atbCase({ resource: { kind: 'weibull', scaleMPerS: 2.2, shape: 2.2, binWidthMPerS } }));
+		const usual = flow(0.1);
+		for (const width of [0.0001, 0.00001]) {
+			const fine = flow(width);
+			// The same energy to 0.1 % (bin-centre error of the 0.1 m/s bins), where before most or all of it was lost.
+			expect(Math.abs(fine.netAepMWh.div(usual.netAepMWh).toNumber() - 1)).toBeLessThan(1e-3);
+			expect(fine.warnings.join(' ')).toMatch(new RegExp(`bins of ${width} m/s would take more than 10,000 bins .* were used instead`));
+		}
+		expect(usual.warnings.join(' ')).not.toMatch(/were used instead/);
 	});
 });
 
