@@ -2,6 +2,9 @@ import { describe, expect, it } from 'vitest';
 import * as financial from 'financial';
 import { Decimal } from './decimal';
 import { multipleIrrWarning, npvZeroRates, paybackReversal, paybackReversalWarning, signChanges } from './metric-warnings';
+import { evaluateDetailed } from './evaluate';
+import { atbCase } from './testing/fixtures';
+import { METRICS } from '../../metrics/catalogue';
 
 const d = (xs: number[]) => xs.map((x) => new Decimal(x));
 const atYears = (xs: number[], first = 0) => xs.map((x, i) => ({ t: first + i, amount: new Decimal(x) }));
@@ -107,5 +110,32 @@ describe('paybackReversalWarning', () => {
 			'Payback: the cumulative post-tax project cash flow pays back but turns negative again in operating year 3 and stays negative to the end of the life; the payback figure does not show this.'
 		);
 		expect(paybackReversalWarning('Payback', { construction: d([-100]), operation: d([60, 60]) })).toBeNull();
+	});
+});
+
+describe('the warnings in an evaluation', () => {
+	it('warns of two IRRs and of a payback undone by a large decommissioning cost', () => {
+		// The fixture: 50 M capex at COD, EBITDA 30 660 MWh x 300 - 4 % x 50 M = 7.198 M a year for 20 years.
+		// With 100 M decommissioning in year 20 the post-tax (no tax) flows are -50, 7.198 x 19, -92.802 M:
+		// two sign changes. Hand evaluation of the NPV: -6.04 M at 0 %, +0.40 M at 2 %, -0.78 M at 8 %, so
+		// one IRR lies between 0 % and 2 % and another between 2 % and 8 %. Cumulative: 86.762 M after
+		// year 19, 86.762 + 7.198 - 100 = -6.04 M in year 20 (paid back in year 7).
+		const result = evaluateDetailed(atbCase({ decommissioning: { basis: 'lump-sum', amount: 100_000_000 } }), { breakeven: false });
+		const irrWarning = result.warnings.find((w) => w.startsWith(`${METRICS.projectIrrPostTax.label}: the cash flows change sign 2 times`));
+		expect(irrWarning).toMatch(/two rates do: (\d+\.\d\d) % and (\d+\.\d\d) %/);
+		const [, low, high] = irrWarning!.match(/two rates do: (\d+\.\d\d) % and (\d+\.\d\d) %/)!.map(Number);
+		expect(low).toBeGreaterThan(0);
+		expect(low).toBeLessThan(2);
+		expect(high).toBeGreaterThan(2);
+		expect(high).toBeLessThan(8);
+		expect(result.warnings).toContain(
+			`${METRICS.paybackYears.label}: the cumulative post-tax project cash flow pays back but turns negative again in operating year 20 and stays negative to the end of the life; the payback figure does not show this.`
+		);
+	});
+
+	it('says nothing of either without the decommissioning cost', () => {
+		// the plain fixture: one sign change, cumulative rising to the end
+		const result = evaluateDetailed(atbCase(), { breakeven: false });
+		expect(result.warnings.filter((w) => w.includes('change sign') || w.includes('negative again'))).toEqual([]);
 	});
 });
