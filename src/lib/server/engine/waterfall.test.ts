@@ -78,7 +78,10 @@ describe('runWaterfall', () => {
 	});
 
 	it('funds, draws, tops up and releases a 6-month DSRA funded at COD (hand calculation)', () => {
-		// Reserve target: 6/12 of next year's debt service; it earns nothing. CFADS 160, 100, 200, 150, 60.
+		// Hand calculation; no published DSRA example with figures was found. The target (months of the next
+		// year's debt service, here half of next year's, as in E. Bodmer, "Debt service reserve accounts",
+		// edbodmer.com) and funding in full on the last day of construction follow R. Wärnelid, "Debt Service
+		// Reserve Account (DSRA)", Mazars financial modelling (2015). It earns nothing. CFADS 160, 100, 200, 150, 60.
 		//   COD:    funded with 6/12 x 140 = 70.
 		//   year 1: cash 160 - 140 = 20; target 6/12 x 130 = 65, so 5 is released; distribution 25.
 		//   year 2: CFADS 100 < 130: 30 drawn, reserve 35; nothing left to top up; distribution 0.
