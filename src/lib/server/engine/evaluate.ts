@@ -116,6 +116,8 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 		minDscr: cover.min,
 		avgDscr: cover.average,
 		llcr,
+		// Filled by the cash waterfall (./waterfall) once it is wired into the cash-flow model.
+		yearsInLockUp: null,
 		debtAmount: financing ? (debt ? debt.balanceAtCod : new Decimal(0)) : null,
 		breakevenTariff
 	};
