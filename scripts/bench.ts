@@ -6,11 +6,10 @@
  * For each example: the median wall time of one evaluation (evaluateScenario,
  * with the breakeven solve and the plain-data result), of a 12-driver tornado
  * on equity IRR (24 evaluations plus the base, every stage; on LCOE too, which
- * skips the debt pass), of the breakeven solve alone, and of the same
- * case in plain float64 (engine/float-twin), with the decimal/float ratio.
+ * skips the debt pass), and of the breakeven solve alone.
  * CPU time per evaluation is printed too: on a busy machine wall time includes
  * waiting for a core, CPU time does not.
- * Goals: one evaluation < 5 ms, tornado < 100 ms, decimal within 30x of float64.
+ * Goals: one evaluation < 5 ms, tornado < 100 ms.
  *
  * Then the PDF summary of a 30-year case (the tidal example with its
  * operating life set to 30 years, its tornado and method notes given, as the
@@ -25,7 +24,6 @@ import { estimateEnergy } from '../src/lib/server/engine/energy/yield';
 import { prepareCase } from '../src/lib/server/engine/cashflow';
 import { solveBreakevenTariff } from '../src/lib/server/engine/breakeven';
 import { defaultDrivers, tornado } from '../src/lib/server/engine/sensitivity';
-import { evaluateFloat } from '../src/lib/server/engine/float-twin';
 import { renderScenarioSummaryPdf, type ScenarioSummaryInput } from '../src/lib/server/pdf/summary';
 import { summaryNoteSlugs } from '../src/lib/server/pdf/note-choice';
 import { METHOD_NOTES } from '../src/lib/methods';
@@ -75,21 +73,15 @@ for (const file of files) {
 	// The evaluation starts the breakeven search at the real LCOE; so does this timing.
 	const lcoeReal = evaluateDetailed(scenario, { breakeven: false }).metrics.lcoeReal;
 	const breakeven = measure(() => solveBreakevenTariff(prep, lcoeReal), 200);
-	const float = measure(() => evaluateFloat(scenario), 2000);
 	const evaluations = solveBreakevenTariff(prep, lcoeReal).evaluations;
-	// The ratio of the fastest runs compares the arithmetic itself; medians are shown beside it.
-	const ratio = one.minMs / float.minMs;
-	const medianRatio = one.medianMs / float.medianMs;
-	const ok = one.medianMs < 5 && tor.medianMs < 100 && ratio <= 30;
+	const ok = one.medianMs < 5 && tor.medianMs < 100;
 	allOk &&= ok;
 
 	console.log(`${file} (${scenario.timeline.operatingYears} operating years)`);
 	console.log(`  one evaluation       ${show(one)}   goal < 5 ms: ${mark(one.medianMs < 5)}`);
 	console.log(`  tornado, ${drivers.length} drivers   ${show(tor)} on equity IRR   goal < 100 ms: ${mark(tor.medianMs < 100)}`);
 	console.log(`                       ${show(torLcoe)} on LCOE`);
-	console.log(`  breakeven solve      ${show(breakeven)}   ${evaluations} NPV passes`);
-	console.log(`  float64 twin         ${show(float)}`);
-	console.log(`  decimal / float64    ${ratio.toFixed(1)}x fastest runs, ${medianRatio.toFixed(1)}x medians   goal <= 30x: ${mark(ratio <= 30)}\n`);
+	console.log(`  breakeven solve      ${show(breakeven)}   ${evaluations} NPV passes\n`);
 }
 /** Median and fastest wall time of an async call over `runs` runs after `warmup`, and mean CPU time per run. */
 async function measureAsync(fn: () => Promise<unknown>, runs: number, warmup = 2): Promise<Timing> {

@@ -74,7 +74,7 @@ describe('projects', () => {
 describe('createScenario', () => {
 	it('stores the document at revision 1 with a first history entry, and makes the first scenario the base case', async () => {
 		const first = await createScenario({ projectId, name: 'Base', document: tidalDocument, userId: alice }, database.knex);
-		expect(first).toMatchObject({ name: 'Base', revision: 1, schemaVersion: 2, isBaseCase: true, createdBy: { id: alice, name: 'Alice Test' } });
+		expect(first).toMatchObject({ name: 'Base', revision: 1, schemaVersion: 3, isBaseCase: true, createdBy: { id: alice, name: 'Alice Test' } });
 		expect(first.document.name).toBe('Base');
 		expect(first.document.capex).toEqual(tidalDocument.capex);
 

@@ -302,7 +302,13 @@ const timelineSchema = z
 		constructionYears: wholeYears('Construction years before COD (the last one ends at t = 0)', 1)
 			.max(SCENARIO_LIMITS.constructionYears, atMost('constructionYears'))
 			.default(1),
-		operatingYears: wholeYears('Operating years after COD', 1).max(SCENARIO_LIMITS.operatingYears, atMost('operatingYears'))
+		operatingYears: wholeYears('Operating years after COD', 1).max(SCENARIO_LIMITS.operatingYears, atMost('operatingYears')),
+		spendTiming: z
+			.enum(['mid-year', 'quarterly', 'monthly', 'year-end'])
+			.describe(
+				"When each construction year's spend and debt draws fall: mid-year (one point in the middle of the year), quarterly or monthly (the year's share spread evenly, each at the middle of its quarter or month), or year-end (all at the year's end, the simplest annual convention)"
+			)
+			.default('mid-year')
 	})
 	.describe('Construction and operating periods');
 
@@ -471,21 +477,44 @@ const loanTerms = {
 	capitalizeInterestDuringConstruction: z
 		.boolean()
 		.describe('Roll interest during construction into the loan (true) or pay it from equity (false)')
-		.default(true)
+		.default(true),
+	fundingOrder: z
+		.enum(['equity-first', 'pro-rata'])
+		.describe('How construction spend is funded: all equity first, then debt; or debt and equity in step with each payment')
+		.default('equity-first'),
+	commitmentFee: fraction('Commitment fee per year on the undrawn part of the loan during construction').default(0)
 };
+
+const downsideCaseSchema = z.strictObject({
+	exceedancePercent: z
+		.number()
+		.gt(50)
+		.lt(100)
+		.describe('Exceedance level of the energy the debt is also sized on, percent (90 for P90, 99 for P99)'),
+	targetDscr: z.number().min(1).max(5).describe('Target DSCR in every debt-service year under that energy'),
+	horizonYears: z
+		.union([z.literal(1), z.literal(10)])
+		.describe('Horizon of the exceedance value: one year (the usual cover test) or ten years')
+		.default(1)
+});
 
 const debtSchema = z
 	.discriminatedUnion('sizing', [
 		z.strictObject({ sizing: z.literal('none').describe('How the debt is sized') }),
 		z.strictObject({
 			sizing: z.literal('gearing').describe('How the debt is sized'),
-			gearing: fraction('Share of construction spend (capex net of grants) funded by debt'),
+			gearing: fraction('Debt as a share of the total funding need: spend net of grants, financing costs during construction and reserves funded then'),
 			...loanTerms
 		}),
 		z.strictObject({
 			sizing: z.literal('target-dscr').describe('How the debt is sized'),
 			targetDscr: z.number().min(1).max(5).describe('Target debt service cover ratio in every repayment year'),
-			maxGearing: fraction('Cap on the share of construction spend funded by debt').default(0.8),
+			maxGearing: fraction('Cap on the debt as a share of the total funding need (spend net of grants, financing costs during construction and reserves funded then)').default(0.8),
+			downsideCases: z
+				.array(downsideCaseSchema)
+				.max(SCENARIO_LIMITS.downsideCases, atMost('downsideCases'))
+				.default([])
+				.describe('Further energy cases the debt is sized on, each with its own target (e.g. P90 at 1.20); the least debt of all cases governs'),
 			...loanTerms
 		})
 	])

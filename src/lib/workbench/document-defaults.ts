@@ -180,21 +180,23 @@ const loanTerms = {
 	graceYears: 0,
 	upfrontFee: 0.02,
 	repayment: 'annuity' as const,
-	capitalizeInterestDuringConstruction: true
+	capitalizeInterestDuringConstruction: true,
+	fundingOrder: 'equity-first' as const,
+	commitmentFee: 0
 };
 
 /** The debt under another sizing, keeping the loan terms already entered. */
 export function debtWithSizing(debt: Debt, sizing: Debt['sizing']): Debt {
 	const terms = debt.sizing === 'none' ? loanTerms : { ...loanTerms, ...debt };
-	const { interestRate, tenorYears, graceYears, upfrontFee, repayment, capitalizeInterestDuringConstruction } = terms;
-	const kept = { interestRate, tenorYears, graceYears, upfrontFee, repayment, capitalizeInterestDuringConstruction };
+	const { interestRate, tenorYears, graceYears, upfrontFee, repayment, capitalizeInterestDuringConstruction, fundingOrder, commitmentFee } = terms;
+	const kept = { interestRate, tenorYears, graceYears, upfrontFee, repayment, capitalizeInterestDuringConstruction, fundingOrder, commitmentFee };
 	switch (sizing) {
 		case 'none':
 			return { sizing };
 		case 'gearing':
 			return { sizing, gearing: debt.sizing === 'target-dscr' ? debt.maxGearing : 0.7, ...kept };
 		case 'target-dscr':
-			return { sizing, targetDscr: 1.3, maxGearing: debt.sizing === 'gearing' ? debt.gearing : 0.8, ...kept, repayment: 'sculpted' };
+			return { sizing, targetDscr: 1.3, maxGearing: debt.sizing === 'gearing' ? debt.gearing : 0.8, downsideCases: [], ...kept, repayment: 'sculpted' };
 	}
 }
 

@@ -27,21 +27,30 @@ describe('financeCase and the cash-flow identities', () => {
 
 	it('charges tax on EBITDA less depreciation, decommissioning and the interest actually paid', () => {
 		op.ebitda.forEach((e, k) => {
-			const taxable = e.minus(prep.depreciation[k]).minus(op.decommissioning[k]).minus(fin.interest[k]);
+			const taxable = e.minus(fin.depreciation[k]).minus(op.decommissioning[k]).minus(fin.interest[k]);
 			expect(fin.taxableIncome[k].eq(taxable)).toBe(true);
 		});
-		// Depreciation writes off capex net of grants over 15 years (SLN).
+		// Unlevered depreciation writes off capex net of grants over 15 years (SLN); the levered one also the
+		// financing costs of construction (interest, commitment and upfront fees), capitalised into the cost.
 		expect(sum(prep.depreciation).minus(sum(prep.fundingNeed)).abs().toNumber()).toBeLessThan(1e-12);
+		const financingCosts = fin.debt!.funding.financingCosts;
+		expect(financingCosts.toNumber()).toBeGreaterThan(0);
+		expect(sum(fin.depreciation).minus(sum(prep.fundingNeed).plus(financingCosts)).abs().toNumber()).toBeLessThan(1e-9);
 		expect(prep.depreciation[15].toString()).toBe('0');
 	});
 
 	it('funds construction with debt draws and equity, the fee paid at financial close', () => {
-		const debt = fin.debt!;
-		prep.fundingNeed.forEach((f, j) => {
-			const fee = j === 0 ? debt.upfrontFee : 0;
-			expect(fin.equity.construction[j].plus(f).minus(debt.draws[j]).plus(fee).abs().toNumber()).toBeLessThan(1e-12);
+		const { funding, balanceAtCod } = fin.debt!;
+		// Each payment is the spend, the fees then due and (interest being capitalised) nothing else: equity + draws.
+		prep.fundingNeed.forEach((f, p) => {
+			const fee = p === 0 ? funding.upfrontFee : 0;
+			const uses = f.plus(funding.commitmentFees[p]).plus(fee);
+			expect(funding.equity[p].plus(funding.draws[p]).minus(uses).abs().toNumber()).toBeLessThan(1e-9);
+			expect(fin.equity.construction[p].eq(funding.equity[p].neg())).toBe(true);
 		});
-		expect(debt.upfrontFee.eq(debt.balanceAtCod.times(0.015))).toBe(true);
+		expect(funding.upfrontFee.minus(balanceAtCod.times(0.015)).abs().toNumber()).toBeLessThan(1e-6);
+		// The balance at COD is every draw plus the interest capitalised on them.
+		expect(sum(funding.draws).plus(funding.interestDuringConstruction).minus(balanceAtCod).abs().toNumber()).toBeLessThan(1e-6);
 	});
 
 	it('settles the tax-interest circle: interest is the loan rows, DSCR is the target after grace', () => {

@@ -17,11 +17,12 @@ import type { EnergyEstimate } from './energy/yield';
 import { degradationFactors } from './energy/losses';
 import { nominalFromReal } from './finance/rates';
 import { depreciationByYear } from './finance/depreciation';
-import { buildTimeline, discountFactorsOnTimeline, powersOnTimeline, presentValue, type Timeline, type TimeSeries } from './timeline';
+import { buildTimeline, discountFactorsOnTimeline, overConstructionPoints, powersOnTimeline, presentValue, type Timeline, type TimeSeries } from './timeline';
 import { capexSchedule, decommissioningCost, opexSchedule, totalOpex, type CapexSchedule, type OpexSchedule } from './costs';
 import { deliveredEnergy, grantSchedule, revenueByYear, tariffInflationOf } from './revenue';
 import { corporateTax } from './tax';
 import { structureDebt, type DebtStructure } from './debt';
+import { horizonExceedanceFactor } from './energy/uncertainty';
 import { sculptedLoan } from './finance/loans';
 
 export type CasePreparation = {
@@ -46,7 +47,7 @@ export type CasePreparation = {
 	energyMWh: Decimal[];
 	capex: CapexSchedule;
 	grants: { realTotal: Decimal; nominal: Decimal[]; capped: boolean };
-	/** Nominal capex net of grants per construction year. */
+	/** Nominal capex net of grants at each construction point. */
 	fundingNeed: Decimal[];
 	opex: OpexSchedule;
 	/** Nominal decommissioning cost, in the final operating year. */
@@ -56,10 +57,21 @@ export type CasePreparation = {
 	warnings: string[];
 };
 
+/**
+ * A per-year capex schedule spread over the construction points (each year's
+ * real spend split by the points' shares), in nominal money of each point:
+ * real x (1 + i)^t at the point's own t. `real` and `nominal` then hold one
+ * value per construction point.
+ */
+function capexAtPoints(perYear: CapexSchedule, timeline: Timeline, priceIndex: readonly Decimal[]): CapexSchedule {
+	const real = overConstructionPoints(perYear.real, timeline);
+	return { ...perYear, real, nominal: real.map((r, p) => r.times(priceIndex[p])) };
+}
+
 export function prepareCase(scenario: Scenario, energy: EnergyEstimate): CasePreparation {
 	const warnings: string[] = [];
 	const { constructionYears, operatingYears } = scenario.timeline;
-	const timeline = buildTimeline(constructionYears, operatingYears);
+	const timeline = buildTimeline(constructionYears, operatingYears, scenario.timeline.spendTiming);
 	const inflation = dec(scenario.finance.inflation);
 	const realDiscountRate = dec(scenario.finance.realDiscountRate);
 	const nominalDiscountRate = nominalFromReal(realDiscountRate, inflation);
@@ -67,7 +79,11 @@ export function prepareCase(scenario: Scenario, energy: EnergyEstimate): CasePre
 	const tariffInflation = tariffInflationOf(scenario);
 	const deliveredAepMWh = deliveredEnergy(energy.netAepMWh, scenario.revenue.curtailment);
 	const energyMWh = degradationFactors(scenario.array.degradationPerYear, operatingYears).map((f) => f.times(deliveredAepMWh));
-	const capex = capexSchedule(scenario.capex, energy.installedCapacityKW, scenario.array.deviceCount, priceIndex.construction);
+	const capex = capexAtPoints(
+		capexSchedule(scenario.capex, energy.installedCapacityKW, scenario.array.deviceCount, Array.from({ length: constructionYears }, () => ONE)),
+		timeline,
+		priceIndex.construction
+	);
 	const grants = grantSchedule(scenario.revenue.grants, capex.realTotal, capex.real, priceIndex.construction);
 	if (grants.capped) warnings.push('Grants exceed capex; they were limited to the capex.');
 	const fundingNeed = capex.nominal.map((c, j) => c.minus(grants.nominal[j]));
@@ -153,11 +169,16 @@ export type FinancingResult = {
 	principal: Decimal[];
 	debtService: Decimal[];
 	closingBalance: Decimal[];
+	/** Tax depreciation with the financing costs of construction in the depreciable cost. */
+	depreciation: Decimal[];
 	/** Tax actually paid, with interest deducted. */
 	tax: Decimal[];
 	taxableIncome: Decimal[];
 	lossCarriedForward: Decimal[];
 	cfads: Decimal[];
+	/** CFADS under each downside sizing case's energy (with the same debt), by label. */
+	downsideCfads: { label: string; cfads: Decimal[] }[];
+	/** Equity flows: paid in at each construction point (negative), received each operating year. */
 	equity: TimeSeries;
 	warnings: string[];
 };
@@ -191,10 +212,15 @@ function shieldedSculptingGuess(
 /**
  * Debt, levered tax, CFADS and equity cash flows.
  *
- *     taxable_k = EBITDA_k - depreciation_k - decommissioning_k - interest_k
+ *     taxable_k = EBITDA_k - depreciation'_k - decommissioning_k - interest_k
  *     CFADS_k   = EBITDA_k - decommissioning_k - tax_k
- *     equity_j  = -(F_j - draws_j) - fee_j - interest paid in construction_j   (t <= 0)
- *     equity_k  = CFADS_k - debt service_k                                   (t = k)
+ *     equity_p  = -(equity paid in at construction point p)        (./construction-funding)
+ *     equity_k  = CFADS_k - debt service_k                          (t = k)
+ *
+ * depreciation' is the depreciation of capex net of grants scaled up by the
+ * financing costs of construction (interest, commitment and upfront fees),
+ * which are capitalised into the depreciable cost (every method is linear in
+ * the cost, so scaling is exact).
  *
  * Interest lowers tax, which raises CFADS, which (for DSCR sizing or sculpting)
  * changes the debt: the circle is closed by fixed-point iteration, with an
@@ -202,34 +228,56 @@ function shieldedSculptingGuess(
  * moves by less than 1e-10 of the debt amount (it contracts by roughly
  * tax rate x interest rate per round). Only the loan's years take part: tax
  * losses carry forward, never back, so later years cannot change the debt.
- * Source: common practice.
+ * Downside sizing cases (P90, P99 energy) run the same tax with the same
+ * interest on their own EBITDA. Source: common practice.
  */
 export function financeCase(prep: CasePreparation, op: OperatingResult): FinancingResult {
 	const { finance } = prep.scenario;
 	const n = prep.timeline.operatingYears;
 	const warnings: string[] = [];
-	const preInterest = op.ebitda.map((e, k) => e.minus(prep.depreciation[k]).minus(op.decommissioning[k]));
-	const cashBeforeTax = op.ebitda.map((e, k) => e.minus(op.decommissioning[k]));
-	/** Tax with the given interest over the first interest.length years. */
-	const taxFor = (interest: readonly Decimal[]) => {
-		const taxableIncome = interest.map((i, k) => preInterest[k].minus(i));
+	const terms = finance.debt;
+	type Case = { label: string; exceedancePercent: number | null; horizonYears: number | null; targetDscr: number; ebitda: readonly Decimal[]; decommissioning: readonly Decimal[] };
+	const cases: Case[] = [{ label: 'P50', exceedancePercent: null, horizonYears: null, targetDscr: terms.sizing === 'target-dscr' ? terms.targetDscr : 0, ebitda: op.ebitda, decommissioning: op.decommissioning }];
+	if (terms.sizing === 'target-dscr') {
+		for (const downside of terms.downsideCases) {
+			const energy = scaledEnergy(prep.energy, horizonExceedanceFactor(downside.exceedancePercent, downside.horizonYears, prep.energy.uncertaintySplit));
+			const downsideOp = operate(prepareCase(prep.scenario, energy), op.pricePerMWh);
+			const horizon = downside.horizonYears === 1 ? '' : ` (${downside.horizonYears}-year)`;
+			cases.push({
+				label: `P${downside.exceedancePercent}${horizon}`,
+				exceedancePercent: downside.exceedancePercent,
+				horizonYears: downside.horizonYears,
+				targetDscr: downside.targetDscr,
+				ebitda: downsideOp.ebitda,
+				decommissioning: downsideOp.decommissioning
+			});
+		}
+	}
+	let depreciableCost = ZERO;
+	for (const f of prep.fundingNeed) depreciableCost = depreciableCost.plus(f);
+	let depreciation = prep.depreciation;
+	/** Tax with the given interest over the first interest.length years, for one case. */
+	const taxFor = (c: Case, interest: readonly Decimal[]) => {
+		const taxableIncome = interest.map((i, k) => c.ebitda[k].minus(depreciation[k]).minus(c.decommissioning[k]).minus(i));
 		return { taxableIncome, ...corporateTax(taxableIncome, finance.taxRate, finance.taxLossCarryForward, finance.taxLossCarryForwardCap) };
 	};
-	const cfadsFor = (tax: readonly Decimal[]) => tax.map((t, k) => cashBeforeTax[k].minus(t));
+	const cfadsFor = (c: Case, tax: readonly Decimal[]) => tax.map((t, k) => c.ebitda[k].minus(c.decommissioning[k]).minus(t));
+	const casesWith = (interest: readonly Decimal[]) => cases.map((c) => ({ ...c, cfads: cfadsFor(c, taxFor(c, interest).tax) }));
 
-	const terms = finance.debt;
 	if (terms.sizing === 'none') {
 		const zeros = op.ebitda.map(() => ZERO);
-		const taxed = taxFor(zeros);
-		const cfads = cfadsFor(taxed.tax);
+		const taxed = taxFor(cases[0], zeros);
+		const cfads = cfadsFor(cases[0], taxed.tax);
 		return {
 			debt: null,
 			interest: zeros,
 			principal: zeros,
 			debtService: zeros,
 			closingBalance: zeros,
+			depreciation,
 			...taxed,
 			cfads,
+			downsideCfads: [],
 			equity: { construction: prep.fundingNeed.map((f) => f.neg()), operation: cfads },
 			warnings
 		};
@@ -237,17 +285,18 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 
 	const span = terms.tenorYears;
 	let interest: Decimal[] = Array.from({ length: span }, () => ZERO);
-	let cfads = cfadsFor(taxFor(interest).tax);
-	if (terms.sizing === 'target-dscr' && terms.repayment === 'sculpted' && finance.taxRate > 0) {
-		interest = shieldedSculptingGuess(cfads, terms, finance.taxRate);
-		cfads = cfadsFor(taxFor(interest).tax);
+	if (terms.sizing === 'target-dscr' && terms.repayment === 'sculpted' && finance.taxRate > 0 && terms.downsideCases.length === 0) {
+		interest = shieldedSculptingGuess(cfadsFor(cases[0], taxFor(cases[0], interest).tax), terms, finance.taxRate);
 	}
-	let debt = structureDebt({ terms, fundingNeed: prep.fundingNeed, cfads, operatingYears: n });
-	// Gearing-sized annuity or straight-line debt does not depend on CFADS: one pass settles it.
-	const dependsOnCfads = terms.sizing === 'target-dscr' || terms.repayment === 'sculpted';
-	let converged = !dependsOnCfads;
+	const structure = () =>
+		structureDebt({ terms, timeline: prep.timeline, spend: prep.fundingNeed, cases: casesWith(interest), operatingYears: n });
+	const withFinancingCosts = (debt: DebtStructure) =>
+		depreciableCost.gt(0) ? prep.depreciation.map((d) => d.times(ONE.plus(debt.funding.financingCosts.div(depreciableCost)))) : prep.depreciation;
+	let debt = structure();
+	depreciation = withFinancingCosts(debt);
+	let converged = false;
 	let previousMove: Decimal | null = null;
-	for (let round = 0; !converged && round < MAX_TAX_ITERATIONS; round++) {
+	for (let round = 0; round < MAX_TAX_ITERATIONS; round++) {
 		const implied = debt.rows.slice(0, span).map((r) => r.interest);
 		let move = ZERO;
 		implied.forEach((v, k) => (move = Decimal.max(move, v.minus(interest[k]).abs())));
@@ -262,27 +311,30 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 			interest = implied.map((v, k) => v.plus(v.minus(interest[k]).times(ahead)));
 		} else interest = implied;
 		previousMove = move;
-		cfads = cfadsFor(taxFor(interest).tax);
-		debt = structureDebt({ terms, fundingNeed: prep.fundingNeed, cfads, operatingYears: n });
+		debt = structure();
+		depreciation = withFinancingCosts(debt);
 	}
-	const taxed = taxFor(debt.rows.map((r) => r.interest));
-	cfads = cfadsFor(taxed.tax);
+	const finalInterest = debt.rows.map((r) => r.interest);
+	const taxed = taxFor(cases[0], finalInterest);
+	const cfads = cfadsFor(cases[0], taxed.tax);
 	if (!converged) warnings.push('The debt and tax calculation did not settle; debt figures may be slightly off.');
 	warnings.push(...debt.warnings);
-
-	const construction = prep.fundingNeed.map((f, j) => {
-		const fee = j === 0 ? debt.upfrontFee : ZERO;
-		return f.minus(debt.draws[j]).plus(fee).plus(debt.interestPaidInConstruction[j]).neg();
-	});
 	return {
 		debt,
-		interest: debt.rows.map((r) => r.interest),
+		interest: finalInterest,
 		principal: debt.rows.map((r) => r.principal),
 		debtService: debt.debtService,
 		closingBalance: debt.rows.map((r) => r.closing),
+		depreciation,
 		...taxed,
 		cfads,
-		equity: { construction, operation: cfads.map((c, k) => c.minus(debt.debtService[k])) },
+		downsideCfads: cases.slice(1).map((c) => ({ label: c.label, cfads: cfadsFor(c, taxFor(c, finalInterest).tax) })),
+		equity: { construction: debt.funding.equity.map((e) => e.neg()), operation: cfads.map((c, k) => c.minus(debt.debtService[k])) },
 		warnings
 	};
+}
+
+/** The same energy estimate with its net energy scaled (a downside case's P90 or P99 energy). */
+function scaledEnergy(energy: EnergyEstimate, factor: Decimal): EnergyEstimate {
+	return { ...energy, netAepMWh: energy.netAepMWh.times(factor) };
 }

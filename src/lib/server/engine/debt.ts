@@ -1,30 +1,51 @@
 /**
- * Senior debt: drawdowns during construction, interest during construction,
- * sizing by gearing or by a target DSCR, and the repayment schedule after COD.
- * Amounts nominal; rates fractions per year.
+ * Senior debt: sizing by gearing or by target DSCRs on one or more energy
+ * cases, funding through construction (./construction-funding), and the
+ * repayment schedule after COD. Amounts nominal; rates fractions per year.
  */
 import { dec, Decimal, ONE, ZERO } from './decimal';
 import { annuityLoan, sculptedLoan, straightLineLoan, type LoanRow } from './finance/loans';
 import { npv } from './finance/discounting';
+import { fundConstruction, type ConstructionFunding } from './construction-funding';
+import type { Timeline } from './timeline';
 import type { DebtSpec } from '../../schemas/scenario';
 
 export type DebtTerms = Exclude<DebtSpec, { sizing: 'none' }>;
+type DscrTerms = Extract<DebtTerms, { sizing: 'target-dscr' }>;
+
+/** An energy case the debt is sized on: P50 at the main target, or a downside (P90, P99) at its own. */
+export type SizingCase = {
+	label: string;
+	/** Exceedance level of its energy (null for P50). */
+	exceedancePercent: number | null;
+	horizonYears: number | null;
+	targetDscr: number;
+	/** CFADS under this case's energy, each operating year. */
+	cfads: readonly Decimal[];
+};
+
+/** What one case allows: the balance at COD its target permits, and what binds it. */
+export type CaseCapacity = {
+	label: string;
+	targetDscr: number;
+	balance: Decimal;
+	/** repayment: the repayment years' cover; grace: interest-only years' cover; cfads: CFADS not positive. */
+	limitedBy: 'repayment' | 'grace' | 'cfads';
+};
 
 export type DebtStructure = {
-	/** How the amount was set: the gearing, the target DSCR, or the gearing cap on a DSCR-sized loan. */
+	/** How the amount was set: the gearing, a target DSCR (see governingCase), or the gearing cap on a DSCR-sized loan. */
 	sizedBy: 'gearing' | 'target-dscr' | 'gearing-cap';
-	/** Share of construction spend (capex net of grants) drawn as debt. */
-	drawShare: Decimal;
-	/** Debt drawn in each construction year. */
-	draws: Decimal[];
-	/** Interest during construction: capitalised into the balance, or paid by equity. */
-	interestDuringConstruction: Decimal;
-	/** Interest paid by equity in each construction year (zero when capitalised). */
-	interestPaidInConstruction: Decimal[];
+	/** The case whose target set the debt, when sizedBy is target-dscr. */
+	governingCase: string | null;
+	/** Each case's capacity, when sized by DSCR. */
+	capacities: CaseCapacity[];
+	/** The construction funding: draws, equity, interest and fees at each construction point. */
+	funding: ConstructionFunding;
+	/** Debt over the total funding need. */
+	gearing: Decimal;
 	/** Loan balance at COD, repaid over the tenor (the debt amount). */
 	balanceAtCod: Decimal;
-	/** Upfront fee paid by equity at financial close (first construction year). */
-	upfrontFee: Decimal;
 	/** One row per operating year (zeros after maturity). */
 	rows: LoanRow[];
 	debtService: Decimal[];
@@ -33,27 +54,15 @@ export type DebtStructure = {
 
 export type DebtInputs = {
 	terms: DebtTerms;
-	/** Nominal capex net of grants in each construction year. */
-	fundingNeed: readonly Decimal[];
-	/** Cash flow available for debt service in each operating year. */
-	cfads: readonly Decimal[];
+	timeline: Timeline;
+	/** Construction spend net of grants at each construction point, nominal. */
+	spend: readonly Decimal[];
+	/** Energy cases, P50 first; gearing sizing reads only the first (for sculpting). */
+	cases: readonly SizingCase[];
+	/** Reserve funded at COD from the funding (debt service reserve), nominal. */
+	reserveAtCod?: Decimal;
 	operatingYears: number;
 };
-
-/**
- * Growth of one unit drawn in construction year j by COD when interest is
- * capitalised: (1 + r)^(-t_j) = (1 + r)^(C - 1 - j); 1 when interest is paid.
- */
-function capitalisationFactors(rate: Decimal, years: number, capitalise: boolean): Decimal[] {
-	const factors: Decimal[] = new Array(years);
-	let f = ONE;
-	const step = ONE.plus(rate);
-	for (let j = years - 1; j >= 0; j--) {
-		factors[j] = f;
-		if (capitalise) f = f.times(step);
-	}
-	return factors;
-}
 
 function scheduleFor(repayment: 'annuity' | 'straight-line', principal: Decimal, terms: DebtTerms): LoanRow[] {
 	const build = repayment === 'annuity' ? annuityLoan : straightLineLoan;
@@ -66,44 +75,58 @@ function padRows(rows: LoanRow[], years: number): LoanRow[] {
 	return out;
 }
 
+const yearsList = (years: number[]) => (years.length === 1 ? `operating year ${years[0]}` : `operating years ${years.slice(0, -1).join(', ')} and ${years[years.length - 1]}`);
+
 /**
- * Largest balance at COD that the target DSCR allows, with the sculpted rows
- * when the repayment is sculpted (they are the schedule if the cap does not bind).
+ * Largest balance at COD that one case's target DSCR allows over the whole
+ * tenor, grace years included.
  *
- * Sculpted: debt service_k = CFADS_k / target over the repayment years, and the
- * balance is its present value at the loan rate (finance/loans sculptedLoan).
- * Annuity or straight line: service is proportional to the balance, so the
- * largest balance is min_k CFADS_k / (target x service_k per unit borrowed).
+ * Sculpted: debt service_k = CFADS_k / target over the repayment years, and
+ * the balance is its present value at the loan rate (finance/loans
+ * sculptedLoan); in grace years only interest is paid, so the balance may not
+ * exceed CFADS_k / (target x rate) there either. Annuity or straight line:
+ * service is proportional to the balance, so the largest balance is
+ * min_k CFADS_k / (target x service_k per unit borrowed), grace years
+ * (interest only) included.
  * Source: common practice in project-finance debt sizing.
  */
-function dscrSizedBalance(
-	terms: Extract<DebtTerms, { sizing: 'target-dscr' }>,
-	cfads: readonly Decimal[],
-	warnings: string[]
-): { balance: Decimal; sculptedRows?: LoanRow[] } {
+export function caseCapacity(terms: DscrTerms, sizingCase: SizingCase, warnings: string[]): CaseCapacity & { sculptedRows?: LoanRow[] } {
+	const { label, targetDscr, cfads } = sizingCase;
 	const tenorCfads = cfads.slice(0, terms.tenorYears);
-	const nonPositive = tenorCfads.findIndex((c) => c.lte(0));
+	const nonPositive = tenorCfads.flatMap((c, k) => (c.lte(0) ? [k + 1] : []));
+	const under = sizingCase.exceedancePercent === null ? '' : ` under the ${label} energy`;
+	const rate = dec(terms.interestRate);
 	if (terms.repayment === 'sculpted') {
-		if (nonPositive >= 0) warnings.push(`CFADS is not positive in operating year ${nonPositive + 1}: no debt is repaid that year.`);
-		const sculpted = sculptedLoan(cfads, terms.targetDscr, terms.interestRate, terms.tenorYears, terms.graceYears);
-		return { balance: sculpted.principal, sculptedRows: sculpted.rows };
+		if (nonPositive.length > 0) warnings.push(`CFADS${under} is not positive in ${yearsList(nonPositive)}: no debt is repaid then.`);
+		const sculpted = sculptedLoan(cfads, targetDscr, rate, terms.tenorYears, terms.graceYears);
+		let graceCap: Decimal | null = null;
+		if (rate.gt(0)) for (let k = 0; k < terms.graceYears; k++) {
+			const cap = Decimal.max(tenorCfads[k], ZERO).div(rate.times(targetDscr));
+			if (graceCap === null || cap.lt(graceCap)) graceCap = cap;
+		}
+		if (graceCap !== null && graceCap.lt(sculpted.principal)) return { label, targetDscr, balance: graceCap, limitedBy: 'grace' };
+		return { label, targetDscr, balance: sculpted.principal, limitedBy: 'repayment', sculptedRows: sculpted.rows };
 	}
-	if (nonPositive >= 0) {
-		warnings.push(`Debt cannot be sized to a DSCR: CFADS is not positive in operating year ${nonPositive + 1}.`);
-		return { balance: ZERO };
+	if (nonPositive.length > 0) {
+		warnings.push(`Debt cannot be sized to a DSCR${under}: CFADS is not positive in ${yearsList(nonPositive)}.`);
+		return { label, targetDscr, balance: ZERO, limitedBy: 'cfads' };
 	}
 	const unit = scheduleFor(terms.repayment, ONE, terms);
 	let best: Decimal | null = null;
+	let bindsInGrace = false;
 	unit.forEach((row, k) => {
 		const service = row.interest.plus(row.principal);
 		if (service.lte(0)) return;
-		const allowed = tenorCfads[k].div(service.times(terms.targetDscr));
-		if (best === null || allowed.lt(best)) best = allowed;
+		const allowed = tenorCfads[k].div(service.times(targetDscr));
+		if (best === null || allowed.lt(best)) {
+			best = allowed;
+			bindsInGrace = k < terms.graceYears;
+		}
 	});
-	return { balance: best ?? ZERO };
+	return { label, targetDscr, balance: best ?? ZERO, limitedBy: bindsInGrace ? 'grace' : 'repayment' };
 }
 
-/** Repayment rows for a given balance at COD. */
+/** Repayment rows for a given balance at COD, sculpted to the given CFADS profile when the repayment is sculpted. */
 function repaymentRows(terms: DebtTerms, balance: Decimal, cfads: readonly Decimal[], warnings: string[]): LoanRow[] {
 	if (balance.isZero()) return [];
 	if (terms.repayment !== 'sculpted') return scheduleFor(terms.repayment, balance, terms);
@@ -121,65 +144,58 @@ function repaymentRows(terms: DebtTerms, balance: Decimal, cfads: readonly Decim
 }
 
 /**
- * Size and schedule the loan.
+ * Size, fund and schedule the loan.
  *
- *     draws_j = s x F_j                         (F_j: capex net of grants, nominal)
- *     B_COD   = sum_j draws_j x (1 + r)^(-t_j)  (interest capitalised; plain sum when paid)
- *     gearing sizing:     s = gearing
- *     target-DSCR sizing: s = min(B*_DSCR / sum_j F_j (1 + r)^(-t_j), max gearing)
- *     upfront fee = fee x B_COD, paid at financial close by equity
+ *     gearing sizing:     D = gearing x U
+ *     target-DSCR sizing: D = min(min over cases of D*_case, max gearing x U)
  *
- * When interest is not capitalised, equity pays r x (balance drawn before t)
- * at each construction t. Source: common practice in project finance.
+ * U is the total funding need (spend net of grants, interest and fees during
+ * construction, a reserve funded at COD), D the balance at COD; the two are
+ * solved together by fundConstruction. Each case's D*_case is caseCapacity at
+ * its own target on its own CFADS; the least governs, and a sculpted loan is
+ * sculpted to the governing case's CFADS, so that case's DSCR equals its
+ * target in every repayment year (when neither grace years nor the cap bind).
+ * Source: common practice in project finance (lenders size on P50 and on P90
+ * or P99 energy, each with its own cover, and take the lesser).
  */
-export function structureDebt({ terms, fundingNeed, cfads, operatingYears }: DebtInputs): DebtStructure {
+export function structureDebt({ terms, timeline, spend, cases, reserveAtCod = ZERO, operatingYears }: DebtInputs): DebtStructure {
 	const warnings: string[] = [];
-	const rate = dec(terms.interestRate);
-	const years = fundingNeed.length;
-	const growth = capitalisationFactors(rate, years, terms.capitalizeInterestDuringConstruction);
-	let balancePerShare = ZERO;
-	fundingNeed.forEach((f, j) => (balancePerShare = balancePerShare.plus(f.times(growth[j]))));
-
-	let drawShare: Decimal;
-	let sizedBy: DebtStructure['sizedBy'] = 'gearing';
-	let sizedRows: LoanRow[] | undefined;
-	if (terms.sizing === 'gearing') drawShare = dec(terms.gearing);
-	else {
-		const wanted = dscrSizedBalance(terms, cfads, warnings);
-		const wantedShare = balancePerShare.isZero() ? ZERO : wanted.balance.div(balancePerShare);
-		if (wantedShare.gt(terms.maxGearing)) {
-			drawShare = dec(terms.maxGearing);
-			sizedBy = 'gearing-cap';
-		} else {
-			drawShare = wantedShare;
-			sizedBy = 'target-dscr';
-			sizedRows = wanted.sculptedRows;
-		}
+	let capacities: (CaseCapacity & { sculptedRows?: LoanRow[] })[] = [];
+	let governing: (typeof capacities)[number] | null = null;
+	let dscrLimit: Decimal | null = null;
+	if (terms.sizing === 'target-dscr') {
+		capacities = cases.map((c) => caseCapacity(terms, c, warnings));
+		for (const c of capacities) if (governing === null || c.balance.lt(governing.balance)) governing = c;
+		dscrLimit = governing ? governing.balance : ZERO;
 	}
-
-	const draws = fundingNeed.map((f) => f.times(drawShare));
-	let drawn = ZERO;
-	for (const d of draws) drawn = drawn.plus(d);
-	const balanceAtCod = sizedRows && sizedRows.length > 0 ? sizedRows[0].opening : balancePerShare.times(drawShare);
-	const interestPaidInConstruction: Decimal[] = new Array(years);
-	let outstanding = ZERO;
-	draws.forEach((d, j) => {
-		interestPaidInConstruction[j] = terms.capitalizeInterestDuringConstruction ? ZERO : outstanding.times(rate);
-		outstanding = outstanding.plus(d);
+	const share = dec(terms.sizing === 'gearing' ? terms.gearing : terms.maxGearing);
+	const debtFor = (need: Decimal) => (dscrLimit === null ? need.times(share) : Decimal.min(dscrLimit, need.times(share)));
+	const funding = fundConstruction({
+		times: timeline.constructionTimes,
+		financialClose: timeline.financialClose,
+		spend,
+		reserveAtCod,
+		rate: dec(terms.interestRate),
+		commitmentFee: dec(terms.commitmentFee),
+		upfrontFee: dec(terms.upfrontFee),
+		capitaliseInterest: terms.capitalizeInterestDuringConstruction,
+		order: terms.fundingOrder,
+		debtFor
 	});
-	const interestDuringConstruction = terms.capitalizeInterestDuringConstruction
-		? balanceAtCod.minus(drawn)
-		: interestPaidInConstruction.reduce((a, b) => a.plus(b), ZERO);
-
-	const rows = padRows(sizedRows ?? repaymentRows(terms, balanceAtCod, cfads, warnings), operatingYears);
+	if (!funding.settled) warnings.push('The construction funding did not settle; the debt amount may be slightly off.');
+	const balanceAtCod = funding.balanceAtCod;
+	const capped = dscrLimit !== null && funding.totalFundingNeed.times(share).lt(dscrLimit);
+	const sizedBy: DebtStructure['sizedBy'] = terms.sizing === 'gearing' ? 'gearing' : capped ? 'gearing-cap' : 'target-dscr';
+	const profile = cases.find((c) => c.label === governing?.label)?.cfads ?? cases[0]?.cfads ?? [];
+	const exact = sizedBy === 'target-dscr' && governing?.sculptedRows && governing.sculptedRows.length > 0 ? governing.sculptedRows : null;
+	const rows = padRows(exact ?? repaymentRows(terms, balanceAtCod, profile, warnings), operatingYears);
 	return {
 		sizedBy,
-		drawShare,
-		draws,
-		interestDuringConstruction,
-		interestPaidInConstruction,
-		balanceAtCod,
-		upfrontFee: balanceAtCod.times(terms.upfrontFee),
+		governingCase: sizedBy === 'target-dscr' ? (governing?.label ?? null) : null,
+		capacities: capacities.map(({ label, targetDscr, balance, limitedBy }) => ({ label, targetDscr, balance, limitedBy })),
+		funding,
+		gearing: funding.gearing,
+		balanceAtCod: exact ? exact[0].opening : balanceAtCod,
 		rows,
 		debtService: rows.map((r) => r.interest.plus(r.principal)),
 		warnings

@@ -111,21 +111,26 @@ describe('evaluateScenario: returns', () => {
 	});
 
 	it('gives the equity IRR and DSCR of an annuity loan worked with the npm financial package', () => {
-		// 60 % gearing of 50 M drawn at t = 0 (so no interest during construction), 8 % over 10 years.
-		// Debt service = -pmt(0.08, 10, 30 M) (npm financial); DSCR = EBITDA / debt service (no tax);
-		// equity flows -20 M - 2 % fee, then EBITDA - debt service for 10 years and EBITDA for 10.
+		// 60 % gearing on the total funding need, all paid at t = 0 (year-end spend, one construction year, so no
+		// interest during construction), 2 % upfront fee, 8 % over 10 years. Hand calculation: the fee is part of the
+		// funding need, D = 0.6 x (50 M + 0.02 D), so D = 30 M / (1 - 0.012) = 30,364,372.47 and equity = 50 M + 0.02 D - D.
+		// Debt service = -pmt(0.08, 10, D) (npm financial); DSCR = EBITDA / debt service (no tax);
+		// equity flows -equity, then EBITDA - debt service for 10 years and EBITDA for 10.
 		const s = atbCase({
 			finance: { debt: { sizing: 'gearing', gearing: 0.6, interestRate: 0.08, tenorYears: 10, upfrontFee: 0.02, repayment: 'annuity' } }
 		});
 		const r = evaluateScenario(s);
-		const service = -financial.pmt(0.08, 10, 30_000_000);
-		const equity = [-20_000_000 - 600_000, ...Array(10).fill(ebitda - service), ...Array(10).fill(ebitda)];
-		expect(num(r.metrics.debtAmount)).toBe(30_000_000);
+		const debt = 30_000_000 / (1 - 0.6 * 0.02);
+		const service = -financial.pmt(0.08, 10, debt);
+		const equity = [-(50_000_000 + 0.02 * debt - debt), ...Array(10).fill(ebitda - service), ...Array(10).fill(ebitda)];
+		expect(num(r.metrics.debtAmount)).toBeCloseTo(debt, 6);
+		expect(num(r.financing!.gearing)).toBeCloseTo(0.6, 12);
+		expect(num(r.financing!.totalFundingNeed)).toBeCloseTo(50_000_000 + 0.02 * debt, 6);
 		expect(num(r.metrics.equityIrr)).toBeCloseTo(financial.irr(equity), 10);
 		expect(num(r.metrics.minDscr)).toBeCloseTo(ebitda / service, 10);
 		expect(num(r.metrics.avgDscr)).toBeCloseTo(ebitda / service, 10);
-		// LLCR = PV of CFADS over the tenor at the loan rate / debt = -pv(0.08, 10, EBITDA) / 30 M.
-		expect(num(r.metrics.llcr)).toBeCloseTo(-financial.pv(0.08, 10, ebitda) / 30_000_000, 10);
+		// LLCR = PV of CFADS over the tenor at the loan rate / debt = -pv(0.08, 10, EBITDA) / D.
+		expect(num(r.metrics.llcr)).toBeCloseTo(-financial.pv(0.08, 10, ebitda) / debt, 10);
 	});
 
 	it('reports DSCR, LLCR as null without debt, with the reason', () => {
@@ -183,18 +188,29 @@ describe('evaluateScenario: debt sizing', () => {
 	});
 
 	it('capitalises interest during construction, or has equity pay it', () => {
-		// Hand calculation: 2 construction years, capex 25 M at t = -1 and t = 0, 50 % gearing, 10 %:
-		// capitalised balance at COD = 12.5 M x 1.1 + 12.5 M = 26.25 M (IDC 1.25 M); paid: equity pays 1.25 M at t = 0.
-		const base = { timeline: { constructionYears: 2 }, finance: { debt: { sizing: 'gearing', gearing: 0.5, interestRate: 0.1, tenorYears: 10 } } };
+		// Hand calculation: 2 construction years, capex 25 M at t = -1 and t = 0 (year-end spend), debt pro rata, 50 %
+		// gearing on the funding need U = 50 M + IDC, 10 %. With s the debt's share of each payment,
+		// D = s x 25 M x 1.1 + s x 25 M = 52.5 M s and IDC = 2.5 M s; D = 0.5 (50 M + 2.5 M s) gives s = 25 / 51.25,
+		// D = 25.609756... M, IDC = 1.219512... M. Paid by equity instead, the debt is 0.5 x U with U = 50 M + 2.5 M s
+		// and D = 50 M s: s = 25 / 48.75.
+		const base = {
+			timeline: { constructionYears: 2, spendTiming: 'year-end' },
+			finance: { debt: { sizing: 'gearing', gearing: 0.5, interestRate: 0.1, tenorYears: 10, fundingOrder: 'pro-rata' } }
+		};
 		const cap = evaluateScenario(atbCase(base));
-		expect(cap.financing!.debtAmount).toBe('26250000');
-		expect(cap.financing!.interestDuringConstruction).toBe('1250000');
+		const s = 25 / 51.25;
+		expect(num(cap.financing!.debtAmount)).toBeCloseTo(52_500_000 * s, 5);
+		expect(num(cap.financing!.interestDuringConstruction)).toBeCloseTo(2_500_000 * s, 5);
+		expect(num(cap.financing!.gearing)).toBeCloseTo(0.5, 12);
 		const paid = evaluateScenario(
 			atbCase({ ...base, finance: { debt: { ...base.finance.debt, capitalizeInterestDuringConstruction: false } } })
 		);
-		expect(paid.financing!.debtAmount).toBe('25000000');
-		expect(paid.cashFlow[1].equityCashFlow).toBe(String(-(12_500_000 + 1_250_000)));
+		const p = 25 / 48.75;
+		expect(num(paid.financing!.debtAmount)).toBeCloseTo(50_000_000 * p, 5);
+		// Equity at t = 0: its (1 - s) of the 25 M spent then, plus the year's interest on the 25 M s drawn at t = -1.
+		expect(num(paid.cashFlow[1].equityCashFlow)).toBeCloseTo(-(25_000_000 * (1 - p) + 2_500_000 * p), 5);
 	});
+
 });
 
 describe('evaluateScenario: breakeven tariff', () => {

@@ -6,7 +6,8 @@
  * last construction year sits at t = 0, earlier years at t = -1, -2, ...;
  * operating year k sits at t = k (end of year). NPVs are valued at COD.
  */
-import { Decimal } from './decimal';
+import { Decimal, ZERO } from './decimal';
+import { byConstructionYear } from './timeline';
 import type { Scenario } from '../../schemas/scenario';
 import { estimateEnergy, type EnergyEstimate, type Exceedance } from './energy/yield';
 import { financeCase, operate, prepareCase, type CasePreparation, type FinancingResult, type OperatingResult } from './cashflow';
@@ -161,7 +162,10 @@ export type CashFlowRow = {
 	tax: DecimalString;
 	cfads: DecimalString;
 	debtDrawdown: DecimalString;
+	/** Interest in the year; during construction, accrued on the debt drawn (capitalised or paid). */
 	interest: DecimalString;
+	/** Commitment and upfront fees during construction. */
+	financingFees: DecimalString;
 	principal: DecimalString;
 	debtService: DecimalString;
 	debtBalance: DecimalString;
@@ -225,11 +229,28 @@ export type EngineResult = {
 	rates: { inflation: DecimalString; tariffInflation: DecimalString; realDiscountRate: DecimalString; nominalDiscountRate: DecimalString };
 	financing: null | {
 		sizedBy: 'gearing' | 'target-dscr' | 'gearing-cap';
+		/** The energy case whose target DSCR set the debt (P50, P90...), when sizedBy is target-dscr. */
+		governingCase: string | null;
+		/** Debt over the total funding need. */
 		gearing: DecimalString;
 		debtAmount: DecimalString;
 		debtDrawn: DecimalString;
 		interestDuringConstruction: DecimalString;
+		commitmentFees: DecimalString;
 		upfrontFee: DecimalString;
+		/** Spend net of grants, financing costs during construction and reserves funded at COD. */
+		totalFundingNeed: DecimalString;
+		equityInvested: DecimalString;
+		fundingOrder: 'equity-first' | 'pro-rata';
+		/** Each sizing case: what its target allows, what binds it, and the DSCR each year under its energy. */
+		sizingCases: {
+			label: string;
+			targetDscr: number;
+			debtCapacity: DecimalString;
+			limitedBy: 'repayment' | 'grace' | 'cfads';
+			minDscr: DecimalString | null;
+			dscr: (DecimalString | null)[];
+		}[];
 	};
 	cashFlow: CashFlowRow[];
 	metrics: Metrics<DecimalString>;
@@ -244,11 +265,20 @@ export function decimalString(d: Decimal): DecimalString {
 }
 const maybe = (d: Decimal | null | undefined) => (d === null || d === undefined ? null : decimalString(d));
 
-const TIME_CONVENTION = [
-	't = 0 is the commercial operation date (COD);',
-	'capex of the last construction year is at t = 0 and earlier years at t = -1, -2, ...;',
-	'operating year k is at t = k (end of year). Amounts are nominal; NPV is valued at COD.'
-].join(' ');
+const SPEND_WORDS = {
+	'mid-year': 'in the middle of each construction year',
+	quarterly: 'in the middle of each quarter of each construction year',
+	monthly: 'in the middle of each month of each construction year',
+	'year-end': 'at the end of each construction year'
+} as const;
+
+function timeConvention(spendTiming: keyof typeof SPEND_WORDS): string {
+	return [
+		't = 0 is the commercial operation date (COD); construction year rows end at t = -1, -2, ... and 0;',
+		`construction spend and debt draws fall ${SPEND_WORDS[spendTiming]}, interest running to COD;`,
+		'operating year k is at t = k (end of year). Amounts are nominal; NPV and IRR use each flow at its own time; NPV is valued at COD.'
+	].join(' ');
+}
 
 function cashFlowRows(d: DetailedEvaluation): CashFlowRow[] {
 	const { prep, operating: op, financing: fin } = d;
@@ -256,11 +286,25 @@ function cashFlowRows(d: DetailedEvaluation): CashFlowRow[] {
 	const rows: CashFlowRow[] = [];
 	let project = new Decimal(0);
 	let equity = new Decimal(0);
-	prep.timeline.constructionTimes.forEach((t, j) => {
-		project = project.plus(op.projectPreTax.construction[j]);
-		equity = equity.plus(fin.equity.construction[j]);
-		const draw = fin.debt ? fin.debt.draws[j] : new Decimal(0);
-		const paidInterest = fin.debt ? fin.debt.interestPaidInConstruction[j] : new Decimal(0);
+	const timeline = prep.timeline;
+	const funding = fin.debt?.funding ?? null;
+	const yearly = (values: readonly Decimal[] | undefined) =>
+		values ? byConstructionYear(values, timeline) : timeline.constructionYearEnds.map(() => ZERO);
+	const capex = yearly(prep.capex.nominal);
+	const grants = yearly(prep.grants.nominal);
+	const projectPreTax = yearly(op.projectPreTax.construction);
+	const projectPostTax = yearly(op.projectPostTax.construction);
+	const equityFlows = yearly(fin.equity.construction);
+	const draws = yearly(funding?.draws);
+	const interest = yearly(funding?.interest);
+	const interestPaid = yearly(funding?.interestPaid);
+	const fees = yearly(funding ? funding.commitmentFees.map((c, p) => (p === 0 ? c.plus(funding.upfrontFee) : c)) : undefined);
+	const capitalise = fin.debt ? prep.scenario.finance.debt.sizing !== 'none' && prep.scenario.finance.debt.capitalizeInterestDuringConstruction : false;
+	let balance = ZERO;
+	timeline.constructionYearEnds.forEach((t, j) => {
+		project = project.plus(projectPreTax[j]);
+		equity = equity.plus(equityFlows[j]);
+		balance = balance.plus(draws[j]).plus(capitalise ? interest[j] : ZERO);
 		rows.push({
 			t,
 			phase: 'construction',
@@ -269,23 +313,24 @@ function cashFlowRows(d: DetailedEvaluation): CashFlowRow[] {
 			revenue: zero,
 			opex: zero,
 			ebitda: zero,
-			capex: decimalString(prep.capex.nominal[j]),
-			grants: decimalString(prep.grants.nominal[j]),
+			capex: decimalString(capex[j]),
+			grants: decimalString(grants[j]),
 			decommissioning: zero,
 			depreciation: zero,
 			taxableIncome: zero,
 			tax: zero,
 			cfads: zero,
-			debtDrawdown: decimalString(draw),
-			interest: decimalString(paidInterest),
+			debtDrawdown: decimalString(draws[j]),
+			interest: decimalString(interest[j]),
+			financingFees: decimalString(fees[j]),
 			principal: zero,
-			debtService: decimalString(paidInterest),
-			debtBalance: zero,
+			debtService: decimalString(interestPaid[j]),
+			debtBalance: decimalString(balance),
 			dscr: null,
-			projectCashFlowPreTax: decimalString(op.projectPreTax.construction[j]),
-			projectCashFlowPostTax: decimalString(op.projectPostTax.construction[j]),
+			projectCashFlowPreTax: decimalString(projectPreTax[j]),
+			projectCashFlowPostTax: decimalString(projectPostTax[j]),
 			cumulativeProjectCashFlow: decimalString(project),
-			equityCashFlow: decimalString(fin.equity.construction[j]),
+			equityCashFlow: decimalString(equityFlows[j]),
 			cumulativeEquityCashFlow: decimalString(equity)
 		});
 	});
@@ -304,12 +349,13 @@ function cashFlowRows(d: DetailedEvaluation): CashFlowRow[] {
 			capex: zero,
 			grants: zero,
 			decommissioning: decimalString(op.decommissioning[k]),
-			depreciation: decimalString(prep.depreciation[k]),
+			depreciation: decimalString(fin.depreciation[k]),
 			taxableIncome: decimalString(fin.taxableIncome[k]),
 			tax: decimalString(fin.tax[k]),
 			cfads: decimalString(fin.cfads[k]),
 			debtDrawdown: zero,
 			interest: decimalString(fin.interest[k]),
+			financingFees: zero,
 			principal: decimalString(fin.principal[k]),
 			debtService: decimalString(fin.debtService[k]),
 			debtBalance: decimalString(fin.closingBalance[k]),
@@ -328,20 +374,51 @@ function exceedanceRow(e: Exceedance): ExceedanceRow {
 	return { label: `P${e.levelPercent}`, levelPercent: e.levelPercent, aepMWh: decimalString(e.aepMWh), shareOfP50: decimalString(e.factor) };
 }
 
+function financingSummary(d: DetailedEvaluation): NonNullable<EngineResult['financing']> {
+	const debt = d.financing.debt!;
+	const funding = debt.funding;
+	const sum = (values: readonly Decimal[]) => values.reduce((a, b) => a.plus(b), ZERO);
+	const debtSpec = d.prep.scenario.finance.debt;
+	const profiles = [{ label: 'P50', cfads: d.financing.cfads }, ...d.financing.downsideCfads];
+	const sizingCases = debt.capacities.map((c) => {
+		const cover = coverRatios(profiles.find((p) => p.label === c.label)?.cfads ?? [], d.financing.debtService);
+		return {
+			label: c.label,
+			targetDscr: c.targetDscr,
+			debtCapacity: decimalString(c.balance),
+			limitedBy: c.limitedBy,
+			minDscr: maybe(cover.min),
+			dscr: cover.perYear.map(maybe)
+		};
+	});
+	return {
+		sizedBy: debt.sizedBy,
+		governingCase: debt.governingCase,
+		gearing: decimalString(debt.gearing),
+		debtAmount: decimalString(debt.balanceAtCod),
+		debtDrawn: decimalString(sum(funding.draws)),
+		interestDuringConstruction: decimalString(funding.interestDuringConstruction),
+		commitmentFees: decimalString(sum(funding.commitmentFees)),
+		upfrontFee: decimalString(funding.upfrontFee),
+		totalFundingNeed: decimalString(funding.totalFundingNeed),
+		equityInvested: decimalString(sum(funding.equity)),
+		fundingOrder: debtSpec.sizing === 'none' ? 'equity-first' : debtSpec.fundingOrder,
+		sizingCases
+	};
+}
+
 /** Turn a detailed evaluation into the plain-data result. */
 export function toEngineResult(d: DetailedEvaluation): EngineResult {
 	const { prep } = d;
 	const { scenario, energy } = prep;
 	const metrics = Object.fromEntries(METRIC_KEYS.map((k) => [k, maybe(d.metrics[k])])) as Metrics<DecimalString>;
 	const debt = d.financing.debt;
-	let drawn = new Decimal(0);
-	if (debt) for (const x of debt.draws) drawn = drawn.plus(x);
 	return {
 		schemaVersion: 1,
 		scenarioName: scenario.name,
 		technology: scenario.technology,
 		currency: scenario.currency,
-		timeConvention: TIME_CONVENTION,
+		timeConvention: timeConvention(prep.timeline.spendTiming),
 		energy: {
 			deviceCount: scenario.array.deviceCount,
 			ratedPowerPerDeviceKW: decimalString(energy.ratedPowerPerDeviceKW),
@@ -387,16 +464,7 @@ export function toEngineResult(d: DetailedEvaluation): EngineResult {
 			realDiscountRate: decimalString(prep.realDiscountRate),
 			nominalDiscountRate: decimalString(prep.nominalDiscountRate)
 		},
-		financing: debt
-			? {
-					sizedBy: debt.sizedBy,
-					gearing: decimalString(debt.drawShare),
-					debtAmount: decimalString(debt.balanceAtCod),
-					debtDrawn: decimalString(drawn),
-					interestDuringConstruction: decimalString(debt.interestDuringConstruction),
-					upfrontFee: decimalString(debt.upfrontFee)
-				}
-			: null,
+		financing: debt ? financingSummary(d) : null,
 		cashFlow: cashFlowRows(d),
 		metrics,
 		warnings: d.warnings

@@ -167,10 +167,25 @@ describe('irrTimed', () => {
 		expect(closeTo(rateOf(result), '0.1', '1e-27')).toBe(true);
 	});
 
-	it('is null with a reason for no flows or no sign change, and rejects fractional periods', () => {
-		// decided on purpose, as irr; fractional periods are not whole years
+	it('takes flows in the middle of a year or a month, compounding the rate to a year', () => {
+		// Hand calculation: -100 at t = -0.5 and 121 at t = 1.5 are two years apart: 100 x 1.1^2 = 121, so 10 %.
+		const midYear = irrTimed([
+			{ t: -0.5, amount: dec(-100) },
+			{ t: 1.5, amount: dec(121) }
+		]);
+		expect(midYear.rate!.minus(0.1).abs().toNumber()).toBeLessThan(1e-20);
+		// -100 at the middle of month 1 and 110 a year later (t = 1/24 and 25/24): 10 % a year.
+		const monthly = irrTimed([
+			{ t: 1 / 24, amount: dec(-100) },
+			{ t: 25 / 24, amount: dec(110) }
+		]);
+		expect(monthly.rate!.minus(0.1).abs().toNumber()).toBeLessThan(1e-20);
+	});
+
+	it('is null with a reason for no flows or no sign change, and rejects periods off the 1/24 grid', () => {
+		// decided on purpose, as irr; times between the middles of months are not construction points
 		expect(irrTimed([]).rate).toBeNull();
 		expect(irrTimed([{ t: 3, amount: dec(5) }]).reason).toMatch(/never change sign/);
-		expect(() => irrTimed([{ t: 0.5, amount: dec(5) }])).toThrow(RangeError);
+		expect(() => irrTimed([{ t: 0.3, amount: dec(5) }])).toThrow(RangeError);
 	});
 });

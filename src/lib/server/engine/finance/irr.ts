@@ -26,10 +26,11 @@
  */
 import { dec, Decimal, ONE, type DecimalInput } from '../decimal';
 import { solveRoot } from './roots';
+import { periodsPerYearOf } from '../fractional-powers';
 
 export type IrrResult = { rate: Decimal; reason: null } | { rate: null; reason: string };
 
-/** A flow at an integer period t (possibly negative). */
+/** A flow at period t (possibly negative; whole, or on a whole 1/m of a period, m <= 24). */
 export type TimedAmount = { t: number; amount: Decimal };
 
 /** Cells per unit interval when several sign changes allow several roots. */
@@ -125,22 +126,33 @@ export function irr(values: readonly DecimalInput[], guess?: number): IrrResult 
  *     irrTimed([{ t: -1, amount: dec(-100) }, { t: 0, amount: dec(0) }, { t: 1, amount: dec(121) }])
  *     // => { rate: 0.1, reason: null }
  *
- * @throws RangeError when a t is not an integer or the periods span more than 100 000.
+ * Times may fall between periods on whole 1/m of a period (m up to 24, e.g.
+ * mid-year or mid-month construction flows): the IRR is then solved per 1/m
+ * period and compounded to the period, (1 + rho)^m - 1.
+ *
+ * @throws RangeError when a t is not on a whole 1/24th or the periods span more than 100 000.
  */
 export function irrTimed(flows: readonly TimedAmount[]): IrrResult {
 	if (flows.length === 0) return failure('no cash flows, so there is no IRR');
+	const perYear = periodsPerYearOf(flows.map((f) => f.t));
 	let minT = Number.POSITIVE_INFINITY;
 	let maxT = Number.NEGATIVE_INFINITY;
 	for (const { t } of flows) {
-		if (!Number.isInteger(t)) throw new RangeError(`irrTimed needs whole periods, got t = ${t}`);
-		minT = Math.min(minT, t);
-		maxT = Math.max(maxT, t);
+		minT = Math.min(minT, Math.round(t * perYear));
+		maxT = Math.max(maxT, Math.round(t * perYear));
 	}
 	if (maxT - minT > MAX_SPAN) throw new RangeError(`flows span ${maxT - minT} periods, more than ${MAX_SPAN}`);
 	const series = new Array<Decimal>(maxT - minT + 1).fill(new Decimal(0));
-	for (const { t, amount } of flows) series[t - minT] = series[t - minT].plus(amount);
-	return irr(series);
+	for (const { t, amount } of flows) {
+		const period = Math.round(t * perYear) - minT;
+		series[period] = series[period].plus(amount);
+	}
+	const result = irr(series);
+	if (result.rate === null || perYear === 1) return result;
+	// A rate per 1/m of a year, compounded to a year: (1 + rho)^m - 1.
+	return { rate: result.rate.plus(1).pow(perYear).minus(1), reason: null };
 }
+
 
 function signChanges(coefficients: readonly Decimal[]): number {
 	let changes = 0;

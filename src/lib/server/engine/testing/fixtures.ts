@@ -34,12 +34,12 @@ export function scenarioFrom(input: unknown): Scenario {
 /**
  * The fixed-charge-rate check case (NREL ATB LCOE equations, derived in
  * CHECK-VALUES): 10 MW, 5000 per kW, fixed O&M 4 % of capex a year, capacity
- * factor 35 % on 8760 h, 20 years at 8 %, capex at t = 0, no tax, no
+ * factor 35 % on 8760 h, 20 years at 8 %, capex at t = 0 (year-end spend), no tax, no
  * inflation, no losses. One 10 MW device: the power curve is at rated power
  * in the 3 m/s bin (35 % of the time) and zero in the 0.2 m/s bin.
  */
 export const atbCaseInput: ScenarioInput = {
-	schemaVersion: 2,
+	schemaVersion: 3,
 	name: 'Fixed-charge-rate check case',
 	technology: 'tidal-stream',
 	resource: {
@@ -58,7 +58,7 @@ export const atbCaseInput: ScenarioInput = {
 		]
 	},
 	array: { deviceCount: 1 },
-	timeline: { constructionYears: 1, operatingYears: 20 },
+	timeline: { constructionYears: 1, operatingYears: 20, spendTiming: 'year-end' },
 	capex: { lines: [{ name: 'Installed cost', basis: 'per-kW', amount: 5000 }] },
 	opex: { lines: [{ name: 'Fixed O&M', basis: 'percent-of-capex', fraction: 0.04 }] },
 	revenue: { tariffPerMWh: 300, supportYears: 20 },

@@ -1,0 +1,49 @@
+/**
+ * Powers g^t for t on whole 1/m of a year (m a divisor of 24): construction
+ * flows fall in the middle of a year, quarter or month. decimal.js's general
+ * pow with a fractional exponent costs milliseconds; here the m-th root is
+ * found once (square roots for m = 2, 4, 8; otherwise Newton's method from
+ * the float64 root, which doubles the correct digits each step) and kept, so
+ * a power is one integer power of it (repeated squaring).
+ */
+import { Decimal } from './decimal';
+
+const DIVISORS_OF_24 = [1, 2, 3, 4, 6, 8, 12, 24];
+const ROOT_CACHE_SIZE = 256;
+const roots = new Map<string, Decimal>();
+
+/** The fewest periods a year (a divisor of 24) that put every t on a whole period. */
+export function periodsPerYearOf(times: readonly number[]): number {
+	for (const m of DIVISORS_OF_24) if (times.every((t) => Math.abs(t * m - Math.round(t * m)) < 1e-9)) return m;
+	throw new RangeError(`times must fall on whole 1/24ths of a year, got ${times.find((t) => Math.abs(t * 24 - Math.round(t * 24)) >= 1e-9)}`);
+}
+
+/** g^(1/m), g > 0, to the precision of the engine's decimals. */
+export function rootOf(g: Decimal, m: number): Decimal {
+	if (m === 1) return g;
+	const key = `${g.toString()}|${m}`;
+	const known = roots.get(key);
+	if (known) return known;
+	let x: Decimal;
+	if (m === 2 || m === 4 || m === 8) {
+		x = g;
+		for (let k = m; k > 1; k /= 2) x = x.sqrt();
+	} else {
+		// Newton on x^m = g from a 16-digit start: two steps reach 30 digits.
+		x = new Decimal(Math.pow(g.toNumber(), 1 / m));
+		for (let step = 0; step < 3; step++) {
+			const below = x.pow(m - 1);
+			x = x.minus(below.times(x).minus(g).div(below.times(m)));
+		}
+	}
+	if (roots.size >= ROOT_CACHE_SIZE) roots.delete(roots.keys().next().value!);
+	roots.set(key, x);
+	return x;
+}
+
+/** g^t for each t (whole 1/m of a year), through one cached root. */
+export function powersAt(g: Decimal, times: readonly number[]): Decimal[] {
+	const m = periodsPerYearOf(times);
+	const root = rootOf(g, m);
+	return times.map((t) => root.pow(Math.round(t * m)));
+}
