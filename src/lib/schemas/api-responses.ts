@@ -151,6 +151,8 @@ const cashFlowRowSchema = z
 	.catchall(decimalStringSchema.nullable())
 	.describe('One year of the cash-flow table; every other column (energyMWh, revenue, opex, cfads, dscr, ...) is a decimal string, or null where undefined');
 
+const exceedanceRowSchema = z.object({ label: z.string(), levelPercent: z.number(), aepMWh: decimalStringSchema, shareOfP50: decimalStringSchema });
+
 export const evaluationResultSchema = z.object({
 	schemaVersion: z.number().int(),
 	scenarioName: z.string(),
@@ -169,7 +171,17 @@ export const evaluationResultSchema = z.object({
 		curtailedAepMWh: decimalStringSchema.describe('Year-1 energy curtailed, MWh (net AEP x curtailment)'),
 		deliveredAepMWh: decimalStringSchema.describe('Year-1 energy delivered and sold, MWh (net AEP less curtailment): what revenue, per-MWh opex and the LCOE use'),
 		combinedSigma: decimalStringSchema,
-		exceedances: z.array(z.object({ label: z.string(), levelPercent: z.number(), aepMWh: decimalStringSchema, shareOfP50: decimalStringSchema })),
+		exceedances: z
+			.array(exceedanceRowSchema)
+			.describe('One-year exceedance levels (P90 and the levels asked for)'),
+		energySource: z
+			.enum(['resource-and-device', 'assessed'])
+			.describe("resource-and-device: the device's power over the resource, less losses; assessed: an assessment's net P50 as given"),
+		sigmaLongTerm: decimalStringSchema.describe('Long-term uncertainty, one standard deviation as a fraction of P50'),
+		sigmaInterAnnual: decimalStringSchema.describe('Year-to-year variability, one standard deviation as a fraction of P50'),
+		exceedancesByHorizon: z
+			.array(z.object({ horizonYears: z.number().int(), sigma: decimalStringSchema, levels: z.array(exceedanceRowSchema) }))
+			.describe('Exceedance levels of the mean annual energy over one and ten years; sigma_N = sqrt(sigma_LT^2 + sigma_IAV^2 / N)'),
 		capacityFactor: decimalStringSchema.nullable(),
 		bins: z.array(energyBinSchema)
 	}),
@@ -188,16 +200,39 @@ export const evaluationResultSchema = z.object({
 	financing: z
 		.object({
 			sizedBy: z.enum(['gearing', 'target-dscr', 'gearing-cap']),
-			gearing: decimalStringSchema,
-			debtAmount: decimalStringSchema,
-			debtDrawn: decimalStringSchema,
-			interestDuringConstruction: decimalStringSchema,
-			upfrontFee: decimalStringSchema
+			governingCase: z.string().nullable().describe('The energy case (P50, P90...) whose target DSCR set the debt, when sized by DSCR'),
+			gearing: decimalStringSchema.describe('Debt over the total funding need'),
+			debtAmount: decimalStringSchema.describe('Balance at COD, capitalised interest included'),
+			debtDrawn: decimalStringSchema.describe('Cash drawn from the lenders during construction'),
+			interestDuringConstruction: decimalStringSchema.describe('Interest accrued on the debt drawn, to COD (capitalised or paid by equity)'),
+			commitmentFees: decimalStringSchema.describe('Commitment fees on the undrawn loan during construction'),
+			upfrontFee: decimalStringSchema,
+			totalFundingNeed: decimalStringSchema.describe('Spend net of grants, financing costs of construction and reserves funded at COD'),
+			equityInvested: decimalStringSchema.describe('Equity paid in during construction'),
+			fundingOrder: z.enum(['equity-first', 'pro-rata']),
+			sizingCases: z
+				.array(
+					z.object({
+						label: z.string(),
+						targetDscr: z.number(),
+						debtCapacity: decimalStringSchema.describe('Balance at COD this case alone would allow'),
+						limitedBy: z.enum(['repayment', 'grace', 'cfads']).describe('What binds the case: repayment years, interest-only grace years, or CFADS not positive'),
+						minDscr: decimalStringSchema.nullable(),
+						dscr: z.array(decimalStringSchema.nullable()).describe("DSCR each operating year under this case's energy, with the debt as sized")
+					})
+				)
+				.describe('Each energy case the debt was sized on (empty when sized by gearing)')
 		})
 		.nullable()
 		.describe('How the debt was sized; null when the scenario has no debt'),
 	cashFlow: z.array(cashFlowRowSchema),
 	metrics: metricsJsonSchema,
+	coverShortfalls: z
+		.object({
+			negativeCfadsYears: z.array(z.number().int()).describe('Operating years of the loan with negative CFADS (the minimum DSCR leaves them out)'),
+			dscrBelowOneYears: z.array(z.number().int()).describe('Operating years whose DSCR is below 1')
+		})
+		.describe('Years a lender asks about beside the minimum DSCR'),
 	warnings: z.array(z.string())
 });
 

@@ -8,6 +8,7 @@
  */
 import { Decimal, ZERO } from './decimal';
 import { byConstructionYear } from './timeline';
+import { coverShortfalls, coverShortfallWarnings, type CoverShortfalls } from './cover-shortfalls';
 import type { Scenario } from '../../schemas/scenario';
 import { estimateEnergy, type EnergyEstimate, type Exceedance } from './energy/yield';
 import { financeCase, operate, prepareCase, type CasePreparation, type FinancingResult, type OperatingResult } from './cashflow';
@@ -26,6 +27,8 @@ export type DetailedEvaluation = {
 	operating: OperatingResult;
 	financing: FinancingResult;
 	dscr: (Decimal | null)[];
+	/** Years of negative CFADS and of DSCR below 1 within the loan, beside the minimum DSCR. */
+	shortfalls: CoverShortfalls;
 	metrics: Metrics<Decimal>;
 	breakevenEvaluations: number;
 	warnings: string[];
@@ -79,16 +82,15 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 
 	let cover: CoverRatios = { perYear: [], min: null, average: null };
 	let llcr: Decimal | null = null;
+	let shortfalls: CoverShortfalls = { negativeCfadsYears: [], dscrBelowOneYears: [] };
 	const debt = financing?.debt ?? null;
 	if (financing) {
 		cover = coverRatios(financing.cfads, financing.debtService);
 		const terms = scenario.finance.debt;
 		if (debt && terms.sizing !== 'none') llcr = loanLifeCoverRatio(financing.cfads, debt.balanceAtCod, terms.interestRate, terms.tenorYears);
 		if (cover.min === null) note('minDscr', 'there is no debt service');
-		else if (cover.min.lt(1)) {
-			const year = cover.perYear.findIndex((d) => d !== null && d.eq(cover.min!)) + 1;
-			warnings.push(`CFADS does not cover debt service in operating year ${year} (DSCR ${cover.min.toFixed(2)}).`);
-		}
+		shortfalls = coverShortfalls(financing.cfads, financing.debtService, cover.perYear);
+		warnings.push(...coverShortfallWarnings(shortfalls, cover.perYear));
 		if (llcr === null) note('llcr', 'there is no debt');
 	}
 
@@ -122,7 +124,7 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 		debtAmount: financing ? (debt ? debt.balanceAtCod : new Decimal(0)) : null,
 		breakevenTariff
 	};
-	return { prep, operating, financing, dscr: cover.perYear, metrics, breakevenEvaluations, warnings };
+	return { prep, operating, financing, dscr: cover.perYear, shortfalls, metrics, breakevenEvaluations, warnings };
 }
 
 const ALL_METRICS: ReadonlySet<MetricKey> = new Set(METRIC_KEYS);
@@ -254,6 +256,8 @@ export type EngineResult = {
 	};
 	cashFlow: CashFlowRow[];
 	metrics: Metrics<DecimalString>;
+	/** Operating years of the loan with negative CFADS, and with a DSCR below 1: shown wherever the minimum DSCR is. */
+	coverShortfalls: CoverShortfalls;
 	warnings: string[];
 };
 
@@ -467,6 +471,7 @@ export function toEngineResult(d: DetailedEvaluation): EngineResult {
 		financing: debt ? financingSummary(d) : null,
 		cashFlow: cashFlowRows(d),
 		metrics,
+		coverShortfalls: d.shortfalls,
 		warnings: d.warnings
 	};
 }
