@@ -379,7 +379,8 @@ function revenue(document: Scenario, result: EngineResult): AssumptionSection {
 				['Tariff (prices of the indexation base year)', ['revenue', 'tariffPerMWh']],
 				['Support period', ['revenue', 'supportYears']]
 			]),
-			{ label: 'Tariff indexation', value: indexationMethodLabels[document.revenue.indexationMethod] },
+			// A document frozen before the field existed was evaluated by the scaled-inflation reading.
+			{ label: 'Tariff indexation', value: indexationMethodLabels[document.revenue.indexationMethod ?? 'scaled-inflation'] },
 			...facts(document, [
 				['Indexed', ['revenue', 'tariffIndexation']],
 				['Indexation base year before COD', ['revenue', 'indexationBaseYearsBeforeCod']],
