@@ -107,7 +107,8 @@ export async function seed(knex: Knex): Promise<void> {
 
 	await knex.transaction(async (trx) => {
 		for (const project of consultantProjects) {
-			const example = examples.find((e) => e.technology === project.technology);
+			// Not a lender's case on an assessed energy: its fixed P50 would not follow the resized array.
+			const example = examples.find((e) => e.technology === project.technology && e.resource.kind !== 'assessed-energy');
 			if (!example) continue;
 			const [row] = await trx('projects')
 				.insert({

@@ -30,11 +30,25 @@ describe('switching variants', () => {
 	it.each(technologies)('every resource and device offered for %s fits the technology', (technology) => {
 		for (const resource of resourceKindsFor[technology]) {
 			for (const device of deviceKindsFor[technology]) {
-				const document = { ...blankDocument(technology, { name: 'x', currency: 'EUR' }), resource: resourceOfKind(resource), device: deviceOfKind(device) };
+				const blank = blankDocument(technology, { name: 'x', currency: 'EUR' });
+				// An assessed energy is net of losses and takes the device's rated power only: the schema asks for both (scenario.ts).
+				const assessed = resource === 'assessed-energy';
+				const document = {
+					...blank,
+					resource: resourceOfKind(resource),
+					device: assessed ? { ratedPowerKW: 1000, ...deviceOfKind(device) } : deviceOfKind(device),
+					array: assessed ? { deviceCount: 5 } : blank.array
+				};
 				const parsed = parseScenario(document);
 				expect(parsed.ok ? [] : parsed.issues, `${resource} with ${device}`).toEqual([]);
 			}
 		}
+	});
+
+	it('offers an assessed energy to every technology, naming the losses it refuses', () => {
+		for (const technology of technologies) expect(resourceKindsFor[technology]).toContain('assessed-energy');
+		const parsed = parseScenario({ ...blankDocument('wave', { name: 'x', currency: 'EUR' }), resource: resourceOfKind('assessed-energy') });
+		expect(parsed.ok ? [] : parsed.issues.map((i) => i.path)).toEqual(['array.arrayLoss', 'array.electricalLoss', 'array.availability']);
 	});
 
 	it('keeps an opex line’s name and amount across bases', () => {

@@ -82,4 +82,11 @@ describe('unitOf', () => {
 		expect(unitOf(['finance', 'covenants', 'defaultDscr'], tidal, 'EUR')).toBe('×');
 		expect(unitOf(['finance', 'covenants', 'cashSweep', 'share'], tidal, 'EUR')).toBe('fraction');
 	});
+
+	it('gives an assessed energy MWh a year and its sigmas a fraction of P50', () => {
+		expect(unitOf(['resource', 'p50MWh'], {}, 'EUR')).toBe('MWh/yr');
+		expect(unitOf(['resource', 'p90MWh'], {}, 'EUR')).toBe('MWh/yr');
+		expect(unitOf(['resource', 'interAnnualSigma'], {}, 'EUR')).toBe('fraction of P50');
+		expect(unitOf(['resource', 'longTermSigma'], {}, 'EUR')).toBe('fraction of P50');
+	});
 });

@@ -14,7 +14,8 @@ export function starterDocument(
 	const example = Object.keys(examples)
 		.sort()
 		.map((path) => examples[path])
-		.find((doc) => doc.technology === technology);
+		// A lender's case on an assessed energy is no starting point for a design: the first example that computes its energy.
+		.find((doc) => doc.technology === technology && (doc.resource as { kind?: unknown } | undefined)?.kind !== 'assessed-energy');
 	if (!example) return undefined;
 	const copy = structuredClone(example);
 	const site = { ...(copy.site as Record<string, unknown> | undefined), name: options.siteName || undefined };
