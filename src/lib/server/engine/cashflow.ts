@@ -18,11 +18,13 @@ import { degradationFactors } from './energy/losses';
 import { nominalFromReal } from './finance/rates';
 import { depreciationByYear } from './finance/depreciation';
 import { buildTimeline, discountFactorsOnTimeline, overConstructionPoints, powersOnTimeline, presentValue, type Timeline, type TimeSeries } from './timeline';
-import { capexSchedule, decommissioningCost, opexSchedule, totalOpex, type CapexSchedule, type OpexSchedule } from './costs';
+import { capexSchedule, decommissioningCost, opexSchedule, overhaulSchedules, totalOpex, type CapexSchedule, type OpexSchedule, type OverhaulSchedule } from './costs';
 import { deliveredEnergy, grantSchedule, revenueByYear, tariffInflationOf } from './revenue';
 import { corporateTax } from './tax';
 import { structureDebt, type DebtStructure } from './debt';
 import { horizonExceedanceFactor } from './energy/uncertainty';
+import { costReserves, type CostReserves } from './reserves';
+import { debtServiceReserveAtCod, runWaterfall, type WaterfallResult } from './waterfall';
 import { sculptedLoan } from './finance/loans';
 
 export type CasePreparation = {
@@ -50,6 +52,8 @@ export type CasePreparation = {
 	/** Nominal capex net of grants at each construction point. */
 	fundingNeed: Decimal[];
 	opex: OpexSchedule;
+	/** Periodic overhaul lines' nominal cost per operating year (for the maintenance reserve). */
+	overhauls: OverhaulSchedule[];
 	/** Nominal decommissioning cost, in the final operating year. */
 	decommissioning: Decimal;
 	/** Tax depreciation per operating year, of capex net of grants. */
@@ -89,6 +93,7 @@ export function prepareCase(scenario: Scenario, energy: EnergyEstimate): CasePre
 	const fundingNeed = capex.nominal.map((c, j) => c.minus(grants.nominal[j]));
 	const costContext = { installedKW: energy.installedCapacityKW, deviceCount: scenario.array.deviceCount, capexRealTotal: capex.realTotal };
 	const opex = opexSchedule(scenario.opex, { ...costContext, energyMWh, priceIndex: priceIndex.operation });
+	const overhauls = overhaulSchedules(scenario.opex, { ...costContext, energyMWh, priceIndex: priceIndex.operation });
 	const decommissioning = decommissioningCost(scenario.decommissioning, {
 		...costContext,
 		finalPriceIndex: priceIndex.operation[operatingYears - 1]
@@ -115,6 +120,7 @@ export function prepareCase(scenario: Scenario, energy: EnergyEstimate): CasePre
 		grants,
 		fundingNeed,
 		opex,
+		overhauls,
 		decommissioning,
 		depreciation,
 		warnings
@@ -175,10 +181,15 @@ export type FinancingResult = {
 	tax: Decimal[];
 	taxableIncome: Decimal[];
 	lossCarriedForward: Decimal[];
+	/** Cash flow available for debt service: after tax and the maintenance and decommissioning reserves' movements. */
 	cfads: Decimal[];
 	/** CFADS under each downside sizing case's energy (with the same debt), by label. */
 	downsideCfads: { label: string; cfads: Decimal[] }[];
-	/** Equity flows: paid in at each construction point (negative), received each operating year. */
+	/** Maintenance and decommissioning reserves (before debt). */
+	costReserves: CostReserves;
+	/** The operating waterfall: DSRA, lock-up, sweep, distributions (null without debt). */
+	waterfall: WaterfallResult | null;
+	/** Equity flows: paid in at each construction point (negative), distributions each operating year. */
 	equity: TimeSeries;
 	warnings: string[];
 };
@@ -256,12 +267,14 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 	let depreciableCost = ZERO;
 	for (const f of prep.fundingNeed) depreciableCost = depreciableCost.plus(f);
 	let depreciation = prep.depreciation;
+	const reserves = costReserves({ overhauls: prep.overhauls, decommissioning: op.decommissioning, spec: finance.reserves });
 	/** Tax with the given interest over the first interest.length years, for one case. */
 	const taxFor = (c: Case, interest: readonly Decimal[]) => {
 		const taxableIncome = interest.map((i, k) => c.ebitda[k].minus(depreciation[k]).minus(c.decommissioning[k]).minus(i));
 		return { taxableIncome, ...corporateTax(taxableIncome, finance.taxRate, finance.taxLossCarryForward, finance.taxLossCarryForwardCap) };
 	};
-	const cfadsFor = (c: Case, tax: readonly Decimal[]) => tax.map((t, k) => c.ebitda[k].minus(c.decommissioning[k]).minus(t));
+	const cfadsFor = (c: Case, tax: readonly Decimal[]) =>
+		tax.map((t, k) => c.ebitda[k].minus(c.decommissioning[k]).minus(t).minus(reserves.netContribution[k]));
 	const casesWith = (interest: readonly Decimal[]) => cases.map((c) => ({ ...c, cfads: cfadsFor(c, taxFor(c, interest).tax) }));
 
 	if (terms.sizing === 'none') {
@@ -278,27 +291,44 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 			...taxed,
 			cfads,
 			downsideCfads: [],
+			costReserves: reserves,
+			waterfall: null,
 			equity: { construction: prep.fundingNeed.map((f) => f.neg()), operation: cfads },
 			warnings
 		};
 	}
 
 	const span = terms.tenorYears;
+	const dsraSpec = finance.reserves?.debtService;
 	let interest: Decimal[] = Array.from({ length: span }, () => ZERO);
 	if (terms.sizing === 'target-dscr' && terms.repayment === 'sculpted' && finance.taxRate > 0 && terms.downsideCases.length === 0) {
 		interest = shieldedSculptingGuess(cfadsFor(cases[0], taxFor(cases[0], interest).tax), terms, finance.taxRate);
 	}
+	let reserveAtCod = ZERO;
 	const structure = () =>
-		structureDebt({ terms, timeline: prep.timeline, spend: prep.fundingNeed, cases: casesWith(interest), operatingYears: n });
+		structureDebt({ terms, timeline: prep.timeline, spend: prep.fundingNeed, cases: casesWith(interest), reserveAtCod, operatingYears: n });
 	const withFinancingCosts = (debt: DebtStructure) =>
 		depreciableCost.gt(0) ? prep.depreciation.map((d) => d.times(ONE.plus(debt.funding.financingCosts.div(depreciableCost)))) : prep.depreciation;
+	/** The waterfall on the CFADS the current interest gives: the interest it charges is what tax sees next. */
+	const overLife = (values: readonly Decimal[]) => Array.from({ length: n }, (_, k) => values[k] ?? ZERO);
+	const flow = (debt: DebtStructure) =>
+		runWaterfall({
+			cfads: cfadsFor(cases[0], taxFor(cases[0], overLife(interest)).tax),
+			loanRows: debt.rows,
+			interestRate: terms.interestRate,
+			debtServiceReserve: dsraSpec,
+			dsraAtCod: dsraSpec ? reserveAtCod : undefined,
+			covenants: finance.covenants
+		});
+	const dsraFromFunding = (debt: DebtStructure) => (dsraSpec?.funding === 'from-funding' ? debtServiceReserveAtCod(dsraSpec, debt.rows) : ZERO);
 	let debt = structure();
 	depreciation = withFinancingCosts(debt);
 	let converged = false;
 	let previousMove: Decimal | null = null;
 	for (let round = 0; round < MAX_TAX_ITERATIONS; round++) {
-		const implied = debt.rows.slice(0, span).map((r) => r.interest);
-		let move = ZERO;
+		const nextReserve = dsraFromFunding(debt);
+		const implied = flow(debt).interest.slice(0, span);
+		let move = nextReserve.minus(reserveAtCod).abs();
 		implied.forEach((v, k) => (move = Decimal.max(move, v.minus(interest[k]).abs())));
 		if (move.lt(Decimal.max(1e-6, debt.balanceAtCod.times(1e-10)))) {
 			converged = true;
@@ -310,26 +340,32 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 			const ahead = q.div(ONE.minus(q));
 			interest = implied.map((v, k) => v.plus(v.minus(interest[k]).times(ahead)));
 		} else interest = implied;
+		reserveAtCod = nextReserve;
 		previousMove = move;
 		debt = structure();
 		depreciation = withFinancingCosts(debt);
 	}
-	const finalInterest = debt.rows.map((r) => r.interest);
-	const taxed = taxFor(cases[0], finalInterest);
+	// Tax on the waterfall's own interest, then the waterfall on that CFADS: without a sweep the interest is the
+	// loan's and the ledger closes exactly; with one, the two interest vectors agree to the tolerance above.
+	interest = overLife(flow(debt).interest);
+	const taxed = taxFor(cases[0], interest);
 	const cfads = cfadsFor(cases[0], taxed.tax);
+	const waterfall = flow(debt);
 	if (!converged) warnings.push('The debt and tax calculation did not settle; debt figures may be slightly off.');
-	warnings.push(...debt.warnings);
+	warnings.push(...debt.warnings, ...waterfall.warnings);
 	return {
 		debt,
-		interest: finalInterest,
-		principal: debt.rows.map((r) => r.principal),
-		debtService: debt.debtService,
-		closingBalance: debt.rows.map((r) => r.closing),
+		interest: waterfall.interest,
+		principal: waterfall.principal.map((p, k) => p.plus(waterfall.sweep[k])),
+		debtService: waterfall.debtService,
+		closingBalance: waterfall.closingBalance,
 		depreciation,
 		...taxed,
 		cfads,
-		downsideCfads: cases.slice(1).map((c) => ({ label: c.label, cfads: cfadsFor(c, taxFor(c, finalInterest).tax) })),
-		equity: { construction: debt.funding.equity.map((e) => e.neg()), operation: cfads.map((c, k) => c.minus(debt.debtService[k])) },
+		downsideCfads: cases.slice(1).map((c) => ({ label: c.label, cfads: cfadsFor(c, taxFor(c, interest).tax) })),
+		costReserves: reserves,
+		waterfall,
+		equity: { construction: debt.funding.equity.map((e) => e.neg()), operation: waterfall.distribution },
 		warnings
 	};
 }

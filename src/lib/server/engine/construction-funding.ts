@@ -54,7 +54,7 @@ export type ConstructionFundingInputs = {
 };
 
 export type ConstructionFunding = {
-	/** Debt at COD: everything drawn plus capitalised interest. */
+	/** The loan balance at COD: everything drawn plus capitalised interest. */
 	balanceAtCod: Decimal;
 	/** Cash drawn from the lenders at each point (uses the debt funds). */
 	draws: Decimal[];

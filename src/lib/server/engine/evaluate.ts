@@ -42,7 +42,7 @@ export type EvaluateOptions = {
 };
 
 /** Metrics that need the debt and levered-tax pass. */
-const FINANCING_METRICS = new Set<MetricKey>(['equityIrr', 'minDscr', 'avgDscr', 'llcr', 'debtAmount']);
+const FINANCING_METRICS = new Set<MetricKey>(['equityIrr', 'minDscr', 'avgDscr', 'llcr', 'debtAmount', 'yearsInLockUp']);
 
 type Computed = Omit<DetailedEvaluation, 'financing'> & { financing: FinancingResult | null };
 
@@ -120,7 +120,7 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 		avgDscr: cover.average,
 		llcr,
 		// Filled by the cash waterfall (./waterfall) once it is wired into the cash-flow model.
-		yearsInLockUp: null,
+		yearsInLockUp: financing?.waterfall && scenario.finance.covenants?.lockUpDscr !== undefined ? new Decimal(financing.waterfall.yearsInLockUp) : null,
 		debtAmount: financing ? (debt ? debt.balanceAtCod : new Decimal(0)) : null,
 		breakevenTariff
 	};
@@ -168,6 +168,13 @@ export type CashFlowRow = {
 	interest: DecimalString;
 	/** Commitment and upfront fees during construction. */
 	financingFees: DecimalString;
+	/** Prepayment by the cash sweep. */
+	cashSweep: DecimalString;
+	/** Reserve balances at the year's end: debt service, maintenance, decommissioning, and cash held by a lock-up. */
+	debtServiceReserve: DecimalString;
+	maintenanceReserve: DecimalString;
+	decommissioningReserve: DecimalString;
+	lockedUpCash: DecimalString;
 	principal: DecimalString;
 	debtService: DecimalString;
 	debtBalance: DecimalString;
@@ -305,6 +312,7 @@ function cashFlowRows(d: DetailedEvaluation): CashFlowRow[] {
 	const fees = yearly(funding ? funding.commitmentFees.map((c, p) => (p === 0 ? c.plus(funding.upfrontFee) : c)) : undefined);
 	const capitalise = fin.debt ? prep.scenario.finance.debt.sizing !== 'none' && prep.scenario.finance.debt.capitalizeInterestDuringConstruction : false;
 	let balance = ZERO;
+	const w = fin.waterfall;
 	timeline.constructionYearEnds.forEach((t, j) => {
 		project = project.plus(projectPreTax[j]);
 		equity = equity.plus(equityFlows[j]);
@@ -327,6 +335,11 @@ function cashFlowRows(d: DetailedEvaluation): CashFlowRow[] {
 			debtDrawdown: decimalString(draws[j]),
 			interest: decimalString(interest[j]),
 			financingFees: decimalString(fees[j]),
+			cashSweep: zero,
+			debtServiceReserve: decimalString(w && j === timeline.constructionYears - 1 ? w.dsra.opening[0] : ZERO),
+			maintenanceReserve: zero,
+			decommissioningReserve: zero,
+			lockedUpCash: zero,
 			principal: zero,
 			debtService: decimalString(interestPaid[j]),
 			debtBalance: decimalString(balance),
@@ -360,6 +373,11 @@ function cashFlowRows(d: DetailedEvaluation): CashFlowRow[] {
 			debtDrawdown: zero,
 			interest: decimalString(fin.interest[k]),
 			financingFees: zero,
+			cashSweep: decimalString(w ? w.sweep[k] : ZERO),
+			debtServiceReserve: decimalString(w ? w.dsra.closing[k] : ZERO),
+			maintenanceReserve: decimalString(fin.costReserves.maintenance.balance[k]),
+			decommissioningReserve: decimalString(fin.costReserves.decommissioning.balance[k]),
+			lockedUpCash: decimalString(w ? w.lockUp.held[k] : ZERO),
 			principal: decimalString(fin.principal[k]),
 			debtService: decimalString(fin.debtService[k]),
 			debtBalance: decimalString(fin.closingBalance[k]),
