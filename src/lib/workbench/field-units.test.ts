@@ -83,6 +83,14 @@ describe('unitOf', () => {
 		expect(unitOf(['finance', 'covenants', 'cashSweep', 'share'], tidal, 'EUR')).toBe('fraction');
 	});
 
+	it('gives the commitment fee a yearly share of the undrawn loan, and a downside case its level in per cent', () => {
+		const sized = { finance: { debt: { sizing: 'target-dscr', downsideCases: [{ exceedancePercent: 90, targetDscr: 1.2, horizonYears: 1 }] } } };
+		expect(unitOf(['finance', 'debt', 'commitmentFee'], sized, 'EUR')).toBe('fraction/yr of undrawn debt');
+		expect(unitOf(['finance', 'debt', 'downsideCases', 0, 'exceedancePercent'], sized, 'EUR')).toBe('%');
+		expect(unitOf(['finance', 'debt', 'downsideCases', 0, 'targetDscr'], sized, 'EUR')).toBe('×');
+		expect(unitOf(['finance', 'debt', 'downsideCases', 0, 'horizonYears'], sized, 'EUR')).toBe('years');
+	});
+
 	it('gives an assessed energy MWh a year and its sigmas a fraction of P50', () => {
 		expect(unitOf(['resource', 'p50MWh'], {}, 'EUR')).toBe('MWh/yr');
 		expect(unitOf(['resource', 'p90MWh'], {}, 'EUR')).toBe('MWh/yr');

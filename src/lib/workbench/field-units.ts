@@ -47,6 +47,8 @@ const namedUnits: Record<string, string> = {
 	gearing: 'fraction',
 	maxGearing: 'fraction',
 	upfrontFee: 'fraction of debt',
+	commitmentFee: 'fraction/yr of undrawn debt',
+	exceedancePercent: '%',
 	months: 'months',
 	lockUpDscr: '×',
 	defaultDscr: '×',
