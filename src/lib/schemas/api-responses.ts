@@ -216,7 +216,8 @@ export const evaluationResultSchema = z.object({
 						label: z.string(),
 						targetDscr: z.number(),
 						debtCapacity: decimalStringSchema.describe('Balance at COD this case alone would allow'),
-						limitedBy: z.enum(['repayment', 'grace', 'cfads']).describe('What binds the case: repayment years, interest-only grace years, or CFADS not positive'),
+						limitedBy: z.enum(['repayment', 'grace', 'cfads']).describe('What binds the case on its own: repayment years, interest-only grace years, or CFADS not positive'),
+						bindsInYears: z.array(z.number().int()).describe('A loan sculpted on several cases: the operating years whose debt service this case sets (its DSCR equals its target there)'),
 						minDscr: decimalStringSchema.nullable(),
 						dscr: z.array(decimalStringSchema.nullable()).describe("DSCR each operating year under this case's energy, with the debt as sized")
 					})

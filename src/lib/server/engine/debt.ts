@@ -38,8 +38,10 @@ export type DebtStructure = {
 	sizedBy: 'gearing' | 'target-dscr' | 'gearing-cap';
 	/** The case whose target set the debt, when sizedBy is target-dscr. */
 	governingCase: string | null;
-	/** Each case's capacity, when sized by DSCR. */
+	/** Each case's capacity on its own, when sized by DSCR. */
 	capacities: CaseCapacity[];
+	/** Sculpted on several cases: the case whose cover sets each operating year's debt service (empty otherwise). */
+	bindingCases: string[];
 	/** The construction funding: draws, equity, interest and fees at each construction point. */
 	funding: ConstructionFunding;
 	/** Debt over the total funding need. */
@@ -126,6 +128,41 @@ export function caseCapacity(terms: DscrTerms, sizingCase: SizingCase, warnings:
 	return { label, targetDscr, balance: best ?? ZERO, limitedBy: bindsInGrace ? 'grace' : 'repayment' };
 }
 
+/**
+ * Several cases on one sculpted loan: in each year the debt service may not
+ * exceed CFADS_case / target_case for any case, so the loan is sculpted at
+ * cover 1 to min over cases of CFADS_case,k / target_case. Every case then
+ * covers at least its target every year, and the case that binds a year
+ * covers exactly its target. Source: common practice (sculpting to the
+ * lesser of the P50 and P90 debt service each period).
+ */
+function combinedCase(cases: readonly SizingCase[], tenorYears: number): { sizingCase: SizingCase; binding: string[] } {
+	const years = cases[0].cfads.length;
+	const binding: string[] = [];
+	const cfads = Array.from({ length: years }, (_, k) => {
+		let least: Decimal | null = null;
+		let label = cases[0].label;
+		for (const c of cases) {
+			const allowed = c.cfads[k].div(c.targetDscr);
+			if (least === null || allowed.lt(least)) {
+				least = allowed;
+				label = c.label;
+			}
+		}
+		if (k < tenorYears) binding.push(label);
+		return least!;
+	});
+	return { sizingCase: { label: 'combined', exceedancePercent: null, horizonYears: null, targetDscr: 1, cfads }, binding };
+}
+
+function mostFrequent(labels: readonly string[]): string | null {
+	const counts = new Map<string, number>();
+	for (const l of labels) counts.set(l, (counts.get(l) ?? 0) + 1);
+	let best: string | null = null;
+	for (const [label, count] of counts) if (best === null || count > counts.get(best)!) best = label;
+	return best;
+}
+
 /** Repayment rows for a given balance at COD, sculpted to the given CFADS profile when the repayment is sculpted. */
 function repaymentRows(terms: DebtTerms, balance: Decimal, cfads: readonly Decimal[], warnings: string[]): LoanRow[] {
 	if (balance.isZero()) return [];
@@ -161,11 +198,22 @@ function repaymentRows(terms: DebtTerms, balance: Decimal, cfads: readonly Decim
 export function structureDebt({ terms, timeline, spend, cases, reserveAtCod = ZERO, operatingYears }: DebtInputs): DebtStructure {
 	const warnings: string[] = [];
 	let capacities: (CaseCapacity & { sculptedRows?: LoanRow[] })[] = [];
-	let governing: (typeof capacities)[number] | null = null;
+	let governing: (CaseCapacity & { sculptedRows?: LoanRow[] }) | null = null;
 	let dscrLimit: Decimal | null = null;
+	let profile: readonly Decimal[] = cases[0]?.cfads ?? [];
+	let bindingCases: string[] = [];
 	if (terms.sizing === 'target-dscr') {
 		capacities = cases.map((c) => caseCapacity(terms, c, warnings));
 		for (const c of capacities) if (governing === null || c.balance.lt(governing.balance)) governing = c;
+		if (terms.repayment === 'sculpted' && cases.length > 1) {
+			// Sculpted on several cases: each year's service is the least any case's cover allows that year.
+			const combined = combinedCase(cases, terms.tenorYears);
+			bindingCases = combined.binding;
+			governing = { ...caseCapacity(terms, combined.sizingCase, []), label: mostFrequent(combined.binding.slice(terms.graceYears)) ?? cases[0].label };
+			profile = combined.sizingCase.cfads;
+		} else if (governing) {
+			profile = cases.find((c) => c.label === governing!.label)!.cfads;
+		}
 		dscrLimit = governing ? governing.balance : ZERO;
 	}
 	const share = dec(terms.sizing === 'gearing' ? terms.gearing : terms.maxGearing);
@@ -186,13 +234,13 @@ export function structureDebt({ terms, timeline, spend, cases, reserveAtCod = ZE
 	const balanceAtCod = funding.balanceAtCod;
 	const capped = dscrLimit !== null && funding.totalFundingNeed.times(share).lt(dscrLimit);
 	const sizedBy: DebtStructure['sizedBy'] = terms.sizing === 'gearing' ? 'gearing' : capped ? 'gearing-cap' : 'target-dscr';
-	const profile = cases.find((c) => c.label === governing?.label)?.cfads ?? cases[0]?.cfads ?? [];
 	const exact = sizedBy === 'target-dscr' && governing?.sculptedRows && governing.sculptedRows.length > 0 ? governing.sculptedRows : null;
 	const rows = padRows(exact ?? repaymentRows(terms, balanceAtCod, profile, warnings), operatingYears);
 	return {
 		sizedBy,
 		governingCase: sizedBy === 'target-dscr' ? (governing?.label ?? null) : null,
 		capacities: capacities.map(({ label, targetDscr, balance, limitedBy }) => ({ label, targetDscr, balance, limitedBy })),
+		bindingCases,
 		funding,
 		gearing: funding.gearing,
 		balanceAtCod: exact ? exact[0].opening : balanceAtCod,

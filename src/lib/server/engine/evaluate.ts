@@ -257,6 +257,8 @@ export type EngineResult = {
 			targetDscr: number;
 			debtCapacity: DecimalString;
 			limitedBy: 'repayment' | 'grace' | 'cfads';
+			/** Sculpted on several cases: the loan years whose debt service this case's cover sets. */
+			bindsInYears: number[];
 			minDscr: DecimalString | null;
 			dscr: (DecimalString | null)[];
 		}[];
@@ -409,6 +411,7 @@ function financingSummary(d: DetailedEvaluation): NonNullable<EngineResult['fina
 			targetDscr: c.targetDscr,
 			debtCapacity: decimalString(c.balance),
 			limitedBy: c.limitedBy,
+			bindsInYears: debt.bindingCases.flatMap((label, k) => (label === c.label ? [k + 1] : [])),
 			minDscr: maybe(cover.min),
 			dscr: cover.perYear.map(maybe)
 		};
