@@ -8,11 +8,17 @@ import { solveRoot } from './finance/roots';
 import type { TimedAmount } from './finance/irr';
 import type { TimeSeries } from './timeline';
 
-/** Rates searched for a second IRR: from -99 % to +1000 % a year, wider than any project's return. */
-export const IRR_SEARCH_RANGE = { low: -0.99, high: 10 } as const;
+/**
+ * Rates searched for a second IRR: from -10 % to +100 % a year, the rates a
+ * discount rate or hurdle could take. A second root far outside it (a
+ * decommissioning cost at the end of the life gives one near -25 % on most
+ * projects) does not change a decision taken at any plausible rate, and a
+ * warning on every such project would teach readers to skip warnings.
+ */
+export const IRR_SEARCH_RANGE = { low: -0.1, high: 1 } as const;
 
-/** Cells of the scan in ln(1 + r): about 0.35 % apart in 1 + r. */
-const SCAN_CELLS = 2000;
+/** Cells of the scan in ln(1 + r): about 0.2 % apart in 1 + r over the default range. */
+const SCAN_CELLS = 400;
 
 /**
  * Sign changes in a sequence, zeros skipped (the count in Descartes' rule of
@@ -44,10 +50,10 @@ function inTimeOrder(flows: readonly TimedAmount[]): Decimal[] {
  *
  *     NPV(r) = sum_i a_i (1 + r)^(-t_i) = sum_i a_i e^(-t_i x),   x = ln(1 + r)
  *
- * scanned on 2000 equal cells in x (t may be fractional); each cell whose ends
+ * scanned on 400 equal cells in x (t may be fractional); each cell whose ends
  * differ in sign is narrowed by Brent's method. In float64, to about 1e-12 in
  * x: enough to name a rate to two decimals of a percent. Two roots inside one
- * cell (rates within about 0.35 % of 1 + r of each other), or a double root,
+ * cell (rates within about 0.2 % of 1 + r of each other over the default range), or a double root,
  * would be missed. Source: the IRR equation; the scan is common practice.
  *
  * Example: npvZeroRates(-100 at t = 0, 230 at 1, -132 at 2) // => [0.1, 0.2] (to float accuracy)
@@ -89,9 +95,12 @@ const NUMBER_WORDS = ['no rate', 'one rate', 'two rates', 'three rates', 'four r
  * When the flows whose IRR is reported change sign more than once, more than
  * one rate may make their NPV zero (Descartes' rule of signs bounds the
  * number of IRRs by the number of sign changes), so the single figure may
- * mislead. The sentence names the metric, the rates that do make the NPV
- * zero between -99 % and +1000 % (see npvZeroRates), and the one reported.
- * Null with at most one sign change (the IRR is then unique).
+ * mislead. The warning is given when more than one rate between -10 % and
+ * +100 % (IRR_SEARCH_RANGE) makes the NPV zero, naming the metric, those
+ * rates and the one reported; or when none there does while the reported one
+ * lies outside. Null with at most one sign change (the IRR is then unique),
+ * or when exactly one rate in the range makes the NPV zero: the figure is
+ * then the only one a decision at a plausible rate can meet.
  * Source: Descartes' rule of signs; the advice to rely on the NPV when
  * several IRRs exist is common practice (corporate-finance textbooks).
  */
@@ -99,10 +108,10 @@ export function multipleIrrWarning(label: string, flows: readonly TimedAmount[],
 	const changes = signChanges(inTimeOrder(flows));
 	if (changes <= 1) return null;
 	const rates = npvZeroRates(flows);
+	if (rates.length === 1) return null;
 	const range = `between ${IRR_SEARCH_RANGE.low * 100} % and ${IRR_SEARCH_RANGE.high * 100} %`;
 	const head = `${label}: the cash flows change sign ${changes} times, so more than one rate can make their NPV zero (Descartes' rule of signs)`;
 	if (rates.length === 0) return `${head}; none does ${range}, and the figure shown, ${percent(reported)}, lies outside that range.`;
-	if (rates.length === 1) return `${head}; ${range} only ${percent(rates[0])} does, so the figure is unique in that range.`;
 	const count = NUMBER_WORDS[rates.length] ?? `${rates.length} rates`;
 	return `${head}; ${range} ${count} do: ${listed(rates.map(percent))}. The figure shown is ${percent(reported)}; the NPV is the safer guide.`;
 }
