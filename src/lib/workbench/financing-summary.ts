@@ -10,15 +10,20 @@
  * Safe to import in the browser.
  */
 import DecimalJs from 'decimal.js';
+import { operatingYearsList } from '../metrics/cover-shortfalls';
 import { groupDigits, NO_VALUE } from '../metrics/format';
 import type { EngineResult } from '../server/engine/evaluate';
 import type { Scenario } from '../schemas/scenario';
 
 type Financing = NonNullable<EngineResult['financing']>;
 type Always = 'sizedBy' | 'gearing' | 'debtAmount' | 'debtDrawn' | 'interestDuringConstruction' | 'upfrontFee';
-/** A financing block as stored: the first engine's fields always, the later ones when the engine that made it had them. */
-export type StoredFinancing = Pick<Financing, Always> & Partial<Omit<Financing, Always>>;
 export type SizingCase = Financing['sizingCases'][number];
+/** A sizing case as stored: bindsInYears came later than the rest. */
+export type StoredSizingCase = Omit<SizingCase, 'bindsInYears'> & Partial<Pick<SizingCase, 'bindsInYears'>>;
+/** A financing block as stored: the first engine's fields always, the later ones when the engine that made it had them. */
+export type StoredFinancing = Pick<Financing, Always> & Partial<Omit<Financing, Always | 'sizingCases'>> & { sizingCases?: StoredSizingCase[] };
+
+const bindingYears = (c: StoredSizingCase) => c.bindsInYears ?? [];
 
 export interface FinancingFact {
 	label: string;
@@ -62,24 +67,34 @@ export function sizingCaseName(label: string): string {
 	return `${label} energy`;
 }
 
+/** What set the debt, after the words "Sized by": "the P90 target DSCR 1.20", "gearing, 70.0 % of the total funding need". */
+function sizedByWords(financing: StoredFinancing): string {
+	const base = financing.totalFundingNeed === undefined ? 'construction spend' : 'the total funding need';
+	const share = `${percentText(financing.gearing)} of ${base}`;
+	switch (financing.sizedBy) {
+		case 'gearing':
+			return `gearing, ${share}`;
+		case 'gearing-cap':
+			return `the gearing cap, ${share}: every target DSCR allows more`;
+		case 'target-dscr': {
+			const setting = (financing.sizingCases ?? []).filter((c) => bindingYears(c).length > 0);
+			if (setting.length > 1) {
+				const each = setting.map((c) => `the ${c.label} target DSCR ${groupDigits(c.targetDscr, 2)} in ${operatingYearsList(bindingYears(c))}`);
+				return `the least cover each year allows: ${each.slice(0, -1).join(', ')} and ${each[each.length - 1]}`;
+			}
+			const governing = financing.sizingCases?.find((c) => c.label === financing.governingCase);
+			return governing ? `the ${governing.label} target DSCR ${groupDigits(governing.targetDscr, 2)}` : 'the target DSCR';
+		}
+	}
+}
+
 /**
  * "Sized by the P90 target DSCR 1.20", "Sized by gearing, 70.0 % of the total
  * funding need", "Sized by the gearing cap, 80.0 % of the total funding need:
  * every target DSCR allows more".
  */
 export function sizedByText(financing: StoredFinancing): string {
-	const base = financing.totalFundingNeed === undefined ? 'construction spend' : 'the total funding need';
-	const share = `${percentText(financing.gearing)} of ${base}`;
-	switch (financing.sizedBy) {
-		case 'gearing':
-			return `Sized by gearing, ${share}`;
-		case 'gearing-cap':
-			return `Sized by the gearing cap, ${share}: every target DSCR allows more`;
-		case 'target-dscr': {
-			const governing = financing.sizingCases?.find((c) => c.label === financing.governingCase);
-			return governing ? `Sized by the ${governing.label} target DSCR ${groupDigits(governing.targetDscr, 2)}` : 'Sized by the target DSCR';
-		}
-	}
+	return `Sized by ${sizedByWords(financing)}`;
 }
 
 /** The financing block as labelled lines, in reading order; fields the stored result lacks are left out. */
@@ -87,7 +102,7 @@ export function financingFacts(financing: StoredFinancing, currency: string): Fi
 	const money = (value: string | undefined) => (value === undefined ? null : moneyText(value, currency));
 	const onNeed = financing.totalFundingNeed !== undefined;
 	const lines: [string, string | null][] = [
-		['Sized by', sizedByText(financing)],
+		['Sized by', sizedByWords(financing)],
 		['Debt at COD', money(financing.debtAmount)],
 		[onNeed ? 'Gearing, on the total funding need' : 'Gearing, on construction spend', percentText(financing.gearing)],
 		['Total funding need', money(financing.totalFundingNeed)],
@@ -101,15 +116,44 @@ export function financingFacts(financing: StoredFinancing, currency: string): Fi
 	return lines.flatMap(([label, value]) => (value === null ? [] : [{ label, value }]));
 }
 
-/** The sizing cases as table rows: case, target, the debt it allows, what binds it, the minimum DSCR under its energy. */
-export function sizingCaseRows(financing: StoredFinancing): { governs: boolean; cells: [string, string, string, string, string] }[] {
-	return (financing.sizingCases ?? []).map((c) => ({
-		governs: financing.sizedBy === 'target-dscr' && c.label === financing.governingCase,
-		cells: [sizingCaseName(c.label), dscrText(c.targetDscr), groupDigits(c.debtCapacity, 0), limitedByLabels[c.limitedBy], dscrText(c.minDscr)]
-	}));
+export interface SizingCaseTable {
+	headers: string[];
+	/** governs: the case set the debt, or (sculpted on several cases) the debt service of some years. */
+	rows: { governs: boolean; cells: string[] }[];
 }
 
-/** The headers of sizingCaseRows, the money one in the given currency. */
-export function sizingCaseHeaders(currency: string): [string, string, string, string, string] {
-	return ['Case', 'Target DSCR', `Debt it allows (${currency})`, 'What binds it', 'Minimum DSCR under its energy'];
+/**
+ * The sizing cases as a table: case, target, the debt its target allows on
+ * its own, what binds it, the minimum DSCR under its energy with the debt as
+ * sized; and, for a loan sculpted on several cases, the years whose debt
+ * service each case sets.
+ */
+export function sizingCaseTable(financing: StoredFinancing, currency: string): SizingCaseTable {
+	const cases = financing.sizingCases ?? [];
+	const shared = cases.some((c) => bindingYears(c).length > 0);
+	const byDscr = financing.sizedBy === 'target-dscr';
+	return {
+		headers: [
+			'Case',
+			'Target DSCR',
+			`Debt it allows on its own (${currency})`,
+			'What binds it on its own',
+			'Minimum DSCR under its energy',
+			...(shared ? ['Sets the debt service in'] : [])
+		],
+		rows: cases.map((c) => {
+			const years = bindingYears(c);
+			return {
+				governs: byDscr && (shared ? years.length > 0 : c.label === financing.governingCase),
+				cells: [
+					sizingCaseName(c.label),
+					dscrText(c.targetDscr),
+					groupDigits(c.debtCapacity, 0),
+					limitedByLabels[c.limitedBy],
+					dscrText(c.minDscr),
+					...(shared ? [years.length > 0 ? operatingYearsList(years) : 'no year'] : [])
+				]
+			};
+		})
+	};
 }
