@@ -269,6 +269,9 @@ export const comparisonResponseSchema = z.object({
 				.record(z.string(), metricDifferenceSchema.nullable())
 				.nullable()
 				.describe('Against the base case, by metric key; null when the project has no base case'),
+			coverShortfalls: z
+				.object({ negativeCfadsYears: z.array(z.number().int()), dscrBelowOneYears: z.array(z.number().int()) })
+				.describe('Operating years of the loan with negative CFADS, and with a DSCR below 1, shown beside the minimum DSCR (empty for a result stored before they were reported)'),
 			warnings: z.array(z.string())
 		})
 	)

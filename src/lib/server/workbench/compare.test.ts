@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { metricDifference } from './compare';
+import { tidalDocument } from '../../../../tests/fixtures/scenario-documents';
+import { evaluateScenario, type EngineResult } from '../engine/evaluate';
+import { compareScenarios, metricDifference } from './compare';
 
 describe('metricDifference', () => {
 	it('subtracts the base case exactly in decimals', () => {
@@ -18,5 +20,19 @@ describe('metricDifference', () => {
 		expect(metricDifference('5', '0')).toEqual({ absolute: '5', relative: null });
 		expect(metricDifference(null, '1')).toBeNull();
 		expect(metricDifference('1', null)).toBeNull();
+	});
+});
+
+describe('compareScenarios', () => {
+	const result = evaluateScenario(tidalDocument);
+	const entry = (id: string, isBaseCase: boolean, stored: EngineResult) => ({ id, name: id, revision: 1, isBaseCase, result: stored });
+
+	it('carries each scenario’s cover shortfalls, and none for a result stored before they were reported', () => {
+		const short = { ...result, coverShortfalls: { negativeCfadsYears: [3, 4], dscrBelowOneYears: [6] } };
+		const { coverShortfalls: _, ...earlier } = result;
+		const base = entry('base', true, short);
+		const comparison = compareScenarios([base, entry('earlier', false, earlier as EngineResult)], base);
+		expect(comparison.scenarios[0].coverShortfalls).toEqual({ negativeCfadsYears: [3, 4], dscrBelowOneYears: [6] });
+		expect(comparison.scenarios[1].coverShortfalls).toEqual({ negativeCfadsYears: [], dscrBelowOneYears: [] });
 	});
 });

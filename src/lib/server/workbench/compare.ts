@@ -5,6 +5,7 @@
 import { Decimal } from '../engine/decimal';
 import { decimalString, type EngineResult } from '../engine/evaluate';
 import { CURRENCY_PLACEHOLDER, engineValueUnit, METRIC_KEYS, type MetricKey } from '../../metrics/catalogue';
+import type { CoverShortfalls } from '../engine/cover-shortfalls';
 
 export interface CompareEntry {
 	id: string;
@@ -29,6 +30,8 @@ export interface ComparedScenario {
 	metrics: Record<MetricKey, string | null>;
 	/** Null for every metric when there is no base case; null for one metric when either side has no value. */
 	differences: Record<MetricKey, MetricDifference | null> | null;
+	/** The loan years the minimum DSCR leaves out or that fall short, shown beside it; none for a result stored before them. */
+	coverShortfalls: CoverShortfalls;
 	warnings: string[];
 }
 
@@ -66,6 +69,10 @@ export function compareScenarios(entries: readonly CompareEntry[], baseCase: Com
 						MetricDifference | null
 					>)
 				: null,
+			coverShortfalls: {
+				negativeCfadsYears: entry.result.coverShortfalls?.negativeCfadsYears ?? [],
+				dscrBelowOneYears: entry.result.coverShortfalls?.dscrBelowOneYears ?? []
+			},
 			warnings: entry.result.warnings
 		}))
 	};

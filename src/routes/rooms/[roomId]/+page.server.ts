@@ -33,7 +33,9 @@ export const load: PageServerLoad = async (event) => {
 						revision: s.revision,
 						isBaseCase: s.isBaseCase,
 						currency: s.result.currency,
-						figures: Object.fromEntries(KEY_FIGURES.map((k) => [k, s.result.metrics[k] ?? null])) as Record<(typeof KEY_FIGURES)[number], string | null>
+						figures: Object.fromEntries(KEY_FIGURES.map((k) => [k, s.result.metrics[k] ?? null])) as Record<(typeof KEY_FIGURES)[number], string | null>,
+						// Shown beside the minimum DSCR; a version published before they were reported has none.
+						coverShortfalls: s.result.coverShortfalls ?? null
 					}))
 				}
 			: null,
