@@ -29,7 +29,8 @@ describe('cashFlowTableCells', () => {
 		expect(columns[0]).toMatchObject({ header: 'Year', unit: 't, 0 = COD' });
 		expect(columns.find((c) => c.header === 'CFADS')?.unit).toBe('USD k');
 		expect(columns.find((c) => c.header === 'Price')?.unit).toBe('USD/MWh');
-		expect(columns).toHaveLength(21);
+		expect(columns.find((c) => c.header === 'Fees')?.unit).toBe('USD k');
+		expect(columns).toHaveLength(22);
 	});
 
 	it('writes a dash where the engine has no DSCR', () => {

@@ -39,6 +39,7 @@ export function cashFlowColumns(currency: string): CashFlowColumn[] {
 		money('cfads', 'CFADS'),
 		money('debtDrawdown', 'Drawdown'),
 		money('interest', 'Interest'),
+		money('financingFees', 'Fees'),
 		money('principal', 'Principal'),
 		money('debtBalance', 'Debt balance'),
 		{ key: 'dscr', header: 'DSCR', unit: 'ratio', places: 2, divisor: 1, align: 'right' },

@@ -45,6 +45,7 @@ export function cashFlowColumns(currency: string): ExportColumn[] {
 		money('cfads', 'CFADS'),
 		money('debtDrawdown', 'Debt drawdown'),
 		money('interest', 'Interest'),
+		money('financingFees', 'Financing fees (commitment and upfront)'),
 		money('principal', 'Principal'),
 		money('debtService', 'Debt service'),
 		money('debtBalance', 'Debt balance at year end'),
@@ -62,7 +63,8 @@ export function cashFlowTable(result: EngineResult): ExportTable {
 	return {
 		title: 'Cash flow',
 		headers: columns.map((c) => c.header),
-		rows: result.cashFlow.map((row) => columns.map((c) => row[c.key])),
+		// A result stored before a column existed leaves its cells empty.
+		rows: result.cashFlow.map((row) => columns.map((c) => row[c.key] ?? null)),
 		numeric: columns.map((c) => c.numeric)
 	};
 }
