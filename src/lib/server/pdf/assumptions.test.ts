@@ -116,6 +116,107 @@ describe('assumptionSections', () => {
 		expect(matrix.rows[3][5]).toBe(plainNumber(wave.device.powerKW[3][4]));
 	});
 
+	it('says when construction spend falls, defaulting a document saved before the field to the middle of the year', () => {
+		expect(fact('Timeline', 'Construction spend and debt draws fall')).toBe('Middle of each construction year');
+		const quarterly: Scenario = { ...tidal, timeline: { ...tidal.timeline, spendTiming: 'quarterly' } };
+		const timeline = assumptionSections(quarterly, evaluateScenario(quarterly)).find((s) => s.title === 'Timeline')!;
+		expect(timeline.facts.find((f) => f.label === 'Construction spend and debt draws fall')?.value).toBe('Quarterly, in the middle of each quarter');
+	});
+
+	describe('a loan also sized on downside energy', () => {
+		const debt = tidal.finance.debt;
+		if (debt.sizing !== 'target-dscr') throw new Error('the tidal example is sized by DSCR');
+		const lender: Scenario = {
+			...tidal,
+			finance: {
+				...tidal.finance,
+				debt: {
+					...debt,
+					commitmentFee: 0.005,
+					fundingOrder: 'pro-rata',
+					downsideCases: [
+						{ exceedancePercent: 90, targetDscr: 1.2, horizonYears: 1 },
+						{ exceedancePercent: 99, targetDscr: 1.05, horizonYears: 10 }
+					]
+				}
+			}
+		};
+		const result = evaluateScenario(lender);
+		const finance = assumptionSections(lender, result).find((s) => s.title === 'Finance and debt')!;
+		const value = (label: string) => finance.facts.find((f) => f.label === label)?.value;
+
+		it('lists the commitment fee, the funding order and the energy cases with their targets', () => {
+			expect(value('Commitment fee on the undrawn loan, during construction')).toBe('0.5 %/yr of undrawn debt');
+			expect(value('Construction funded')).toBe('Debt and equity in step (pro rata)');
+			const cases = finance.tables.find((t) => t.title.startsWith('Energy cases the debt is sized on'))!;
+			expect(cases.rows).toEqual([
+				['P50', 'the long-term mean', '1.35×'],
+				['P90', 'one year', '1.2×'],
+				['P99', 'ten years', '1.05×']
+			]);
+		});
+
+		it('reports what the engine made of them: the governing case, the gearing on the funding need, and each case’s debt', () => {
+			// Sculpted on several cases, each year's service is the least any case's cover allows: the cases that set some year are named.
+			expect(value('Sized by')).toMatch(/^the least cover each year allows: the P(50|90|99 \(10-year\)) target DSCR \d\.\d\d in operating years? /);
+			expect(value('Gearing, on the total funding need')).toMatch(/^\d+\.\d %$/);
+			expect(value('Commitment fees paid')).toMatch(/ EUR$/);
+			const sized = finance.tables.find((t) => t.title.startsWith('Debt each sizing case allows'))!;
+			expect(sized.rows).toHaveLength(3);
+			const governing = sized.rows.filter((row) => row[0].endsWith('(governs)'));
+			expect(governing.length).toBeGreaterThan(0);
+			// Each governing case names the years whose service it sets.
+			expect(sized.columns[5].header).toBe('Sets the debt service in');
+			expect(governing.every((row) => row[5].startsWith('operating year'))).toBe(true);
+		});
+	});
+
+	describe('depreciation', () => {
+		const taxOf = (document: Scenario) => assumptionSections(document, evaluateScenario(document)).find((s) => s.title === 'Tax')!;
+		const withDepreciation = (depreciation: Scenario['finance']['depreciation'], extra: Partial<Scenario['finance']> = {}): Scenario => ({
+			...tidal,
+			finance: { ...tidal.finance, depreciation, ...extra }
+		});
+		// The 5-year column of IRS Publication 946 Table A-1 (half-year convention), as fractions.
+		const macrsFiveYear = [0.2, 0.32, 0.192, 0.1152, 0.1152, 0.0576];
+
+		it('names a schedule as a schedule, with its shares, not as declining balance', () => {
+			const tax = taxOf(withDepreciation({ method: 'schedule', decliningBalanceFactor: 2, schedule: macrsFiveYear }));
+			const value = (label: string) => tax.facts.find((f) => f.label === label)?.value;
+			expect(value('Depreciation')).toBe('A schedule of shares per year');
+			expect(value('Share written off each year, year 1 first')).toBe('20 % / 32 % / 19.2 % / 11.52 % / 11.52 % / 5.76 %');
+			expect(value('Depreciation life')).toBe('6 years, by the schedule');
+			expect(JSON.stringify(tax)).not.toContain('Declining balance');
+		});
+
+		it('states the first-year convention and the cap on losses brought forward', () => {
+			const tax = taxOf(withDepreciation({ method: 'straight-line', decliningBalanceFactor: 2, lifeYears: 15, firstYearConvention: 'half-year' }, { taxLossCarryForwardCap: 0.6 }));
+			const value = (label: string) => tax.facts.find((f) => f.label === label)?.value;
+			expect(value('First year')).toBe("Half a year's charge in year 1 and in the year after the life");
+			expect(value('Losses brought forward may offset at most')).toBe("60 % of a year's taxable profit");
+			expect(fact('Tax', 'First year')).toBe("A whole year's charge in year 1");
+			expect(fact('Tax', 'Losses brought forward may offset at most')).toBeUndefined();
+		});
+
+		it('tabulates asset classes, each with its share and its own rule', () => {
+			const tax = taxOf(
+				withDepreciation({
+					method: 'straight-line',
+					decliningBalanceFactor: 2,
+					assetClasses: [
+						{ name: 'Turbines', share: 0.6, method: 'declining-balance', decliningBalanceFactor: 1.5, lifeYears: 10 },
+						{ name: 'Cable and grid', method: 'schedule', decliningBalanceFactor: 2, schedule: macrsFiveYear }
+					]
+				})
+			);
+			expect(tax.facts.find((f) => f.label === 'Depreciation')?.value).toMatch(/^By asset class/);
+			expect(tax.tables[0].rows).toEqual([
+				['Turbines', '60 %', 'Declining balance 1.5×', '10 years', "A whole year's charge in year 1", ''],
+				['Cable and grid', 'the rest', 'Schedule', '6 years, by the schedule', 'as the schedule gives it', '20 % / 32 % / 19.2 % / 11.52 % / 11.52 % / 5.76 %']
+			]);
+		});
+	});
+
 	it('says plainly when there is no debt', () => {
 		const noDebt: Scenario = { ...tidal, finance: { ...tidal.finance, debt: { sizing: 'none' } } };
 		const finance = assumptionSections(noDebt, evaluateScenario(noDebt)).find((s) => s.title === 'Finance and debt')!;

@@ -8,9 +8,9 @@
  */
 import DecimalJs from 'decimal.js';
 import { groupDigits } from '../../metrics/format';
-import { METRICS } from '../../metrics/catalogue';
 import { technologyLabels } from '../../technology';
 import { unitOf } from '../../workbench/field-units';
+import { financingFacts, fundingOrderLabels, sizingCaseTable, spendTimingLabels } from '../../workbench/financing-summary';
 import { valueAt, type FieldPath } from '../../workbench/schema-fields';
 import type { Scenario } from '../../schemas/scenario';
 import type { EngineResult } from '../engine/evaluate';
@@ -270,6 +270,8 @@ function timeline(document: Scenario): AssumptionSection {
 				['Construction', ['timeline', 'constructionYears']],
 				['Operating life', ['timeline', 'operatingYears']]
 			]),
+			// A document saved before the field existed was evaluated with the schema's default.
+			{ label: 'Construction spend and debt draws fall', value: spendTimingLabels[document.timeline.spendTiming ?? 'mid-year'] },
 			{ label: 'Time convention', value: 't = 0 is the commercial operation date (COD); operating year k ends at t = k' }
 		],
 		tables: []
@@ -409,7 +411,13 @@ function revenue(document: Scenario, result: EngineResult): AssumptionSection {
 }
 
 const repaymentWords = { annuity: 'Annuity (level payments)', 'straight-line': 'Straight line (level principal)', sculpted: 'Sculpted to CFADS' } as const;
-const sizedByWords = { gearing: 'gearing', 'target-dscr': 'the target DSCR', 'gearing-cap': 'the gearing cap' } as const;
+/** The engine's financing lines whose label would repeat an input's: said as amounts paid, or left out (null) where the input says it already. */
+const computedLabels: Record<string, string | null> = {
+	'Interest during construction': 'Interest during construction, amount',
+	'Upfront fee': 'Upfront fee paid',
+	'Commitment fees': 'Commitment fees paid',
+	'Funding order': null
+};
 
 function financeAndDebt(document: Scenario, result: EngineResult): AssumptionSection {
 	const debt = document.finance.debt;
@@ -440,37 +448,110 @@ function financeAndDebt(document: Scenario, result: EngineResult): AssumptionSec
 			['Interest rate', p('interestRate')],
 			['Tenor from COD', p('tenorYears')],
 			['Grace (interest only)', p('graceYears')],
-			['Upfront fee', p('upfrontFee')]
+			['Upfront fee', p('upfrontFee')],
+			['Commitment fee on the undrawn loan, during construction', p('commitmentFee')]
 		]),
+		// Documents saved before these fields existed were evaluated with the schema's defaults.
+		{ label: 'Construction funded', value: fundingOrderLabels[debt.fundingOrder ?? 'equity-first'] },
 		{ label: 'Repayment', value: repaymentWords[debt.repayment] },
 		{ label: 'Interest during construction', value: debt.capitalizeInterestDuringConstruction ? 'Rolled into the loan' : 'Paid by equity' }
 	);
+	const tables: FactTable[] = [];
+	const downside = debt.sizing === 'target-dscr' ? (debt.downsideCases ?? []) : [];
+	if (debt.sizing === 'target-dscr' && downside.length > 0) {
+		tables.push({
+			title: 'Energy cases the debt is sized on (the least debt governs)',
+			columns: [{ header: 'Energy' }, { header: 'Exceeded over' }, { header: 'Target DSCR', align: 'right' }],
+			rows: [
+				['P50', 'the long-term mean', withUnit(debt.targetDscr, '×')],
+				...downside.map((c) => [`P${plainNumber(c.exceedancePercent)}`, (c.horizonYears ?? 1) === 1 ? 'one year' : 'ten years', withUnit(c.targetDscr, '×')])
+			]
+		});
+	}
 	const f = result.financing;
 	if (f) {
-		list.push(
-			{ label: METRICS.debtAmount.label, value: `${money(f.debtAmount, document.currency)}, set by ${sizedByWords[f.sizedBy]}` },
-			{ label: 'Share of construction spend funded by debt', value: `${groupDigits(new Decimal(f.gearing).times(100), 1)} %` },
-			{ label: 'Interest during construction, amount', value: money(f.interestDuringConstruction, document.currency) },
-			{ label: 'Upfront fee paid', value: money(f.upfrontFee, document.currency) }
-		);
+		for (const fact of financingFacts(f, document.currency)) {
+			const label = fact.label in computedLabels ? computedLabels[fact.label] : fact.label;
+			if (label) list.push({ label, value: fact.value });
+		}
+		const sized = sizingCaseTable(f, document.currency);
+		if (sized.rows.length > 0) {
+			const text = (i: number) => i === 0 || i === 3 || i === 5;
+			tables.push({
+				title: 'Debt each sizing case allows, with the DSCR under its energy',
+				columns: sized.headers.map((header, i) => ({ header, align: text(i) ? 'left' : 'right', wrap: text(i) })),
+				rows: sized.rows.map((c) => (c.governs ? [`${c.cells[0]} (governs)`, ...c.cells.slice(1)] : c.cells))
+			});
+		}
 	}
-	return { title: 'Finance and debt', facts: list, tables: [] };
+	return { title: 'Finance and debt', facts: list, tables };
+}
+
+type DepreciationRule = Pick<Scenario['finance']['depreciation'], 'method' | 'lifeYears' | 'decliningBalanceFactor' | 'firstYearConvention' | 'schedule'>;
+
+const depreciationMethodWords: Record<DepreciationRule['method'], string> = {
+	'straight-line': 'Straight line',
+	'declining-balance': 'Declining balance, switching to straight line when that is larger',
+	schedule: 'A schedule of shares per year'
+};
+
+/** The first-year convention; a schedule gives every year's share itself, so it has none. */
+function firstYearText(rule: DepreciationRule): string {
+	if (rule.method === 'schedule') return 'as the schedule gives it';
+	return rule.firstYearConvention === 'half-year' ? "Half a year's charge in year 1 and in the year after the life" : "A whole year's charge in year 1";
+}
+
+function lifeText(rule: DepreciationRule, operatingYears: number): string {
+	if (rule.method === 'schedule') return `${rule.schedule?.length ?? 0} years, by the schedule`;
+	return rule.lifeYears === undefined ? `the operating life, ${operatingYears} years` : withUnit(rule.lifeYears, 'years');
+}
+
+/** One rule in a few words, for a row of the asset-class table: "Declining balance 2×", "Straight line". */
+function methodShort(rule: DepreciationRule): string {
+	if (rule.method === 'declining-balance') return `Declining balance ${withUnit(rule.decliningBalanceFactor ?? 2, '×')}`;
+	return rule.method === 'schedule' ? 'Schedule' : 'Straight line';
 }
 
 function tax(document: Scenario): AssumptionSection {
 	const dep = document.finance.depreciation;
-	const life = fieldText(document, ['finance', 'depreciation', 'lifeYears']) ?? `the operating life, ${document.timeline.operatingYears} years`;
-	return {
-		title: 'Tax',
-		facts: [
-			...facts(document, [['Tax rate', ['finance', 'taxRate']]]),
-			{ label: 'Depreciation', value: dep.method === 'straight-line' ? 'Straight line' : 'Declining balance, switching to straight line when that is larger' },
-			{ label: 'Depreciation life', value: life },
-			...(dep.method === 'declining-balance' ? facts(document, [['Declining-balance factor', ['finance', 'depreciation', 'decliningBalanceFactor']]]) : []),
-			{ label: 'Carry tax losses forward', value: yesNo(document.finance.taxLossCarryForward) }
-		],
-		tables: []
-	};
+	const years = document.timeline.operatingYears;
+	const base: FieldPath = ['finance', 'depreciation'];
+	const classes = dep.assetClasses ?? [];
+	const list: Fact[] = [...facts(document, [['Tax rate', ['finance', 'taxRate']]])];
+	const tables: FactTable[] = [];
+	if (classes.length > 0) {
+		list.push({ label: 'Depreciation', value: 'By asset class: each a share of the base (capex net of grants) written off by its own rule' });
+		tables.push({
+			title: 'Depreciation by asset class',
+			columns: [
+				{ header: 'Class', wrap: true },
+				{ header: 'Share of the base', align: 'right' },
+				{ header: 'Method' },
+				{ header: 'Life', wrap: true },
+				{ header: 'First year', wrap: true },
+				{ header: 'Schedule', unit: 'share per year', wrap: true }
+			],
+			rows: classes.map((c) => [
+				c.name,
+				c.share === undefined ? 'the rest' : withUnit(c.share, 'share'),
+				methodShort(c),
+				lifeText(c, years),
+				firstYearText(c),
+				c.method === 'schedule' ? shares(c.schedule) : ''
+			])
+		});
+	} else {
+		list.push({ label: 'Depreciation', value: depreciationMethodWords[dep.method] });
+		if (dep.method === 'declining-balance') list.push(...facts(document, [['Declining-balance factor', [...base, 'decliningBalanceFactor']]]));
+		list.push({ label: 'Depreciation life', value: lifeText(dep, years) });
+		if (dep.method === 'schedule') list.push({ label: 'Share written off each year, year 1 first', value: shares(dep.schedule) });
+		else list.push({ label: 'First year', value: firstYearText(dep) });
+	}
+	list.push({ label: 'Carry tax losses forward', value: yesNo(document.finance.taxLossCarryForward) });
+	if (document.finance.taxLossCarryForward && document.finance.taxLossCarryForwardCap !== undefined) {
+		list.push({ label: 'Losses brought forward may offset at most', value: `${withUnit(document.finance.taxLossCarryForwardCap, 'share')} of a year's taxable profit` });
+	}
+	return { title: 'Tax', facts: list, tables };
 }
 
 /** Every section of the assumptions, in the editor's order. */

@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CAUTIONS } from '../../cautions';
 import { METRIC_LIST } from '../../metrics/catalogue';
+import { coverShortfallsText } from '../../metrics/cover-shortfalls';
 import { formatMetric } from '../../metrics/format';
 import { parseScenario, type Scenario } from '../../schemas/scenario';
 import { evaluateScenario } from '../engine/evaluate';
@@ -20,9 +21,10 @@ const CASH_FLOW_HEADER = 't, 0 = COD';
 
 let folder: string;
 
-function example(name: string, operatingYears?: number): Scenario {
+function example(name: string, operatingYears?: number, change?: (raw: { timeline: Record<string, unknown>; finance: Record<string, unknown> }) => void): Scenario {
 	const raw = JSON.parse(readFileSync(`examples/${name}.json`, 'utf8'));
 	if (operatingYears !== undefined) raw.timeline.operatingYears = operatingYears;
+	change?.(raw);
 	const parsed = parseScenario(raw);
 	if (!parsed.ok) throw new Error(`examples/${name}.json should parse: ${JSON.stringify(parsed.issues)}`);
 	return parsed.scenario;
@@ -146,6 +148,55 @@ describe('renderScenarioSummaryPdf', () => {
 			expect(tablePages.length).toBeGreaterThan(1);
 			expect(tablePages.slice(1).every((page) => page.includes(`${CHAPTERS.cashFlow} (continued)`))).toBe(true);
 			for (const page of tablePages) expect(occurrences(page, CASH_FLOW_HEADER)).toBe(1);
+		});
+	});
+
+	describe('a geared loan whose cover falls short in some years', () => {
+		let input: ScenarioSummaryInput;
+		let read: ReadBack;
+		beforeAll(async () => {
+			// 90 % gearing on an annuity leaves several years with CFADS below the debt service (checked below).
+			const geared = example('tidal-stream-kestle-narrows', undefined, (raw) => {
+				raw.finance.debt = { sizing: 'gearing', gearing: 0.9, interestRate: 0.065, tenorYears: 15, graceYears: 1, repayment: 'annuity' };
+			});
+			input = inputFor(geared, { tornado: false });
+			read = await renderAndRead(input);
+		});
+
+		it('names the years beside the minimum DSCR on the metrics page', () => {
+			const text = coverShortfallsText(input.result.coverShortfalls);
+			expect(text).toMatch(/^DSCR below 1 in operating years? /);
+			const metricsPage = read.flat.find((page) => page.includes(CHAPTERS.metrics))!;
+			expect(metricsPage).toContain(`Minimum DSCR: ${text}.`);
+		});
+	});
+
+	describe('a loan also sized on downside energy, spent quarterly and funded pro rata', () => {
+		let read: ReadBack;
+		beforeAll(async () => {
+			const lender = example('tidal-stream-kestle-narrows', undefined, (raw) => {
+				raw.timeline.spendTiming = 'quarterly';
+				Object.assign(raw.finance.debt as object, {
+					commitmentFee: 0.005,
+					fundingOrder: 'pro-rata',
+					downsideCases: [{ exceedancePercent: 90, targetDscr: 1.2 }]
+				});
+			});
+			read = await renderAndRead(inputFor(lender, { tornado: false }));
+		});
+
+		it('prints the spend timing, the funding order, the energy cases and the debt each allows', () => {
+			const all = read.flat.join(' ');
+			expect(all).toContain('Quarterly, in the middle of each quarter');
+			expect(all).toContain('Debt and equity in step (pro rata)');
+			expect(all).toContain('Energy cases the debt is sized on');
+			expect(all).toContain('Debt each sizing case allows');
+			expect(all).toMatch(/Sized by the P(50|90) target DSCR/);
+		});
+
+		it('has the financing fees in the cash-flow table', () => {
+			const tablePages = read.flat.filter((page) => page.includes(CHAPTERS.cashFlow));
+			expect(tablePages[0]).toContain('Fees');
 		});
 	});
 

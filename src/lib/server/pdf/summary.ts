@@ -10,7 +10,8 @@
  * as anywhere else.
  */
 import PDFDocument from 'pdfkit';
-import { METRIC_LIST, metricUnit } from '../../metrics/catalogue';
+import { METRIC_LIST, METRICS, metricUnit } from '../../metrics/catalogue';
+import { coverShortfallsText } from '../../metrics/cover-shortfalls';
 import { formatMetric } from '../../metrics/format';
 import { technologyLabels, type Technology } from '../../technology';
 import { targetDscrOf, type Scenario } from '../../schemas/scenario';
@@ -180,6 +181,9 @@ function keyMetrics(flow: PageFlow, input: ScenarioSummaryInput): void {
 		if (metric.basis) doc.font('sans').fontSize(type.tiny).fillColor(colours.muted).text(printable(metric.basis), x + 10, y + 35, { width: cellWidth - 16, lineBreak: false });
 	});
 	flow.y = top + Math.ceil(METRIC_LIST.length / columns) * (cellHeight + gap) + 8;
+	// Beside the minimum DSCR: the loan years it leaves out or that fall short (none in a result stored before they were reported).
+	const shortfalls = coverShortfallsText(result.coverShortfalls);
+	if (shortfalls) flow.paragraph(`${METRICS.minDscr.label}: ${shortfalls}.`, { colour: colours.target, gap: 6 });
 
 	flow.subheading('Warnings from the engine', 30);
 	if (result.warnings.length === 0) flow.paragraph('None: every figure was computed.', { colour: colours.muted });
