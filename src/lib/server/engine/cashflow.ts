@@ -22,9 +22,10 @@ import { capexSchedule, decommissioningCost, opexSchedule, overhaulSchedules, to
 import { deliveredEnergy, grantSchedule, revenueByYear, tariffInflationOf } from './revenue';
 import { corporateTax } from './tax';
 import { structureDebt, type DebtStructure } from './debt';
+import type { FundingSolution } from './construction-funding';
 import { horizonExceedanceFactor } from './energy/uncertainty';
 import { costReserves, type CostReserves } from './reserves';
-import { debtServiceReserveAtCod, runWaterfall, type WaterfallResult } from './waterfall';
+import { runWaterfall, type WaterfallResult } from './waterfall';
 import { sculptedLoan } from './finance/loans';
 
 export type CasePreparation = {
@@ -70,6 +71,19 @@ export type CasePreparation = {
 function capexAtPoints(perYear: CapexSchedule, timeline: Timeline, priceIndex: readonly Decimal[]): CapexSchedule {
 	const real = overConstructionPoints(perYear.real, timeline);
 	return { ...perYear, real, nominal: real.map((r, p) => r.times(priceIndex[p])) };
+}
+
+/**
+ * The same case on another energy estimate of the same array (a downside
+ * case's P90 energy): only the energy delivered and the costs that follow it
+ * (per-MWh opex) change; timeline, indices, capex and depreciation are kept.
+ */
+export function withEnergy(prep: CasePreparation, energy: EnergyEstimate): CasePreparation {
+	const { scenario } = prep;
+	const deliveredAepMWh = deliveredEnergy(energy.netAepMWh, scenario.revenue.curtailment);
+	const energyMWh = degradationFactors(scenario.array.degradationPerYear, prep.timeline.operatingYears).map((f) => f.times(deliveredAepMWh));
+	const context = { installedKW: energy.installedCapacityKW, deviceCount: scenario.array.deviceCount, capexRealTotal: prep.capex.realTotal, energyMWh, priceIndex: prep.priceIndex.operation };
+	return { ...prep, energy, deliveredAepMWh, energyMWh, opex: opexSchedule(scenario.opex, context) };
 }
 
 export function prepareCase(scenario: Scenario, energy: EnergyEstimate): CasePreparation {
@@ -196,6 +210,22 @@ export type FinancingResult = {
 
 const MAX_TAX_ITERATIONS = 40;
 
+/** First-year debt service per unit borrowed, when it does not depend on CFADS (interest only, annuity, straight line). */
+function firstServicePerDebt(terms: Exclude<Scenario['finance']['debt'], { sizing: 'none' }>): Decimal | null {
+	const rate = dec(terms.interestRate);
+	if (terms.graceYears > 0) return rate;
+	if (terms.repayment === 'annuity') return rate.isZero() ? ONE.div(terms.tenorYears) : rate.div(ONE.minus(ONE.plus(rate).pow(-terms.tenorYears)));
+	if (terms.repayment === 'straight-line') return rate.plus(ONE.div(terms.tenorYears));
+	return null;
+}
+
+/** What a case's CFADS allows in debt service over the loan, at its target: the sum of CFADS_k / target (a cheap ranking of cases). */
+function allowed(c: { cfads: readonly Decimal[]; targetDscr: number }): Decimal {
+	let total = ZERO;
+	for (const x of c.cfads) total = total.plus(Decimal.max(x, ZERO));
+	return total.div(c.targetDscr);
+}
+
 /**
  * Starting interest for a loan sculpted to a target DSCR, with the tax shield.
  * If every loan year pays tax at rate tau, CFADS_k = A_k + tau I_k (A: CFADS
@@ -212,11 +242,12 @@ const MAX_TAX_ITERATIONS = 40;
 function shieldedSculptingGuess(
 	cfadsWithoutInterest: readonly Decimal[],
 	terms: Extract<Scenario['finance']['debt'], { sizing: 'target-dscr' }>,
-	taxRate: number
+	taxRate: number,
+	targetDscr: number = terms.targetDscr
 ): Decimal[] {
 	const rate = dec(terms.interestRate);
-	const effectiveRate = rate.times(ONE.minus(dec(taxRate).div(terms.targetDscr)));
-	const rows = sculptedLoan(cfadsWithoutInterest, terms.targetDscr, effectiveRate, terms.tenorYears, terms.graceYears).rows;
+	const effectiveRate = rate.times(ONE.minus(dec(taxRate).div(targetDscr)));
+	const rows = sculptedLoan(cfadsWithoutInterest, targetDscr, effectiveRate, terms.tenorYears, terms.graceYears).rows;
 	return rows.map((row) => row.opening.times(rate));
 }
 
@@ -252,7 +283,7 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 	if (terms.sizing === 'target-dscr') {
 		for (const downside of terms.downsideCases) {
 			const energy = scaledEnergy(prep.energy, horizonExceedanceFactor(downside.exceedancePercent, downside.horizonYears, prep.energy.uncertaintySplit));
-			const downsideOp = operate(prepareCase(prep.scenario, energy), op.pricePerMWh);
+			const downsideOp = operate(withEnergy(prep, energy), op.pricePerMWh);
 			const horizon = downside.horizonYears === 1 ? '' : ` (${downside.horizonYears}-year)`;
 			cases.push({
 				label: `P${downside.exceedancePercent}${horizon}`,
@@ -301,12 +332,22 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 	const span = terms.tenorYears;
 	const dsraSpec = finance.reserves?.debtService;
 	let interest: Decimal[] = Array.from({ length: span }, () => ZERO);
-	if (terms.sizing === 'target-dscr' && terms.repayment === 'sculpted' && finance.taxRate > 0 && terms.downsideCases.length === 0) {
-		interest = shieldedSculptingGuess(cfadsFor(cases[0], taxFor(cases[0], interest).tax), terms, finance.taxRate);
+	if (terms.sizing === 'target-dscr' && terms.repayment === 'sculpted' && finance.taxRate > 0) {
+		// Start from the case that allows the least debt without interest: it usually sets every year.
+		const start = casesWith(interest);
+		const least = start.reduce((a, b) => (b.cfads[0] !== undefined && allowed(b).lt(allowed(a)) ? b : a));
+		interest = shieldedSculptingGuess(least.cfads, terms, finance.taxRate, least.targetDscr);
 	}
-	let reserveAtCod = ZERO;
-	const structure = () =>
-		structureDebt({ terms, timeline: prep.timeline, spend: prep.fundingNeed, cases: casesWith(interest), reserveAtCod, operatingYears: n });
+	// A reserve funded at COD holds months/12 of the first year's debt service; as a share of the loan that is
+	// exact for interest-only first years and annuities, and settles with the tax circle otherwise.
+	const reserveMonths = dsraSpec?.funding === 'from-funding' ? dec(dsraSpec.months).div(12) : ZERO;
+	let reserveShare = reserveMonths.times(firstServicePerDebt(terms) ?? ZERO);
+	let fundingStart: FundingSolution | undefined;
+	const structure = (eachCase = false) => {
+		const structured = structureDebt({ terms, timeline: prep.timeline, spend: prep.fundingNeed, cases: casesWith(interest), reserveShareOfDebt: reserveShare, operatingYears: n, fundingStart, eachCase });
+		fundingStart = structured.funding.solution;
+		return structured;
+	};
 	const withFinancingCosts = (debt: DebtStructure) =>
 		depreciableCost.gt(0) ? prep.depreciation.map((d) => d.times(ONE.plus(debt.funding.financingCosts.div(depreciableCost)))) : prep.depreciation;
 	/** The waterfall on the CFADS the current interest gives: the interest it charges is what tax sees next. */
@@ -317,18 +358,21 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 			loanRows: debt.rows,
 			interestRate: terms.interestRate,
 			debtServiceReserve: dsraSpec,
-			dsraAtCod: dsraSpec ? reserveAtCod : undefined,
+			dsraAtCod: dsraSpec ? debt.funding.reserveAtCod : undefined,
 			covenants: finance.covenants
 		});
-	const dsraFromFunding = (debt: DebtStructure) => (dsraSpec?.funding === 'from-funding' ? debtServiceReserveAtCod(dsraSpec, debt.rows) : ZERO);
+	const sweeps = finance.covenants?.cashSweep !== undefined && finance.covenants.cashSweep.share > 0;
+	const shareFrom = (debt: DebtStructure) =>
+		debt.balanceAtCod.gt(0) ? reserveMonths.times(Decimal.max(debt.debtService[0], ZERO)).div(debt.balanceAtCod) : ZERO;
 	let debt = structure();
 	depreciation = withFinancingCosts(debt);
 	let converged = false;
 	let previousMove: Decimal | null = null;
 	for (let round = 0; round < MAX_TAX_ITERATIONS; round++) {
-		const nextReserve = dsraFromFunding(debt);
-		const implied = flow(debt).interest.slice(0, span);
-		let move = nextReserve.minus(reserveAtCod).abs();
+		const nextShare = shareFrom(debt);
+		// Only a cash sweep makes the interest paid differ from the loan's rows (it repays early).
+		const implied = (sweeps ? flow(debt).interest : debt.rows.map((r) => r.interest)).slice(0, span);
+		let move = nextShare.minus(reserveShare).times(debt.balanceAtCod).abs();
 		implied.forEach((v, k) => (move = Decimal.max(move, v.minus(interest[k]).abs())));
 		if (move.lt(Decimal.max(1e-6, debt.balanceAtCod.times(1e-10)))) {
 			converged = true;
@@ -340,14 +384,19 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 			const ahead = q.div(ONE.minus(q));
 			interest = implied.map((v, k) => v.plus(v.minus(interest[k]).times(ahead)));
 		} else interest = implied;
-		reserveAtCod = nextReserve;
+		reserveShare = nextShare;
 		previousMove = move;
 		debt = structure();
 		depreciation = withFinancingCosts(debt);
 	}
+	// The settled debt once more, with each case sized on its own for the report.
+	if (terms.sizing === 'target-dscr' && terms.repayment === 'sculpted' && cases.length > 1) {
+		debt = structure(true);
+		depreciation = withFinancingCosts(debt);
+	}
 	// Tax on the waterfall's own interest, then the waterfall on that CFADS: without a sweep the interest is the
 	// loan's and the ledger closes exactly; with one, the two interest vectors agree to the tolerance above.
-	interest = overLife(flow(debt).interest);
+	interest = overLife(sweeps ? flow(debt).interest : debt.rows.map((r) => r.interest));
 	const taxed = taxFor(cases[0], interest);
 	const cfads = cfadsFor(cases[0], taxed.tax);
 	const waterfall = flow(debt);

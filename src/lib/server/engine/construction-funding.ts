@@ -9,7 +9,7 @@
  *     interest_p     = B x ((1 + r)^(t_p - t_{p-1}) - 1)    on the balance B drawn so far
  *     commitment_p   = c x max(D - B, 0) x (t_p - t_{p-1})   on the undrawn facility D
  *     upfront fee    = u x D, at the first point (financial close falls at the start of construction)
- *     uses_p         = spend_p + commitment_p + upfront fee + (reserve funded at COD, at t = 0)
+ *     uses_p         = spend_p + commitment_p + upfront fee + (reserve funded at COD, at t = 0: a fixed amount and/or a share of D)
  *
  * Interest is capitalised (added to B) or paid by equity as it falls due.
  * Uses are funded equity first (equity pays every use until its share is
@@ -44,6 +44,11 @@ export type ConstructionFundingInputs = {
 	spend: readonly Decimal[];
 	/** A reserve funded at COD as a use of funds (the debt service reserve), nominal. */
 	reserveAtCod: Decimal;
+	/**
+	 * A further reserve at COD in proportion to the loan (months of a first-year
+	 * debt service that is proportional to it): reserve = share x balance at COD.
+	 */
+	reserveShareOfDebt?: Decimal;
 	rate: Decimal;
 	commitmentFee: Decimal;
 	upfrontFee: Decimal;
@@ -51,7 +56,12 @@ export type ConstructionFundingInputs = {
 	order: FundingOrder;
 	/** The balance at COD the sizing allows for a given total funding need. */
 	debtFor: (totalFundingNeed: Decimal) => Decimal;
+	/** Where to start the solve: a previous solution of nearly the same inputs (the tax circle's last round). */
+	start?: FundingSolution;
 };
+
+/** The solved unknowns: the debt's share (pro rata) or the equity's amount (equity first), and the facility. */
+export type FundingSolution = { parameter: number; facility: number };
 
 export type ConstructionFunding = {
 	/** The loan balance at COD: everything drawn plus capitalised interest. */
@@ -71,12 +81,15 @@ export type ConstructionFunding = {
 	financingCosts: Decimal;
 	/** Spend net of grants + financing costs + the reserve funded at COD. */
 	totalFundingNeed: Decimal;
+	/** The reserve funded at COD (fixed amount plus its share of the loan). */
+	reserveAtCod: Decimal;
 	/** balanceAtCod / totalFundingNeed. */
 	gearing: Decimal;
 	settled: boolean;
+	solution: FundingSolution;
 };
 
-type Simulation = Omit<ConstructionFunding, 'gearing' | 'settled'>;
+type Simulation = Omit<ConstructionFunding, 'gearing' | 'settled' | 'solution'>;
 
 /** (1 + r)^dt for each interval between points (on whole 1/24ths of a year). */
 function intervalGrowth(rate: Decimal, times: readonly number[], financialClose: number): Decimal[] {
@@ -111,7 +124,7 @@ function simulate(inputs: ConstructionFundingInputs, growth: readonly Decimal[],
 		interestPaid.push(paid);
 		let use = spend[p].plus(commitment);
 		if (p === 0) use = use.plus(upfrontFee);
-		if (p === last) use = use.plus(inputs.reserveAtCod);
+		if (p === last) use = use.plus(inputs.reserveAtCod).plus(facility.times(inputs.reserveShareOfDebt ?? ZERO));
 		uses = uses.plus(use);
 		let draw: Decimal;
 		if (order === 'pro-rata') draw = use.times(parameter);
@@ -134,7 +147,8 @@ function simulate(inputs: ConstructionFundingInputs, growth: readonly Decimal[],
 		upfrontFee,
 		interestDuringConstruction: accrued,
 		financingCosts: accrued.plus(fees),
-		totalFundingNeed: uses.plus(accrued)
+		totalFundingNeed: uses.plus(accrued),
+		reserveAtCod: inputs.reserveAtCod.plus(facility.times(inputs.reserveShareOfDebt ?? ZERO))
 	};
 }
 
@@ -159,7 +173,7 @@ function simulateFloat(inputs: FloatInputs, facility: number, parameter: number)
 		if (inputs.capitaliseInterest) balance += due;
 		let use = spend[p] + inputs.commitmentFee * Math.max(facility - balance, 0) * dt;
 		if (p === 0) use += facility * inputs.upfrontFee;
-		if (p === last) use += inputs.reserveAtCod;
+		if (p === last) use += inputs.reserveAtCod + facility * inputs.reserveShareOfDebt;
 		uses += use;
 		let draw: number;
 		if (inputs.order === 'pro-rata') draw = use * parameter;
@@ -179,6 +193,7 @@ type FloatInputs = {
 	spend: number[];
 	growth: number[];
 	reserveAtCod: number;
+	reserveShareOfDebt: number;
 	commitmentFee: number;
 	upfrontFee: number;
 	capitaliseInterest: boolean;
@@ -220,7 +235,7 @@ function newtonStep(f: FloatInputs, parameter: number, facility: number, r: read
  * total before the debt starts (0..the uses); the facility is the other.
  * Newton steps in float64 locate them; the same steps with the residuals
  * computed in decimals polish them until the balance at COD equals what the
- * sizing allows to 1e-15 of it.
+ * sizing allows to 1e-13 of it.
  */
 export function fundConstruction(inputs: ConstructionFundingInputs): ConstructionFunding {
 	const growth = intervalGrowth(inputs.rate, inputs.times, inputs.financialClose);
@@ -231,6 +246,7 @@ export function fundConstruction(inputs: ConstructionFundingInputs): Constructio
 		spend: inputs.spend.map((x) => x.toNumber()),
 		growth: growth.map((x) => x.toNumber()),
 		reserveAtCod: inputs.reserveAtCod.toNumber(),
+		reserveShareOfDebt: inputs.reserveShareOfDebt?.toNumber() ?? 0,
 		commitmentFee: inputs.commitmentFee.toNumber(),
 		upfrontFee: inputs.upfrontFee.toNumber(),
 		capitaliseInterest: inputs.capitaliseInterest,
@@ -241,8 +257,8 @@ export function fundConstruction(inputs: ConstructionFundingInputs): Constructio
 	for (const x of f.spend) plainUses += x;
 	const scale = Math.max(plainUses, 1);
 	const clamp = (x: number) => Math.min(Math.max(x, 0), proRata ? 1 : scale * 10);
-	let facility = Math.max(f.debtFor(plainUses), 0);
-	let parameter = clamp(proRata ? facility / scale : plainUses - facility);
+	let facility = inputs.start?.facility ?? Math.max(f.debtFor(plainUses), 0);
+	let parameter = inputs.start?.parameter ?? clamp(proRata ? facility / scale : plainUses - facility);
 	for (let step = 0; step < MAX_STEPS; step++) {
 		const r = floatResiduals(f, parameter, facility);
 		if (Math.abs(r[0]) + Math.abs(r[1]) <= scale * 1e-13) break;
@@ -258,7 +274,7 @@ export function fundConstruction(inputs: ConstructionFundingInputs): Constructio
 	for (let step = 0; step <= POLISH_STEPS; step++) {
 		const target = Decimal.max(inputs.debtFor(sim.totalFundingNeed), ZERO);
 		const r: [Decimal, Decimal] = [sim.balanceAtCod.minus(facilityD), facilityD.minus(target)];
-		const tolerance = Decimal.max(dec(1e-9), target.times(1e-15));
+		const tolerance = Decimal.max(dec(1e-9), target.times(1e-13));
 		if (r[0].abs().lte(tolerance) && r[1].abs().lte(tolerance)) {
 			settled = true;
 			break;
@@ -272,6 +288,7 @@ export function fundConstruction(inputs: ConstructionFundingInputs): Constructio
 	return {
 		...sim,
 		gearing: sim.totalFundingNeed.isZero() ? ZERO : sim.balanceAtCod.div(sim.totalFundingNeed),
-		settled
+		settled,
+		solution: { parameter: parameterD.toNumber(), facility: facilityD.toNumber() }
 	};
 }

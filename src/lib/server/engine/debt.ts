@@ -6,7 +6,7 @@
 import { dec, Decimal, ONE, ZERO } from './decimal';
 import { annuityLoan, sculptedLoan, straightLineLoan, type LoanRow } from './finance/loans';
 import { npv } from './finance/discounting';
-import { fundConstruction, type ConstructionFunding } from './construction-funding';
+import { fundConstruction, type ConstructionFunding, type FundingSolution } from './construction-funding';
 import type { Timeline } from './timeline';
 import type { DebtSpec } from '../../schemas/scenario';
 
@@ -61,9 +61,17 @@ export type DebtInputs = {
 	spend: readonly Decimal[];
 	/** Energy cases, P50 first; gearing sizing reads only the first (for sculpting). */
 	cases: readonly SizingCase[];
-	/** Reserve funded at COD from the funding (debt service reserve), nominal. */
-	reserveAtCod?: Decimal;
+	/** A debt service reserve funded at COD from the funding, as a share of the loan (months/12 x first service per unit of debt). */
+	reserveShareOfDebt?: Decimal;
 	operatingYears: number;
+	/** A previous round's funding solution to start from. */
+	fundingStart?: FundingSolution;
+	/**
+	 * Whether to size each case on its own for the report (a loan sculpted on
+	 * several cases is sized on their combination; each alone is only shown).
+	 * Default true; the tax circle's inner rounds skip it.
+	 */
+	eachCase?: boolean;
 };
 
 function scheduleFor(repayment: 'annuity' | 'straight-line', principal: Decimal, terms: DebtTerms): LoanRow[] {
@@ -195,7 +203,7 @@ function repaymentRows(terms: DebtTerms, balance: Decimal, cfads: readonly Decim
  * Source: common practice in project finance (lenders size on P50 and on P90
  * or P99 energy, each with its own cover, and take the lesser).
  */
-export function structureDebt({ terms, timeline, spend, cases, reserveAtCod = ZERO, operatingYears }: DebtInputs): DebtStructure {
+export function structureDebt({ terms, timeline, spend, cases, reserveShareOfDebt = ZERO, operatingYears, fundingStart, eachCase = true }: DebtInputs): DebtStructure {
 	const warnings: string[] = [];
 	let capacities: (CaseCapacity & { sculptedRows?: LoanRow[] })[] = [];
 	let governing: (CaseCapacity & { sculptedRows?: LoanRow[] }) | null = null;
@@ -203,13 +211,14 @@ export function structureDebt({ terms, timeline, spend, cases, reserveAtCod = ZE
 	let profile: readonly Decimal[] = cases[0]?.cfads ?? [];
 	let bindingCases: string[] = [];
 	if (terms.sizing === 'target-dscr') {
-		capacities = cases.map((c) => caseCapacity(terms, c, warnings));
+		const combine = terms.repayment === 'sculpted' && cases.length > 1;
+		if (eachCase || !combine) capacities = cases.map((c) => caseCapacity(terms, c, warnings));
 		for (const c of capacities) if (governing === null || c.balance.lt(governing.balance)) governing = c;
-		if (terms.repayment === 'sculpted' && cases.length > 1) {
+		if (combine) {
 			// Sculpted on several cases: each year's service is the least any case's cover allows that year.
 			const combined = combinedCase(cases, terms.tenorYears);
 			bindingCases = combined.binding;
-			governing = { ...caseCapacity(terms, combined.sizingCase, []), label: mostFrequent(combined.binding.slice(terms.graceYears)) ?? cases[0].label };
+			governing = { ...caseCapacity(terms, combined.sizingCase, eachCase ? [] : warnings), label: mostFrequent(combined.binding.slice(terms.graceYears)) ?? cases[0].label };
 			profile = combined.sizingCase.cfads;
 		} else if (governing) {
 			profile = cases.find((c) => c.label === governing!.label)!.cfads;
@@ -222,13 +231,15 @@ export function structureDebt({ terms, timeline, spend, cases, reserveAtCod = ZE
 		times: timeline.constructionTimes,
 		financialClose: timeline.financialClose,
 		spend,
-		reserveAtCod,
+		reserveAtCod: ZERO,
+		reserveShareOfDebt,
 		rate: dec(terms.interestRate),
 		commitmentFee: dec(terms.commitmentFee),
 		upfrontFee: dec(terms.upfrontFee),
 		capitaliseInterest: terms.capitalizeInterestDuringConstruction,
 		order: terms.fundingOrder,
-		debtFor
+		debtFor,
+		start: fundingStart
 	});
 	if (!funding.settled) warnings.push('The construction funding did not settle; the debt amount may be slightly off.');
 	const balanceAtCod = funding.balanceAtCod;

@@ -14,7 +14,8 @@ import { ENGINE_VERSION } from './version';
 
 /** The fingerprint of each engine version's numbers on examples/*.json. */
 const FINGERPRINTS: Record<string, string> = {
-	'1': '2d67c76d1b3e4a33927f98d50f72f9a8a6f9a50d893b3ed165f46ad376df688b'
+	'1': '2d67c76d1b3e4a33927f98d50f72f9a8a6f9a50d893b3ed165f46ad376df688b',
+	'2': '9618f844ab4efbbb4293712f58776817930899ee0eef417ec5c33684d857a63e'
 };
 
 function examplesFingerprint(): string {
