@@ -1,3 +1,4 @@
+import { SCHEMA_VERSION } from '../../src/lib/schemas/scenario-upgrades';
 import { expect, test } from '@playwright/test';
 import { baseURL } from '../../playwright.config';
 import { tidalInput, waveInput } from '../fixtures/scenario-documents';
@@ -180,10 +181,10 @@ test.describe('scenarios API', () => {
 	test('takes a version 1 document, saving it in the current version with the same meaning', async () => {
 		const version1 = { ...tidalInput, schemaVersion: 1, decommissioning: { basis: 'percent-of-capex', amount: 0.05 } };
 		const created = await newScenario(clients.analyst, project.id, { name: 'From version 1', document: version1 });
-		expect(created.document.schemaVersion).toBe(2);
+		expect(created.document.schemaVersion).toBe(SCHEMA_VERSION);
 		expect(created.document.decommissioning).toEqual({ basis: 'percent-of-capex', fraction: 0.05 });
 		const newer = await expectError(
-			await clients.analyst.post(`/api/v1/projects/${project.id}/scenarios`, { data: { name: 'From the future', document: { ...tidalInput, schemaVersion: 3 } } }),
+			await clients.analyst.post(`/api/v1/projects/${project.id}/scenarios`, { data: { name: 'From the future', document: { ...tidalInput, schemaVersion: SCHEMA_VERSION + 1 } } }),
 			422
 		);
 		expect(issuePaths(newer)).toEqual(['document.schemaVersion']);

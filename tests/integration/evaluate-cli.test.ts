@@ -2,6 +2,7 @@
  * The evaluate command (`npm run evaluate -- file.json`) run as a user runs it:
  * a separate process on a file, judged by its exit code and its output.
  */
+import { SCHEMA_VERSION } from '../../src/lib/schemas/scenario-upgrades';
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -29,7 +30,7 @@ describe('scripts/evaluate.ts', () => {
 		expect(run.stderr).toContain('array.availabilty: "availabilty" is not a field here; did you mean "availability"?');
 	});
 
-	it('reads a version 1 file through the upgrade, says what moved, and gives the figures of its version 2 form', () => {
+	it('reads a version 1 file through the upgrade, says what moved, and gives the figures of its current form', () => {
 		const version1 = {
 			...example,
 			schemaVersion: 1,
@@ -41,17 +42,19 @@ describe('scripts/evaluate.ts', () => {
 		};
 		const old = evaluateFile('version-1.json', version1);
 		expect(old.status).toBe(0);
-		expect(old.stderr).toContain('is in schema version 1; read as version 2');
+		expect(old.stderr).toContain(`is in schema version 1; read as version ${SCHEMA_VERSION}`);
 		expect(old.stderr).toContain('decommissioning.amount moved to decommissioning.fraction (percent-of-capex)');
-		const current = evaluateFile('version-2.json', example);
+		// Version 2 indexed a partly indexed tariff by scaled inflation; the upgrade says so, and the current form must too.
+		const partlyIndexed = example.revenue.tariffIndexation > 0 && example.revenue.tariffIndexation < 1;
+		const current = evaluateFile('current.json', partlyIndexed ? { ...example, revenue: { ...example.revenue, indexationMethod: 'scaled-inflation' } } : example);
 		expect(current.status).toBe(0);
 		expect(current.stderr).toBe('');
 		expect(JSON.parse(old.stdout).metrics).toEqual(JSON.parse(current.stdout).metrics);
 	});
 
 	it('refuses a document written by a newer version', () => {
-		const run = evaluateFile('newer.json', { ...example, schemaVersion: 3 });
+		const run = evaluateFile('newer.json', { ...example, schemaVersion: SCHEMA_VERSION + 1 });
 		expect(run.status).toBe(1);
-		expect(run.stderr).toContain('schemaVersion: schemaVersion 3 is newer than this Tidewright reads');
+		expect(run.stderr).toContain(`schemaVersion: schemaVersion ${SCHEMA_VERSION + 1} is newer than this Tidewright reads`);
 	});
 });

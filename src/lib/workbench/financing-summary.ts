@@ -12,6 +12,7 @@
 import DecimalJs from 'decimal.js';
 import { operatingYearsList } from '../metrics/cover-shortfalls';
 import { groupDigits, NO_VALUE } from '../metrics/format';
+import { METRICS } from '../metrics/catalogue';
 import type { EngineResult } from '../server/engine/evaluate';
 import type { Scenario } from '../schemas/scenario';
 
@@ -103,7 +104,7 @@ export function financingFacts(financing: StoredFinancing, currency: string): Fi
 	const onNeed = financing.totalFundingNeed !== undefined;
 	const lines: [string, string | null][] = [
 		['Sized by', sizedByWords(financing)],
-		['Debt at COD', money(financing.debtAmount)],
+		[METRICS.debtAmount.label, money(financing.debtAmount)],
 		[onNeed ? 'Gearing, on the total funding need' : 'Gearing, on construction spend', percentText(financing.gearing)],
 		['Total funding need', money(financing.totalFundingNeed)],
 		['Equity invested during construction', money(financing.equityInvested)],
@@ -138,7 +139,7 @@ export function sizingCaseTable(financing: StoredFinancing, currency: string): S
 			'Target DSCR',
 			`Debt it allows on its own (${currency})`,
 			'What binds it on its own',
-			'Minimum DSCR under its energy',
+			`${METRICS.minDscr.label} under its energy`,
 			...(shared ? ['Sets the debt service in'] : [])
 		],
 		rows: cases.map((c) => {

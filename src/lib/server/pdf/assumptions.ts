@@ -135,8 +135,8 @@ function siteAndResource(document: Scenario): AssumptionSection {
 			if (r.assessedBy) list.push({ label: 'Assessed by', value: r.assessedBy });
 			list.push(
 				...facts(document, [
-					['Net annual energy, P50', ['resource', 'p50MWh']],
-					['Net annual energy, P90 (one year)', ['resource', 'p90MWh']],
+					['Assessed net energy, P50', ['resource', 'p50MWh']],
+					['Assessed net energy, P90 (one year)', ['resource', 'p90MWh']],
 					['Total uncertainty (sigma)', ['resource', 'sigma']],
 					['Year-to-year variability (sigma)', ['resource', 'interAnnualSigma']],
 					['Long-term uncertainty (sigma)', ['resource', 'longTermSigma']]

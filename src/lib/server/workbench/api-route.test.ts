@@ -1,3 +1,4 @@
+import { SCHEMA_VERSION } from '../../schemas/scenario-upgrades';
 import { describe, expect, it } from 'vitest';
 import { ApiProblem, fieldIssues, validateBody, validateDocument } from './api-route';
 import { createScenarioBody, updateScenarioBody } from '../../schemas/workbench';
@@ -50,13 +51,13 @@ describe('validateDocument', () => {
 	it('says when the document was read after an upgrade from an older version', () => {
 		const version1 = { ...tidalInput, schemaVersion: 1, decommissioning: { basis: 'percent-of-capex', amount: 1.5 } };
 		const problem = problemOf(() => validateDocument(version1, { technology: 'tidal-stream' }));
-		expect(problem.message).toBe('The scenario document has problems in the fields listed (read as schema version 2, upgraded from version 1).');
+		expect(problem.message).toBe(`The scenario document has problems in the fields listed (read as schema version ${SCHEMA_VERSION}, upgraded from version 1).`);
 		expect(problem.issues.map((i) => i.path)).toEqual(['document.decommissioning.fraction']);
 	});
 
 	it('refuses a document newer than this code reads', () => {
-		const problem = problemOf(() => validateDocument({ ...tidalInput, schemaVersion: 3 }, { technology: 'tidal-stream' }));
-		expect(problem.issues).toEqual([{ path: 'document.schemaVersion', message: expect.stringMatching(/^schemaVersion 3 is newer/) }]);
+		const problem = problemOf(() => validateDocument({ ...tidalInput, schemaVersion: SCHEMA_VERSION + 1 }, { technology: 'tidal-stream' }));
+		expect(problem.issues).toEqual([{ path: 'document.schemaVersion', message: expect.stringMatching(new RegExp(`^schemaVersion ${SCHEMA_VERSION + 1} is newer`)) }]);
 	});
 
 	it('checks the document against the project’s technology', () => {

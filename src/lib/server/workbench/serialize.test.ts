@@ -1,3 +1,4 @@
+import { SCHEMA_VERSION } from '../../schemas/scenario-upgrades';
 import { describe, expect, it } from 'vitest';
 import { scenarioJson } from './serialize';
 import type { ScenarioRecord } from '../db/scenarios';
@@ -24,7 +25,7 @@ describe('scenarioJson', () => {
 		const stored = { ...tidalDocument, schemaVersion: 1, decommissioning: { basis: 'percent-of-capex', amount: 0.05 } };
 		const json = scenarioJson(record(stored, 1));
 		expect(json.schemaVersion).toBe(1);
-		expect(json.document.schemaVersion).toBe(2);
+		expect(json.document.schemaVersion).toBe(SCHEMA_VERSION);
 		expect(json.document.decommissioning).toEqual({ basis: 'percent-of-capex', fraction: 0.05 });
 		expect(json.upgradedFrom).toBe(1);
 		expect(json.upgradeNotes).toEqual(['decommissioning.amount moved to decommissioning.fraction (percent-of-capex)']);
@@ -32,7 +33,7 @@ describe('scenarioJson', () => {
 	});
 
 	it('answers a current document as it was saved', () => {
-		const json = scenarioJson(record(tidalDocument, 2));
+		const json = scenarioJson(record(tidalDocument, SCHEMA_VERSION));
 		expect(json.document).toBe(tidalDocument);
 		expect(json.upgradedFrom).toBeNull();
 		expect(json.upgradeNotes).toEqual([]);
