@@ -29,6 +29,8 @@ const bindingYears = (c: StoredSizingCase) => c.bindsInYears ?? [];
 export interface FinancingFact {
 	label: string;
 	value: string;
+	/** Words rather than a figure (read left, in the text face). */
+	words: boolean;
 }
 
 export const spendTimingLabels: Record<Scenario['timeline']['spendTiming'], string> = {
@@ -114,7 +116,8 @@ export function financingFacts(financing: StoredFinancing, currency: string): Fi
 		['Upfront fee', money(financing.upfrontFee)],
 		['Funding order', financing.fundingOrder === undefined ? null : fundingOrderLabels[financing.fundingOrder]]
 	];
-	return lines.flatMap(([label, value]) => (value === null ? [] : [{ label, value }]));
+	const inWords = new Set(['Sized by', 'Funding order']);
+	return lines.flatMap(([label, value]) => (value === null ? [] : [{ label, value, words: inWords.has(label) }]));
 }
 
 export interface SizingCaseTable {
