@@ -27,6 +27,7 @@ import { horizonExceedanceFactor } from './energy/uncertainty';
 import { costReserves, type CostReserves } from './reserves';
 import { runWaterfall, type WaterfallResult } from './waterfall';
 import { sculptedLoan } from './finance/loans';
+import { AndersonMixer } from './finance/anderson';
 
 export type CasePreparation = {
 	scenario: Scenario;
@@ -265,9 +266,9 @@ function shieldedSculptingGuess(
  * the cost, so scaling is exact).
  *
  * Interest lowers tax, which raises CFADS, which (for DSCR sizing or sculpting)
- * changes the debt: the circle is closed by fixed-point iteration, with an
- * Aitken-style jump once the steps shrink geometrically, until the interest
- * moves by less than 1e-10 of the debt amount (it contracts by roughly
+ * changes the debt: the circle is closed by fixed-point iteration with
+ * Anderson acceleration (finance/anderson), until the interest
+ * moves by less than 1e-9 of the debt amount (it contracts by roughly
  * tax rate x interest rate per round). Only the loan's years take part: tax
  * losses carry forward, never back, so later years cannot change the debt.
  * Downside sizing cases (P90, P99 energy) run the same tax with the same
@@ -348,8 +349,8 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 		fundingStart = structured.funding.solution;
 		return structured;
 	};
-	const withFinancingCosts = (debt: DebtStructure) =>
-		depreciableCost.gt(0) ? prep.depreciation.map((d) => d.times(ONE.plus(debt.funding.financingCosts.div(depreciableCost)))) : prep.depreciation;
+	const withFinancingCosts = (costs: Decimal) =>
+		depreciableCost.gt(0) ? prep.depreciation.map((d) => d.times(ONE.plus(costs.div(depreciableCost)))) : prep.depreciation;
 	/** The waterfall on the CFADS the current interest gives: the interest it charges is what tax sees next. */
 	const overLife = (values: readonly Decimal[]) => Array.from({ length: n }, (_, k) => values[k] ?? ZERO);
 	const flow = (debt: DebtStructure) =>
@@ -365,34 +366,39 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 	const shareFrom = (debt: DebtStructure) =>
 		debt.balanceAtCod.gt(0) ? reserveMonths.times(Decimal.max(debt.debtService[0], ZERO)).div(debt.balanceAtCod) : ZERO;
 	let debt = structure();
-	depreciation = withFinancingCosts(debt);
+	let financingCosts = debt.funding.financingCosts;
+	depreciation = withFinancingCosts(financingCosts);
 	let converged = false;
-	let previousMove: Decimal | null = null;
+	const mixer = new AndersonMixer(2);
+	// The iterate: the interest of the loan's years, the reserve's share of the loan (in money, x the first debt
+	// amount) and the financing costs in the depreciation; each round maps it through tax, sizing and funding.
+	const shareScale = Decimal.max(debt.balanceAtCod, ONE);
 	for (let round = 0; round < MAX_TAX_ITERATIONS; round++) {
 		const nextShare = shareFrom(debt);
+		const nextCosts = debt.funding.financingCosts;
 		// Only a cash sweep makes the interest paid differ from the loan's rows (it repays early).
 		const implied = (sweeps ? flow(debt).interest : debt.rows.map((r) => r.interest)).slice(0, span);
-		let move = nextShare.minus(reserveShare).times(debt.balanceAtCod).abs();
+		let move = Decimal.max(nextShare.minus(reserveShare).times(debt.balanceAtCod).abs(), nextCosts.minus(financingCosts).abs());
 		implied.forEach((v, k) => (move = Decimal.max(move, v.minus(interest[k]).abs())));
-		if (move.lt(Decimal.max(1e-6, debt.balanceAtCod.times(1e-10)))) {
+		if (move.lt(Decimal.max(1e-6, debt.balanceAtCod.times(1e-9)))) {
 			converged = true;
 			break;
 		}
-		if (previousMove && previousMove.gt(0) && move.div(previousMove).lt(0.5)) {
-			// Geometric convergence at ratio q: jump ahead by q / (1 - q) of the last step (Aitken-style).
-			const q = move.div(previousMove);
-			const ahead = q.div(ONE.minus(q));
-			interest = implied.map((v, k) => v.plus(v.minus(interest[k]).times(ahead)));
-		} else interest = implied;
-		reserveShare = nextShare;
-		previousMove = move;
+		const mixed = mixer.next(
+			[...interest, reserveShare.times(shareScale), financingCosts],
+			[...implied, nextShare.times(shareScale), nextCosts]
+		);
+		interest = mixed.slice(0, span);
+		reserveShare = Decimal.max(mixed[span].div(shareScale), ZERO);
+		financingCosts = Decimal.max(mixed[span + 1], ZERO);
+		depreciation = withFinancingCosts(financingCosts);
 		debt = structure();
-		depreciation = withFinancingCosts(debt);
 	}
+	depreciation = withFinancingCosts(debt.funding.financingCosts);
 	// The settled debt once more, with each case sized on its own for the report.
 	if (terms.sizing === 'target-dscr' && terms.repayment === 'sculpted' && cases.length > 1) {
 		debt = structure(true);
-		depreciation = withFinancingCosts(debt);
+		depreciation = withFinancingCosts(debt.funding.financingCosts);
 	}
 	// Tax on the waterfall's own interest, then the waterfall on that CFADS: without a sweep the interest is the
 	// loan's and the ledger closes exactly; with one, the two interest vectors agree to the tolerance above.

@@ -272,9 +272,10 @@ export type EngineResult = {
 
 /** Decimal as a plain string in normal notation, rounded to 10 decimal places, without trailing zeros. */
 export function decimalString(d: Decimal): DecimalString {
-	const fixed = d.toFixed(10);
-	const trimmed = fixed.includes('.') ? fixed.replace(/\.?0+$/, '') : fixed;
-	return trimmed === '-0' ? '0' : trimmed;
+	if (d.isZero()) return '0';
+	// Rounded to 10 places, then written out in full: toFixed() with no argument never uses exponent notation.
+	const rounded = d.toDecimalPlaces(10);
+	return rounded.isZero() ? '0' : rounded.toFixed();
 }
 const maybe = (d: Decimal | null | undefined) => (d === null || d === undefined ? null : decimalString(d));
 
