@@ -82,6 +82,10 @@ async function main() {
 	// adapter-node refuses bodies over 512 KB by default; uploads may be up to 20 MB (src/lib/server/uploads).
 	const env = { BODY_SIZE_LIMIT: '60M', ...process.env, ...serviceEnv, HOST: host, PORT: port, ORIGIN: origin };
 
+	// Scenarios saved under an earlier engine get a result of this one (the others stay, for rooms frozen on them).
+	const reevaluate = spawnSync('npx', ['tsx', '--tsconfig', 'scripts/tsconfig.json', 'scripts/reevaluate.ts', '--keep-old'], { cwd: projectRoot, env, stdio: 'inherit' });
+	if (reevaluate.status !== 0) throw new Error('stored results could not be brought up to this engine');
+
 	if (serviceEnv.STRIPE_STANDIN_URL) {
 		// The stand-in starts empty: give the demo's paid workspaces their subscriptions again.
 		// Not spawnSync: the stand-in answers from this very process.
