@@ -368,12 +368,15 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 	let debt = structure();
 	let financingCosts = debt.funding.financingCosts;
 	depreciation = withFinancingCosts(financingCosts);
-	let converged = false;
+	// Gearing-sized annuity or straight-line debt without a sweep does not depend on CFADS (and a reserve funded
+	// at COD is then an exact share of it): the first pass is the answer.
+	const independentOfCfads = terms.sizing === 'gearing' && terms.repayment !== 'sculpted' && !sweeps;
+	let converged = independentOfCfads;
 	const mixer = new AndersonMixer(2);
 	// The iterate: the interest of the loan's years, the reserve's share of the loan (in money, x the first debt
 	// amount) and the financing costs in the depreciation; each round maps it through tax, sizing and funding.
 	const shareScale = Decimal.max(debt.balanceAtCod, ONE);
-	for (let round = 0; round < MAX_TAX_ITERATIONS; round++) {
+	for (let round = 0; !independentOfCfads && round < MAX_TAX_ITERATIONS; round++) {
 		const nextShare = shareFrom(debt);
 		const nextCosts = debt.funding.financingCosts;
 		// Only a cash sweep makes the interest paid differ from the loan's rows (it repays early).
