@@ -178,6 +178,9 @@ export function runWaterfall(inputs: WaterfallInputs): WaterfallResult {
 	let reserve = reserveSpec ? (inputs.dsraAtCod ?? (reserveSpec.funding === 'from-funding' ? debtServiceReserveAtCod(reserveSpec, loanRows) : ZERO)) : ZERO;
 	let held = ZERO;
 
+	// Without a reserve or covenants the waterfall is the loan schedule and CFADS less debt service: the same
+	// numbers as the full pass below, with most of its decimal work left out (it runs in every evaluation).
+	const plain = !reserveSpec && !covenants;
 	for (let k = 0; k < n; k++) {
 		const cf = cfads[k];
 		const opening = balance;
@@ -185,6 +188,21 @@ export function runWaterfall(inputs: WaterfallInputs): WaterfallResult {
 		const principal = scheduledPrincipal(k, opening, interest);
 		const debtService = interest.plus(principal);
 		const afterScheduled = opening.minus(principal);
+		if (plain) {
+			const cash = cf.minus(debtService);
+			const unpaid = cash.isNegative() ? Decimal.min(Decimal.max(debtService, ZERO), cash.neg()) : ZERO;
+			balance = afterScheduled;
+			out.openingBalance[k] = opening;
+			out.interest[k] = interest;
+			out.principal[k] = principal;
+			out.closingBalance[k] = afterScheduled;
+			out.debtService[k] = debtService;
+			out.dscr[k] = debtService.gt(0) ? cf.div(debtService) : null;
+			out.unpaidDebtService[k] = unpaid;
+			out.distribution[k] = cash;
+			if (unpaid.gt(0)) out.unpaidYears.push(k + 1);
+			continue;
+		}
 
 		// Cover the debt service: DSRA first, then cash held in lock-up.
 		const dsraOpening = reserve;
