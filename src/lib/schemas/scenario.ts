@@ -7,9 +7,10 @@
  * - Fractions are 0..1 (0.05 means 5 %).
  * - Money inputs are in real terms, in prices of the commercial operation year
  *   (t = 0), in `currency` units. Power in kW, energy in MWh, speeds in m/s.
- * - Time: t = 0 is the commercial operation date (COD). Capex of the last
- *   construction year sits at t = 0, earlier years at t = -1, -2, ...;
- *   operating year k sits at t = k (end of year).
+ * - Time: t = 0 is the commercial operation date (COD). The last construction
+ *   year ends at t = 0, earlier ones at t = -1, -2, ...; their spend falls
+ *   within each year as timeline.spendTiming says; operating year k sits at
+ *   t = k (end of year).
  * - Every object is strict: an unknown key is refused, never dropped, so a
  *   misspelt field cannot fall back to its default unnoticed.
  * - Every list has an upper bound (./scenario-limits.ts).

@@ -2,9 +2,10 @@
  * One evaluation of a scenario: energy, costs, cash flows, financing and the
  * metrics, returned as plain data with decimals as strings.
  *
- * Time convention: t = 0 is the commercial operation date (COD). Capex of the
- * last construction year sits at t = 0, earlier years at t = -1, -2, ...;
- * operating year k sits at t = k (end of year). NPVs are valued at COD.
+ * Time convention (./timeline): t = 0 is the commercial operation date (COD);
+ * construction spend and draws fall at points within each construction year
+ * (mid-year by default); operating year k sits at t = k (end of year). NPVs
+ * are valued at COD; the annual table adds each construction year's points up.
  */
 import { Decimal, ZERO } from './decimal';
 import { byConstructionYear } from './timeline';
