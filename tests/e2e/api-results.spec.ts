@@ -149,7 +149,7 @@ test.describe('exports', () => {
 		const text = (await response.text()).replace(/^\uFEFF/, '');
 		const [table, cautions] = text.split('\r\n\r\n');
 		const rows = Papa.parse<string[]>(table, { skipEmptyLines: true }).data;
-		expect(rows[0]).toEqual(expect.arrayContaining(['Year t (0 = COD)', 'Net energy (MWh)', 'Revenue (EUR, nominal)', 'DSCR (ratio)']));
+		expect(rows[0]).toEqual(expect.arrayContaining(['Year t (0 = COD)', 'Energy delivered (MWh)', 'Revenue (EUR, nominal)', 'DSCR (ratio)']));
 		expect(rows).toHaveLength(1 + 22);
 		expect(rows[1][0]).toBe('-1');
 		expect(cautions).toContain(CAUTIONS[1]);

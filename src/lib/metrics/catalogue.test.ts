@@ -91,7 +91,7 @@ describe('engineValueUnit', () => {
 	it('names per cent figures as the fractions the engine sends', () => {
 		expect(engineValueUnit('equityIrr', 'EUR')).toBe('fraction/yr (nominal)');
 		expect(engineValueUnit('capacityFactor', 'EUR')).toBe('fraction (net, first operating year)');
-		expect(engineValueUnit('breakevenTariff', 'NOK')).toBe('NOK/MWh (flat, real)');
+		expect(engineValueUnit('breakevenTariff', 'NOK')).toBe('NOK/MWh (flat in COD-year money, indexed like the tariff)');
 	});
 });
 

@@ -93,7 +93,7 @@ const ENTRIES: Record<MetricKey, Entry> = {
 	llcr: cover('LLCR', 'llcr'),
 	yearsInLockUp: { label: 'Years in lock-up', unit: 'years', basis: 'operating years whose DSCR fails the lock-up test', places: 0, scale: 'plain', betterWhen: 'lower', method: 'covenants' },
 	debtAmount: { label: 'Debt at COD', unit: '{currency}', basis: 'balance at COD', places: 0, scale: 'plain', betterWhen: 'neither', method: 'debt-sizing' },
-	breakevenTariff: pricePerMWh('Breakeven tariff', 'flat, real', 'breakeven-tariff')
+	breakevenTariff: pricePerMWh('Breakeven tariff', 'flat in COD-year money, indexed like the tariff', 'breakeven-tariff')
 };
 
 export const METRICS: Readonly<Record<MetricKey, MetricDefinition>> = Object.fromEntries(

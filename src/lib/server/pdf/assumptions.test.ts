@@ -224,3 +224,24 @@ describe('assumptionSections', () => {
 		expect(finance.facts.some((f) => f.label === 'Interest rate')).toBe(false);
 	});
 });
+
+describe('the exceedance table', () => {
+	const table = (document: Scenario) =>
+		assumptionSections(document, evaluateScenario(document))
+			.flatMap((s) => s.tables ?? [])
+			.find((t) => t.title.startsWith('Net annual energy at each exceedance level'))!;
+
+	it('shows the mean over ten years beside the one-year levels, from the result', () => {
+		// With a year-to-year component the ten-year P90 is closer to P50 than the one-year P90
+		// (sigma_10 = sqrt(sigma_LT^2 + sigma_IAV^2 / 10); exceedance.md).
+		const withVariability = {
+			...tidal,
+			uncertainty: { ...tidal.uncertainty, components: [...tidal.uncertainty.components, { name: 'Year to year', sigma: 0.06, kind: 'inter-annual' as const }] }
+		};
+		const t = table(withVariability);
+		expect(t.columns.map((c) => c.header)).toEqual(['Level', 'Net energy, one year', 'Share of P50', 'Mean over ten years']);
+		const p90 = t.rows.find((r) => r[0] === 'P90')!;
+		const figure = (text: string) => Number(text.replace(/,/g, ''));
+		expect(figure(p90[3])).toBeGreaterThan(figure(p90[1]));
+	});
+});

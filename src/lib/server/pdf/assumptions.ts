@@ -251,12 +251,23 @@ function arrayAndLosses(document: Scenario, result: EngineResult): AssumptionSec
 			rows: components.map((c) => [c.name, plainNumber(new Decimal(c.sigma).times(100))])
 		});
 	}
+	// Results stored before the horizons existed have the one-year levels only.
+	const tenYear = e.exceedancesByHorizon?.find((h) => h.horizonYears === 10);
+	const tenYearOf = (label: string) => tenYear?.levels.find((l) => l.label === label);
 	tables.push({
 		title: 'Net annual energy at each exceedance level (first operating year)',
-		columns: [{ header: 'Level' }, { header: 'Net energy', unit: 'MWh/yr', align: 'right' }, { header: 'Share of P50', unit: '%', align: 'right' }],
+		columns: [
+			{ header: 'Level' },
+			{ header: 'Net energy, one year', unit: 'MWh/yr', align: 'right' },
+			{ header: 'Share of P50', unit: '%', align: 'right' },
+			...(tenYear ? [{ header: 'Mean over ten years', unit: 'MWh/yr', align: 'right' as const }] : [])
+		],
 		rows: [
-			['P50', groupDigits(e.netAepMWh, 0), '100.0'],
-			...e.exceedances.map((x) => [x.label, groupDigits(x.aepMWh, 0), groupDigits(new Decimal(x.shareOfP50).times(100), 1)])
+			['P50', groupDigits(e.netAepMWh, 0), '100.0', ...(tenYear ? [groupDigits(e.netAepMWh, 0)] : [])],
+			...e.exceedances.map((x) => {
+				const ten = tenYearOf(x.label);
+				return [x.label, groupDigits(x.aepMWh, 0), groupDigits(new Decimal(x.shareOfP50).times(100), 1), ...(tenYear ? [ten ? groupDigits(ten.aepMWh, 0) : '-'] : [])];
+			})
 		]
 	});
 	return { title: 'Array, losses and uncertainty', facts: list, tables };

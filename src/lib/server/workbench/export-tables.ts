@@ -31,7 +31,7 @@ export function cashFlowColumns(currency: string): ExportColumn[] {
 	return [
 		{ key: 't', header: 'Year t (0 = COD)', numeric: true },
 		{ key: 'phase', header: 'Phase', numeric: false },
-		{ key: 'energyMWh', header: 'Net energy (MWh)', numeric: true },
+		{ key: 'energyMWh', header: 'Energy delivered (MWh)', numeric: true },
 		{ key: 'pricePerMWh', header: `Price (${currency}/MWh, nominal)`, numeric: true },
 		money('revenue', 'Revenue'),
 		money('opex', 'Opex'),
