@@ -28,6 +28,7 @@ import { renderScenarioSummaryPdf, type ScenarioSummaryInput } from '../src/lib/
 import { summaryNoteSlugs } from '../src/lib/server/pdf/note-choice';
 import { METHOD_NOTES } from '../src/lib/methods';
 import { CAUTIONS } from '../src/lib/cautions';
+import { ENGINE_VERSION } from '../src/lib/server/engine/version';
 
 type Timing = { medianMs: number; minMs: number; cpuMs: number };
 
@@ -112,7 +113,7 @@ function thirtyYearSummary(): ScenarioSummaryInput {
 		scenario: { name: document.name, revision: 1, notes: '' },
 		document,
 		result: evaluateScenario(document),
-		engineVersion: '1',
+		engineVersion: ENGINE_VERSION,
 		tornado: tornado(document, defaultDrivers(document), 'lcoeReal'),
 		// The app bundles the notes with Vite; a script reads them from docs/methods.
 		methodNotes: summaryNoteSlugs(document.technology, true).map((slug) => ({ slug, title: titles.get(slug) ?? slug, markdown: readFileSync(join(process.cwd(), 'docs/methods', `${slug}.md`), 'utf8') })),

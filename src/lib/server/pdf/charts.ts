@@ -297,15 +297,22 @@ function dscrAxisTop(values: readonly number[], reference: number): number {
 	return Math.max(reference * 1.25, Math.min(sorted[sorted.length - 1], upperQuartile * 1.6));
 }
 
-export function drawDscrChart(doc: Doc, box: Rect, rows: EngineResult['cashFlow'], targetDscr: number | null): void {
+/** A downside sizing case's DSCR each operating year (index k = year k + 1) and its own target. */
+export type DscrCaseLine = { label: string; targetDscr: number; dscr: readonly (string | null)[] };
+
+const CASE_COLOURS = [colours.accent, colours.line, colours.negative, colours.deep];
+
+export function drawDscrChart(doc: Doc, box: Rect, rows: EngineResult['cashFlow'], targetDscr: number | null, cases: readonly DscrCaseLine[] = []): void {
 	const title = 'Debt service cover ratio (DSCR) by operating year';
 	const serviced = rows.filter((r) => r.phase === 'operation' && r.dscr !== null);
 	if (serviced.length === 0) return emptyNote(doc, box, title, 'No debt service in this scenario, so there is no DSCR to chart.');
 	drawTitle(doc, box, title);
 	const values = serviced.map((r) => Number(r.dscr));
+	const caseValues = cases.map((c) => serviced.map((r) => (c.dscr[r.t - 1] === null || c.dscr[r.t - 1] === undefined ? null : Number(c.dscr[r.t - 1]))));
+	const everyValue = [...values, ...caseValues.flat().filter((v): v is number => v !== null)];
 	const reference = targetDscr ?? 1;
-	const top = dscrAxisTop(values, reference);
-	const ticks = niceTicks(Math.min(0, ...values), top, 5);
+	const top = dscrAxisTop(everyValue, reference);
+	const ticks = niceTicks(Math.min(0, ...everyValue), top, 5);
 	const plot = plotArea(doc, box, ticks, null);
 	const y = linearScale([ticks.min, ticks.max], [plot.y + plot.height, plot.y]);
 	drawYAxis(doc, plot, ticks, y, 'left', 'DSCR (×)', box, true);
@@ -319,6 +326,21 @@ export function drawDscrChart(doc: Doc, box: Rect, rows: EngineResult['cashFlow'
 		else doc.lineTo(px, y(clipped(value)));
 	});
 	doc.lineWidth(1.6).strokeColor(colours.positive).stroke();
+	// Downside cases: their DSCR under their own energy, and their own target, each in its colour.
+	cases.forEach((c, n) => {
+		const colour = CASE_COLOURS[n % CASE_COLOURS.length];
+		doc.moveTo(plot.x, y(Math.min(c.targetDscr, ticks.max))).lineTo(plot.x + plot.width, y(Math.min(c.targetDscr, ticks.max))).lineWidth(0.8).strokeColor(colour).dash(2, { space: 2 }).stroke();
+		doc.undash();
+		let started = false;
+		caseValues[n].forEach((value, i) => {
+			if (value === null) return;
+			const px = plot.x + band * (i + 0.5);
+			if (!started) doc.moveTo(px, y(clipped(value)));
+			else doc.lineTo(px, y(clipped(value)));
+			started = true;
+		});
+		if (started) doc.lineWidth(1.2).strokeColor(colour).stroke();
+	});
 	values.forEach((value, i) => {
 		const px = plot.x + band * (i + 0.5);
 		if (value > ticks.max) {
@@ -331,10 +353,13 @@ export function drawDscrChart(doc: Doc, box: Rect, rows: EngineResult['cashFlow'
 	drawBandLabels(doc, plot, serviced.map((r) => String(r.t)));
 	drawXTitle(doc, plot, 'Operating year');
 	drawLegend(doc, box, [
-		{ label: 'DSCR (CFADS ÷ debt service)', colour: colours.positive, kind: 'marker-line' },
+		{ label: cases.length > 0 ? 'P50 DSCR' : 'DSCR (CFADS ÷ debt service)', colour: colours.positive, kind: 'marker-line' },
 		targetDscr === null
 			? { label: 'Cover of 1.00× (debt service just met; no target DSCR set)', colour: colours.muted, kind: 'dashed' }
-			: { label: `Target ${targetDscr.toFixed(2)}×`, colour: colours.target, kind: 'dashed' }
+			: { label: `Target ${targetDscr.toFixed(2)}×`, colour: colours.target, kind: 'dashed' },
+		...cases.flatMap((c, n) => [
+			{ label: `${c.label} DSCR (target ${c.targetDscr.toFixed(2)}×)`, colour: CASE_COLOURS[n % CASE_COLOURS.length], kind: 'line' as const }
+		])
 	]);
 }
 

@@ -194,6 +194,11 @@ describe('renderScenarioSummaryPdf', () => {
 			expect(all).toMatch(/Sized by the P(50|90) target DSCR/);
 		});
 
+		it('draws the DSCR of the downside case with its own target in the chart legend', () => {
+			expect(read.flat.join(' ')).toContain('P90 DSCR (target 1.20×)');
+			expect(read.flat.join(' ')).toContain('P50 DSCR');
+		});
+
 		it('has the financing fees in the cash-flow table', () => {
 			const tablePages = read.flat.filter((page) => page.includes(CHAPTERS.cashFlow));
 			expect(tablePages[0]).toContain('Fees');

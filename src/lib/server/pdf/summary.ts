@@ -261,7 +261,9 @@ function charts(flow: PageFlow, input: ScenarioSummaryInput): void {
 	place(300, (box) => drawCashFlowChart(doc, box, result.cashFlow, result.currency));
 	const anyCover = result.cashFlow.some((row) => row.phase === 'operation' && row.dscr !== null);
 	// Without debt service the DSCR chart is a sentence, not an empty frame.
-	place(anyCover ? 260 : 44, (box) => drawDscrChart(doc, box, result.cashFlow, targetDscrOf(document.finance.debt)));
+	// Downside sizing cases (results stored before them have none): each drawn under its own energy.
+	const downside = (result.financing?.sizingCases ?? []).filter((c) => c.label !== 'P50').map((c) => ({ label: c.label, targetDscr: c.targetDscr, dscr: c.dscr }));
+	place(anyCover ? 260 : 44, (box) => drawDscrChart(doc, box, result.cashFlow, targetDscrOf(document.finance.debt), downside));
 	const tornado = input.tornado;
 	if (tornado) place(Math.min(flow.bottom - flow.top - 40, 100 + tornado.rows.length * 22), (box) => drawTornadoChart(doc, box, tornado, result.currency));
 	doc.x = flow.left;
