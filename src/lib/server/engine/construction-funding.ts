@@ -19,11 +19,12 @@
  *     gearing              = D / U,    D = the balance at COD
  *
  * The debt D the sizing allows depends on U (a gearing or a gearing cap) and
- * U on D (interest and fees), so the funding is solved as a fixed point: the
- * share of each payment the debt funds (pro rata) or the equity's part (equity
- * first) is found by secant steps until the balance at COD equals what the
- * sizing allows for the funding need it implies. Interest accrues at the
- * annual rate compounded over the exact time between points.
+ * U on D (interest and fees), so the two are solved together: the share of
+ * each payment the debt funds (pro rata) or the equity's part (equity first),
+ * and the facility, by Newton steps located in float64 and polished in decimals
+ * until the balance at COD equals what the sizing allows for the funding need
+ * it implies. Interest accrues at the annual rate compounded over the exact
+ * time between points.
  * Source: common practice in project-finance models (interest during
  * construction on drawn amounts, commitment fees on undrawn commitments,
  * both capitalised into the project cost; E. R. Yescombe, Principles of
