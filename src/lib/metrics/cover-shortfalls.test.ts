@@ -5,6 +5,8 @@ describe('operatingYearsList', () => {
 	it('names one year, two years, and longer runs as a range', () => {
 		expect(operatingYearsList([3])).toBe('operating year 3');
 		expect(operatingYearsList([3, 4])).toBe('operating years 3 and 4');
+		expect(operatingYearsList([2, 3, 5])).toBe('operating years 2, 3 and 5');
+		expect(operatingYearsList([2, 5, 9])).toBe('operating years 2, 5 and 9');
 		expect(operatingYearsList([2, 5, 6, 7, 8, 11])).toBe('operating years 2, 5 to 8 and 11');
 		expect(operatingYearsList([1, 2, 3])).toBe('operating years 1 to 3');
 	});

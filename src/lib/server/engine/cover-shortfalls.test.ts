@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { dec } from './decimal';
-import { coverShortfalls, coverShortfallWarnings, operatingYearsText } from './cover-shortfalls';
+import { coverShortfalls, coverShortfallWarnings } from './cover-shortfalls';
 import { coverRatios } from './metrics';
 
 describe('coverShortfalls', () => {
@@ -21,7 +21,6 @@ describe('coverShortfalls', () => {
 			'CFADS is negative in operating years 3 and 4 of the loan: the minimum DSCR leaves such years out, and equity or a reserve must meet any debt service then.',
 			'CFADS does not cover debt service in operating year 6 (DSCR 6: 0.90).'
 		]);
-		expect(operatingYearsText([2, 5, 9])).toBe('operating years 2, 5 and 9');
 	});
 
 	it('ignores negative CFADS after the last debt service', () => {

@@ -6,6 +6,7 @@
  * so every place that shows the minimum DSCR can say so.
  */
 import type { Decimal } from './decimal';
+import { operatingYearsList } from '../../metrics/cover-shortfalls';
 
 export type CoverShortfalls = {
 	/** Operating years (1-based) up to the last debt-service year with CFADS below zero. */
@@ -14,11 +15,6 @@ export type CoverShortfalls = {
 	dscrBelowOneYears: number[];
 };
 
-/** "operating year 3", "operating years 3 and 4", "operating years 3, 4 and 7". */
-export function operatingYearsText(years: readonly number[]): string {
-	if (years.length === 1) return `operating year ${years[0]}`;
-	return `operating years ${years.slice(0, -1).join(', ')} and ${years[years.length - 1]}`;
-}
 
 export function coverShortfalls(cfads: readonly Decimal[], debtService: readonly Decimal[], dscr: readonly (Decimal | null)[]): CoverShortfalls {
 	let lastServiceYear = 0;
@@ -35,11 +31,11 @@ export function coverShortfalls(cfads: readonly Decimal[], debtService: readonly
 export function coverShortfallWarnings(shortfalls: CoverShortfalls, dscr: readonly (Decimal | null)[]): string[] {
 	const warnings: string[] = [];
 	if (shortfalls.negativeCfadsYears.length > 0) {
-		warnings.push(`CFADS is negative in ${operatingYearsText(shortfalls.negativeCfadsYears)} of the loan: the minimum DSCR leaves such years out, and equity or a reserve must meet any debt service then.`);
+		warnings.push(`CFADS is negative in ${operatingYearsList(shortfalls.negativeCfadsYears)} of the loan: the minimum DSCR leaves such years out, and equity or a reserve must meet any debt service then.`);
 	}
 	if (shortfalls.dscrBelowOneYears.length > 0) {
 		const each = shortfalls.dscrBelowOneYears.map((year) => `${year}: ${dscr[year - 1]!.toFixed(2)}`).join(', ');
-		warnings.push(`CFADS does not cover debt service in ${operatingYearsText(shortfalls.dscrBelowOneYears)} (DSCR ${each}).`);
+		warnings.push(`CFADS does not cover debt service in ${operatingYearsList(shortfalls.dscrBelowOneYears)} (DSCR ${each}).`);
 	}
 	return warnings;
 }

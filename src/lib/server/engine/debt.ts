@@ -8,6 +8,7 @@ import { annuityLoan, sculptedLoan, straightLineLoan, type LoanRow } from './fin
 import { npv } from './finance/discounting';
 import { fundConstruction, type ConstructionFunding, type FundingSolution } from './construction-funding';
 import type { Timeline } from './timeline';
+import { operatingYearsList } from '../../metrics/cover-shortfalls';
 import type { DebtSpec } from '../../schemas/scenario';
 
 export type DebtTerms = Exclude<DebtSpec, { sizing: 'none' }>;
@@ -85,7 +86,6 @@ function padRows(rows: LoanRow[], years: number): LoanRow[] {
 	return out;
 }
 
-const yearsList = (years: number[]) => (years.length === 1 ? `operating year ${years[0]}` : `operating years ${years.slice(0, -1).join(', ')} and ${years[years.length - 1]}`);
 
 /**
  * Largest balance at COD that one case's target DSCR allows over the whole
@@ -107,7 +107,7 @@ export function caseCapacity(terms: DscrTerms, sizingCase: SizingCase, warnings:
 	const under = sizingCase.exceedancePercent === null ? '' : ` under the ${label} energy`;
 	const rate = dec(terms.interestRate);
 	if (terms.repayment === 'sculpted') {
-		if (nonPositive.length > 0) warnings.push(`CFADS${under} is not positive in ${yearsList(nonPositive)}: no debt is repaid then.`);
+		if (nonPositive.length > 0) warnings.push(`CFADS${under} is not positive in ${operatingYearsList(nonPositive)}: no debt is repaid then.`);
 		const sculpted = sculptedLoan(cfads, targetDscr, rate, terms.tenorYears, terms.graceYears);
 		let graceCap: Decimal | null = null;
 		if (rate.gt(0)) for (let k = 0; k < terms.graceYears; k++) {
@@ -118,7 +118,7 @@ export function caseCapacity(terms: DscrTerms, sizingCase: SizingCase, warnings:
 		return { label, targetDscr, balance: sculpted.principal, limitedBy: 'repayment', sculptedRows: sculpted.rows };
 	}
 	if (nonPositive.length > 0) {
-		warnings.push(`Debt cannot be sized to a DSCR${under}: CFADS is not positive in ${yearsList(nonPositive)}.`);
+		warnings.push(`Debt cannot be sized to a DSCR${under}: CFADS is not positive in ${operatingYearsList(nonPositive)}.`);
 		return { label, targetDscr, balance: ZERO, limitedBy: 'cfads' };
 	}
 	const unit = scheduleFor(terms.repayment, ONE, terms);

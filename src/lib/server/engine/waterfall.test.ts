@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { dec, Decimal, ZERO } from './decimal';
 import { annuityLoan, sculptedLoan, straightLineLoan, type LoanRow } from './finance/loans';
 import { irr } from './finance/irr';
-import { debtServiceReserveAtCod, operatingYearsInWords, runWaterfall } from './waterfall';
+import { debtServiceReserveAtCod, runWaterfall } from './waterfall';
 
 const strings = (values: readonly Decimal[]) => values.map(String);
 const decs = (values: readonly number[]) => values.map((v) => dec(v));
@@ -44,13 +44,6 @@ describe('debtServiceReserveAtCod', () => {
 	});
 });
 
-describe('operatingYearsInWords', () => {
-	it('lists the years as a sentence would', () => {
-		expect(operatingYearsInWords([3])).toBe('operating year 3');
-		expect(operatingYearsInWords([2, 3])).toBe('operating years 2 and 3');
-		expect(operatingYearsInWords([2, 3, 5])).toBe('operating years 2, 3 and 5');
-	});
-});
 
 describe('runWaterfall', () => {
 	it('reproduces the loan schedule and CFADS - debt service with no reserve and no covenants', () => {

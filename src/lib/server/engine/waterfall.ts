@@ -34,6 +34,7 @@
  * (edbodmer.com); covenants and sweep as in E. Bodmer, Corporate and Project
  * Finance Modeling (Wiley 2014), ch. 46; the rest common practice.
  */
+import { operatingYearsList } from '../../metrics/cover-shortfalls';
 import { dec, Decimal, ZERO, type DecimalInput } from './decimal';
 import type { LoanRow } from './finance/loans';
 import type { CovenantsSpec, ReservesSpec } from '../../schemas/scenario';
@@ -104,11 +105,6 @@ export function debtServiceReserveAtCod(spec: DebtServiceReserveSpec, loanRows: 
 	return Decimal.max(first.interest.plus(first.principal), ZERO).times(spec.months).div(12);
 }
 
-/** "operating year 3", "operating years 2 and 3", "operating years 2, 3 and 5". */
-export function operatingYearsInWords(years: readonly number[]): string {
-	if (years.length === 1) return `operating year ${years[0]}`;
-	return `operating years ${years.slice(0, -1).join(', ')} and ${years[years.length - 1]}`;
-}
 
 function column(years: number): Decimal[] {
 	return Array.from({ length: years }, () => ZERO);
@@ -278,13 +274,13 @@ export function runWaterfall(inputs: WaterfallInputs): WaterfallResult {
 
 	out.yearsInLockUp = out.lockUpYears.length;
 	if (out.defaultYears.length > 0) {
-		out.warnings.push(`The DSCR is below the default covenant (${defaultDscr}) in ${operatingYearsInWords(out.defaultYears)}: an event of default under the loan.`);
+		out.warnings.push(`The DSCR is below the default covenant (${defaultDscr}) in ${operatingYearsList(out.defaultYears)}: an event of default under the loan.`);
 	}
 	if (out.unpaidYears.length > 0) {
 		let total = ZERO;
 		for (const u of out.unpaidDebtService) total = total.plus(u);
 		out.warnings.push(
-			`CFADS and the reserves do not cover the debt service in ${operatingYearsInWords(out.unpaidYears)} (${total.toFixed(0)} short in all); the sponsors are taken to pay it, which lenders would treat as a payment default.`
+			`CFADS and the reserves do not cover the debt service in ${operatingYearsList(out.unpaidYears)} (${total.toFixed(0)} short in all); the sponsors are taken to pay it, which lenders would treat as a payment default.`
 		);
 	}
 	return out;
