@@ -11,7 +11,7 @@
  * Amounts are nominal currency of each year unless named real. Time convention
  * as in ./timeline: t = 0 is COD, construction at t <= 0, operating year k at t = k.
  */
-import { dec, Decimal, ONE, ZERO } from './decimal';
+import { dec, Decimal, ONE, sum, ZERO } from './decimal';
 import type { Scenario } from '../../schemas/scenario';
 import type { EnergyEstimate } from './energy/yield';
 import { degradationFactors } from './energy/losses';
@@ -53,6 +53,8 @@ export type CasePreparation = {
 	grants: { realTotal: Decimal; nominal: Decimal[]; capped: boolean };
 	/** Nominal capex net of grants at each construction point. */
 	fundingNeed: Decimal[];
+	/** Their sum: the cost tax depreciation writes off (before the financing costs of construction). */
+	depreciableCost: Decimal;
 	opex: OpexSchedule;
 	/** Periodic overhaul lines' nominal cost per operating year (for the maintenance reserve). */
 	overhauls: OverhaulSchedule[];
@@ -113,8 +115,7 @@ export function prepareCase(scenario: Scenario, energy: EnergyEstimate): CasePre
 		...costContext,
 		finalPriceIndex: priceIndex.operation[operatingYears - 1]
 	});
-	let depreciableCost = ZERO;
-	for (const f of fundingNeed) depreciableCost = depreciableCost.plus(f);
+	const depreciableCost = sum(fundingNeed);
 	const depreciation = depreciationByYear(scenario.finance.depreciation, depreciableCost, operatingYears);
 	return {
 		scenario,
@@ -134,6 +135,7 @@ export function prepareCase(scenario: Scenario, energy: EnergyEstimate): CasePre
 		capex,
 		grants,
 		fundingNeed,
+		depreciableCost,
 		opex,
 		overhauls,
 		decommissioning,
@@ -296,8 +298,7 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 			});
 		}
 	}
-	let depreciableCost = ZERO;
-	for (const f of prep.fundingNeed) depreciableCost = depreciableCost.plus(f);
+	const { depreciableCost } = prep;
 	let depreciation = prep.depreciation;
 	const reserves = costReserves({ overhauls: prep.overhauls, decommissioning: op.decommissioning, spec: finance.reserves });
 	/** Tax with the given interest over the first interest.length years, for one case. */

@@ -7,7 +7,7 @@
  * (mid-year by default); operating year k sits at t = k (end of year). NPVs
  * are valued at COD; the annual table adds each construction year's points up.
  */
-import { Decimal, ZERO } from './decimal';
+import { Decimal, sum, ZERO } from './decimal';
 import { byConstructionYear } from './timeline';
 import { coverShortfalls, coverShortfallWarnings, type CoverShortfalls } from './cover-shortfalls';
 import type { Scenario } from '../../schemas/scenario';
@@ -403,7 +403,6 @@ function exceedanceRow(e: Exceedance): ExceedanceRow {
 function financingSummary(d: DetailedEvaluation): NonNullable<EngineResult['financing']> {
 	const debt = d.financing.debt!;
 	const funding = debt.funding;
-	const sum = (values: readonly Decimal[]) => values.reduce((a, b) => a.plus(b), ZERO);
 	const debtSpec = d.prep.scenario.finance.debt;
 	const profiles = [{ label: 'P50', cfads: d.financing.cfads }, ...d.financing.downsideCfads];
 	const sizingCases = debt.capacities.map((c) => {

@@ -35,7 +35,7 @@
  * Finance Modeling (Wiley 2014), ch. 46; the rest common practice.
  */
 import { operatingYearsList } from '../../metrics/cover-shortfalls';
-import { dec, Decimal, ZERO, type DecimalInput } from './decimal';
+import { dec, Decimal, sum, ZERO, type DecimalInput } from './decimal';
 import type { LoanRow } from './finance/loans';
 import type { CovenantsSpec, ReservesSpec } from '../../schemas/scenario';
 
@@ -277,8 +277,7 @@ export function runWaterfall(inputs: WaterfallInputs): WaterfallResult {
 		out.warnings.push(`The DSCR is below the default covenant (${defaultDscr}) in ${operatingYearsList(out.defaultYears)}: an event of default under the loan.`);
 	}
 	if (out.unpaidYears.length > 0) {
-		let total = ZERO;
-		for (const u of out.unpaidDebtService) total = total.plus(u);
+		const total = sum(out.unpaidDebtService);
 		out.warnings.push(
 			`CFADS and the reserves do not cover the debt service in ${operatingYearsList(out.unpaidYears)} (${total.toFixed(0)} short in all); the sponsors are taken to pay it, which lenders would treat as a payment default.`
 		);

@@ -3,7 +3,7 @@
  * periods in years (or any period, used consistently); results are the
  * depreciation charged in a period, positive.
  */
-import { dec, Decimal, ONE, ZERO, type DecimalInput } from '../decimal';
+import { dec, Decimal, ONE, sum, ZERO, type DecimalInput } from '../decimal';
 
 export type DepreciationMethod = 'straight-line' | 'declining-balance';
 
@@ -251,8 +251,7 @@ export function scheduledDepreciation(cost: DecimalInput, shares: readonly Decim
 	const values = shares.map(dec);
 	const bad = values.findIndex((s) => !s.isFinite() || s.isNegative());
 	if (bad >= 0) throw new RangeError(`schedule share for year ${bad + 1} must be a fraction >= 0, got ${values[bad].toString()}`);
-	let total = ZERO;
-	for (const s of values) total = total.plus(s);
+	const total = sum(values);
 	if (total.minus(1).abs().gt(SHARE_SUM_TOLERANCE)) {
 		throw new RangeError(`depreciation schedule must sum to 1, sums to ${total.toString()}`);
 	}
@@ -336,7 +335,7 @@ export function assetClassShares(classes: readonly { share?: number }[]): Decima
 		throw new RangeError(`asset-class shares must sum to 1, sum to ${given.toString()}`);
 	}
 	const shares = classes.map((c) => (c.share === undefined ? Decimal.max(ZERO, rest) : dec(c.share)));
-	const total = shares.reduce((a, b) => a.plus(b), ZERO);
+	const total = sum(shares);
 	return shares.map((s) => s.div(total));
 }
 
