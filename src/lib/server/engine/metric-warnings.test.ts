@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import * as financial from 'financial';
 import { Decimal } from './decimal';
-import { multipleIrrWarning, npvZeroRates, paybackReversal, paybackReversalWarning, signChanges } from './metric-warnings';
+import { multipleIrrWarning, npvZeroRates, paybackReversal, paybackReversalWarning } from './metric-warnings';
+import { signChanges } from './finance/irr';
 import { evaluateDetailed } from './evaluate';
 import { atbCase } from './testing/fixtures';
 import { METRICS } from '../../metrics/catalogue';

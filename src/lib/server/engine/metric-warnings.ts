@@ -5,7 +5,7 @@
  */
 import { Decimal, ZERO } from './decimal';
 import { solveRoot } from './finance/roots';
-import type { TimedAmount } from './finance/irr';
+import { signChanges, type TimedAmount } from './finance/irr';
 import type { TimeSeries } from './timeline';
 
 /**
@@ -20,23 +20,6 @@ export const IRR_SEARCH_RANGE = { low: -0.1, high: 1 } as const;
 /** Cells of the scan in ln(1 + r): about 0.2 % apart in 1 + r over the default range. */
 const SCAN_CELLS = 400;
 
-/**
- * Sign changes in a sequence, zeros skipped (the count in Descartes' rule of
- * signs). Source: Descartes' rule of signs.
- *
- * Example: signChanges([-100, 230, -132]) // => 2
- */
-export function signChanges(amounts: readonly Decimal[]): number {
-	let changes = 0;
-	let previous = 0;
-	for (const a of amounts) {
-		const sign = a.isZero() ? 0 : a.isNegative() ? -1 : 1;
-		if (sign === 0) continue;
-		if (previous !== 0 && sign !== previous) changes++;
-		previous = sign;
-	}
-	return changes;
-}
 
 /** Amounts in time order, those at the same t added together. */
 function inTimeOrder(flows: readonly TimedAmount[]): Decimal[] {

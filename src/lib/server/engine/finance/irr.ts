@@ -154,7 +154,13 @@ export function irrTimed(flows: readonly TimedAmount[]): IrrResult {
 }
 
 
-function signChanges(coefficients: readonly Decimal[]): number {
+/**
+ * Sign changes in a sequence, zeros skipped (the count in Descartes' rule of
+ * signs, which bounds the number of IRRs). Source: Descartes' rule of signs.
+ *
+ * Example: signChanges([-100, 230, -132]) // => 2
+ */
+export function signChanges(coefficients: readonly Decimal[]): number {
 	let changes = 0;
 	let previous = 0;
 	for (const c of coefficients) {
