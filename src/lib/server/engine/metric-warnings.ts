@@ -4,8 +4,7 @@
  * the result's warnings, or null when there is nothing to say.
  */
 import { Decimal, ZERO } from './decimal';
-import { solveRoot } from './finance/roots';
-import { signChanges, type TimedAmount } from './finance/irr';
+import { irrRatesTimed, signChanges, type TimedAmount } from './finance/irr';
 import type { TimeSeries } from './timeline';
 
 /**
@@ -17,10 +16,6 @@ import type { TimeSeries } from './timeline';
  */
 export const IRR_SEARCH_RANGE = { low: -0.1, high: 1 } as const;
 
-/** Cells of the scan in ln(1 + r): about 0.2 % apart in 1 + r over the default range. */
-const SCAN_CELLS = 400;
-
-
 /** Amounts in time order, those at the same t added together. */
 function inTimeOrder(flows: readonly TimedAmount[]): Decimal[] {
 	const byTime = new Map<number, Decimal>();
@@ -29,41 +24,13 @@ function inTimeOrder(flows: readonly TimedAmount[]): Decimal[] {
 }
 
 /**
- * Every rate r in (low, high) at which the flows' NPV is zero, ascending.
- *
- *     NPV(r) = sum_i a_i (1 + r)^(-t_i) = sum_i a_i e^(-t_i x),   x = ln(1 + r)
- *
- * scanned on 400 equal cells in x (t may be fractional); each cell whose ends
- * differ in sign is narrowed by Brent's method. In float64, to about 1e-12 in
- * x: enough to name a rate to two decimals of a percent. Two roots inside one
- * cell (rates within about 0.2 % of 1 + r of each other over the default range), or a double root,
- * would be missed. Source: the IRR equation; the scan is common practice.
+ * Every rate r in (low, high) at which the flows' NPV is zero, ascending: the
+ * IRR module's own roots (finance/irr irrRatesTimed), kept to the range.
  *
  * Example: npvZeroRates(-100 at t = 0, 230 at 1, -132 at 2) // => [0.1, 0.2] (to float accuracy)
  */
 export function npvZeroRates(flows: readonly TimedAmount[], low: number = IRR_SEARCH_RANGE.low, high: number = IRR_SEARCH_RANGE.high): number[] {
-	let largest = 0;
-	for (const { amount } of flows) largest = Math.max(largest, Math.abs(amount.toNumber()));
-	if (largest === 0 || !(low > -1 && high > low)) return [];
-	const scaled = flows.map(({ t, amount }) => ({ t, a: amount.toNumber() / largest }));
-	const npv = (x: number) => scaled.reduce((total, { t, a }) => total + a * Math.exp(-t * x), 0);
-	const from = Math.log1p(low);
-	const width = (Math.log1p(high) - from) / SCAN_CELLS;
-	const roots: number[] = [];
-	let a = from;
-	let fa = npv(a);
-	for (let cell = 1; cell <= SCAN_CELLS; cell++) {
-		const b = from + cell * width;
-		const fb = npv(b);
-		if (fa === 0) roots.push(a);
-		else if (fb !== 0 && Math.sign(fa) !== Math.sign(fb)) {
-			const found = solveRoot(npv, a, b, { xTolerance: 1e-12 });
-			if (found) roots.push(found.x);
-		}
-		a = b;
-		fa = fb;
-	}
-	return roots.map(Math.expm1);
+	return irrRatesTimed(flows).filter((rate) => rate > low && rate < high);
 }
 
 const percent = (rate: number | Decimal) => `${(typeof rate === 'number' ? rate * 100 : rate.times(100).toNumber()).toFixed(2)} %`;

@@ -134,6 +134,15 @@ export function irr(values: readonly DecimalInput[], guess?: number): IrrResult 
  */
 export function irrTimed(flows: readonly TimedAmount[]): IrrResult {
 	if (flows.length === 0) return failure('no cash flows, so there is no IRR');
+	const { series, perYear } = onPeriods(flows);
+	const result = irr(series);
+	if (result.rate === null || perYear === 1) return result;
+	// A rate per 1/m of a year, compounded to a year: (1 + rho)^m - 1.
+	return { rate: result.rate.plus(1).pow(perYear).minus(1), reason: null };
+}
+
+/** Timed flows on whole periods of 1/m of a year (m as few as the times allow), added where they meet. */
+function onPeriods(flows: readonly TimedAmount[]): { series: Decimal[]; perYear: number } {
 	const perYear = periodsPerYearOf(flows.map((f) => f.t));
 	let minT = Number.POSITIVE_INFINITY;
 	let maxT = Number.NEGATIVE_INFINITY;
@@ -147,10 +156,29 @@ export function irrTimed(flows: readonly TimedAmount[]): IrrResult {
 		const period = Math.round(t * perYear) - minT;
 		series[period] = series[period].plus(amount);
 	}
-	const result = irr(series);
-	if (result.rate === null || perYear === 1) return result;
-	// A rate per 1/m of a year, compounded to a year: (1 + rho)^m - 1.
-	return { rate: result.rate.plus(1).pow(perYear).minus(1), reason: null };
+	return { series, perYear };
+}
+
+/**
+ * Every rate a year above -100 % at which the timed flows' NPV is zero,
+ * ascending, to float64 accuracy: the roots irr chooses among (the scan of
+ * the module comment), not polished. Empty for flows that never change sign.
+ *
+ * Example: irrRatesTimed(-100 at t = 0, 230 at 1, -132 at 2)  // => [0.1, 0.2] (to float accuracy)
+ */
+export function irrRatesTimed(flows: readonly TimedAmount[]): number[] {
+	if (flows.length === 0) return [];
+	const { series, perYear } = onPeriods(flows);
+	let first = 0;
+	while (first < series.length && series[first].isZero()) first++;
+	let last = series.length - 1;
+	while (last >= first && series[last].isZero()) last--;
+	const coefficients = series.slice(first, last + 1);
+	const changes = coefficients.length === 0 ? 0 : signChanges(coefficients);
+	if (changes === 0) return [];
+	const { floats } = scaledFloats(coefficients);
+	const roots = changes === 1 ? [singleRoot(floats)] : allRoots(floats);
+	return roots.map((root) => Math.pow(1 + root.rate, perYear) - 1).sort((a, b) => a - b);
 }
 
 
