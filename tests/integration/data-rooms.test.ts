@@ -47,7 +47,7 @@ import { NO_ROOM, ROOM_CLOSED, guestRoom } from '../../src/lib/server/rooms/gues
 import { validateGuestSession } from '../../src/lib/server/rooms/guest-sessions';
 import { enterByLink, requestSignInLink, signInGuest, viewGuestLink } from '../../src/lib/server/rooms/guest-sign-in';
 import { PublishProblem, buildSnapshot } from '../../src/lib/server/rooms/snapshot';
-import { RoomProblem, answerRoomQuestion, attachDocument, createRoomForProject, inviteGuest, publishVersion, questionsForGuest, revokeGuest } from '../../src/lib/server/rooms/team';
+import { RoomProblem, answerRoomQuestion, attachDocument, changeTerms, createRoomForProject, inviteGuest, publishVersion, questionsForGuest, removeDocument, revokeGuest } from '../../src/lib/server/rooms/team';
 
 const ORIGIN = 'http://127.0.0.1:9';
 const GOOD_PASSWORD = 'kelp-lantern-harbour-58';
@@ -372,6 +372,11 @@ describe('plan gates', () => {
 		expect(await count('data_room_versions', { room_id: room.id })).toBe(1);
 		expect(await count('room_guests', { email: newcomer })).toBe(0);
 		expect(await sink.messagesTo(newcomer)).toHaveLength(0);
+		// Changing the terms or taking a document out are changes too; taking access away is not gated.
+		const termsBefore = (await database.knex('data_rooms').where({ id: room.id }).first()).terms;
+		expect(await thrown(() => changeTerms(lapsed, 'Changed terms that investors would have to accept again.'))).toBeInstanceOf(PlanRefusal);
+		expect((await database.knex('data_rooms').where({ id: room.id }).first()).terms).toBe(termsBefore);
+		expect(await thrown(() => removeDocument(lapsed, scenario.id))).toBeInstanceOf(PlanRefusal);
 
 		expect(planAllows(lapsed.membership, 'dataRooms', 'read')).toEqual({ allowed: true });
 		expect((await getRoomVersion(room.id, 1))!.snapshot.scenarios[0].id).toBe(scenario.id);

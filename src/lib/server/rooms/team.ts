@@ -16,7 +16,9 @@ import {
 	insertRoomDocument,
 	insertRoomVersion,
 	listQuestions,
+	removeRoomDocument,
 	revokeRoomAccess,
+	updateRoomTerms,
 	upsertGuest,
 	type RoomDocument,
 	type RoomRow
@@ -96,7 +98,19 @@ export async function inviteGuest(access: RoomAccess, input: { email: string; na
 	);
 }
 
-/** Ends a guest's access at once; a guest left with no room also loses their sessions. */
+/** Takes a document out of the room (a change: the plan must allow it). False when it is not in this room. */
+export async function removeDocument(access: RoomAccess, documentId: string): Promise<boolean> {
+	requireFeature(access.membership, 'dataRooms', 'change');
+	return removeRoomDocument(access.roomId, documentId);
+}
+
+/** New confidentiality terms: every investor accepts them again before the room opens. */
+export async function changeTerms(access: RoomAccess, terms: string): Promise<void> {
+	requireFeature(access.membership, 'dataRooms', 'change');
+	await updateRoomTerms(access.roomId, terms);
+}
+
+/** Ends a guest's access at once (allowed on any plan: taking access away is never gated); a guest left with no room also loses their sessions. */
 export async function revokeGuest(access: RoomAccess, guestId: string): Promise<boolean> {
 	const revoked = await revokeRoomAccess(access.roomId, guestId);
 	if (revoked) await endSessionsOfGuestWithoutRooms(guestId);

@@ -2,9 +2,10 @@ import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { authorize } from '$lib/server/auth/access';
 import { roleAtLeast } from '$lib/server/auth/roles';
-import { getRoom, listGuestsOfRoom, listQuestions, listRoomDocuments, listRoomVersions, removeRoomDocument, updateRoomTerms } from '$lib/server/db/rooms';
+import { getRoom, listGuestsOfRoom, listQuestions, listRoomDocuments, listRoomVersions } from '$lib/server/db/rooms';
 import { listScenariosInProject } from '$lib/server/db/scenarios';
-import { answerRoomQuestion, attachDocument, inviteGuest, publishVersion, revokeGuest, RoomProblem } from '$lib/server/rooms/team';
+import { answerRoomQuestion, attachDocument, changeTerms, inviteGuest, publishVersion, removeDocument, revokeGuest, RoomProblem } from '$lib/server/rooms/team';
+import { roomTermsSchema } from '$lib/server/rooms/terms';
 import { PublishProblem } from '$lib/server/rooms/snapshot';
 import { PlanRefusal } from '$lib/server/billing/gates';
 import { ApiProblem } from '$lib/server/workbench/api-route';
@@ -102,7 +103,11 @@ export const actions: Actions = {
 	removeDocument: async (event) => {
 		const access = await changer(event);
 		const id = (await readForm(event.request)).documentId ?? '';
-		if (!z.uuid().safeParse(id).success || !(await removeRoomDocument(access.roomId, id))) return fail(404, { action: 'removeDocument', message: 'That document is not in this room.' });
+		try {
+			if (!z.uuid().safeParse(id).success || !(await removeDocument(access, id))) return fail(404, { action: 'removeDocument', message: 'That document is not in this room.' });
+		} catch (e) {
+			return refused('removeDocument', e);
+		}
 		return { action: 'removeDocument', done: 'The document is removed from the room.' };
 	},
 
@@ -140,9 +145,13 @@ export const actions: Actions = {
 
 	terms: async (event) => {
 		const access = await changer(event);
-		const terms = ((await readForm(event.request)).terms ?? '').trim();
-		if (terms.length < 20 || terms.length > 20_000) return fail(400, { action: 'terms', message: 'Write the terms (20 to 20,000 characters).' });
-		await updateRoomTerms(access.roomId, terms);
+		const terms = roomTermsSchema.safeParse((await readForm(event.request)).terms ?? '');
+		if (!terms.success) return fail(400, { action: 'terms', message: terms.error.issues[0].message });
+		try {
+			await changeTerms(access, terms.data);
+		} catch (e) {
+			return refused('terms', e);
+		}
 		return { action: 'terms', done: 'New terms saved: every investor accepts them again before the room opens.' };
 	}
 };

@@ -4,7 +4,7 @@ import { authorize } from '$lib/server/auth/access';
 import { roleAtLeast } from '$lib/server/auth/roles';
 import { listRoomsOfProject } from '$lib/server/db/rooms';
 import { createRoomForProject } from '$lib/server/rooms/team';
-import { DEFAULT_TERMS_TEXT } from '$lib/server/rooms/terms';
+import { DEFAULT_TERMS_TEXT, roomTermsSchema } from '$lib/server/rooms/terms';
 import { PlanRefusal } from '$lib/server/billing/gates';
 import { readForm } from '$lib/server/forms';
 import { planAllows } from '$lib/billing/plans';
@@ -27,7 +27,7 @@ export const load: PageServerLoad = async (event) => {
 
 const roomForm = z.object({
 	name: z.string().trim().min(1, 'Give the room a name.').max(200, 'At most 200 characters.'),
-	terms: z.string().trim().min(20, 'Write the confidentiality terms investors accept (at least 20 characters).').max(20_000, 'At most 20,000 characters.')
+	terms: roomTermsSchema
 });
 
 export const actions: Actions = {
