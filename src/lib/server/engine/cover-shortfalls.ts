@@ -15,7 +15,6 @@ export type CoverShortfalls = {
 	dscrBelowOneYears: number[];
 };
 
-
 export function coverShortfalls(cfads: readonly Decimal[], debtService: readonly Decimal[], dscr: readonly (Decimal | null)[]): CoverShortfalls {
 	let lastServiceYear = 0;
 	debtService.forEach((ds, k) => {
