@@ -320,6 +320,47 @@ export async function listRoomEvents(roomId: string, filter: RoomEventFilter = {
 	}));
 }
 
+/** Per investor: the last event, how many, and the distinct things opened (most recently opened first). Team members' own visits are left out. */
+export interface InvestorSummary {
+	guestId: string;
+	who: string;
+	lastVisit: Date;
+	events: number;
+	opened: string[];
+}
+
+/** The investor summary of a room's whole log, counted in PostgreSQL (no cap on the events read). */
+export async function summariseInvestorVisits(roomId: string, knex: Knex = db()): Promise<InvestorSummary[]> {
+	const [visits, opened] = await Promise.all([
+		knex('room_access_events')
+			.join('room_guests', 'room_guests.id', 'room_access_events.guest_id')
+			.where('room_access_events.room_id', roomId)
+			.groupBy('room_guests.id', 'room_guests.email')
+			.select('room_guests.id as guest_id', 'room_guests.email')
+			.max('room_access_events.at as last_visit')
+			.count('* as events')
+			.orderBy('last_visit', 'desc'),
+		knex('room_access_events')
+			.where('room_id', roomId)
+			.whereNotNull('guest_id')
+			.whereNot('kind', 'room-view')
+			.whereNot('target_name', '')
+			.groupBy('guest_id', 'target_name')
+			.select('guest_id', 'target_name')
+			.max('at as last_opened')
+			.orderBy('last_opened', 'desc')
+	]);
+	const openedBy = new Map<string, string[]>();
+	for (const row of opened) openedBy.set(row.guest_id, [...(openedBy.get(row.guest_id) ?? []), row.target_name]);
+	return visits.map((v) => ({
+		guestId: v.guest_id as string,
+		who: v.email as string,
+		lastVisit: v.last_visit as Date,
+		events: Number(v.events),
+		opened: openedBy.get(v.guest_id as string) ?? []
+	}));
+}
+
 export interface RoomQuestion {
 	id: string;
 	guestId: string;

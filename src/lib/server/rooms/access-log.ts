@@ -1,7 +1,7 @@
 /**
  * The room's access log for the team: events filtered by investor and kind,
- * a summary per investor (last visit, what was opened), and the CSV of the
- * filtered events.
+ * and the CSV of the filtered events (the summary per investor is counted in
+ * PostgreSQL: db/rooms summariseInvestorVisits).
  */
 import { z } from 'zod';
 import { listRoomEvents, type RoomEventKind } from '../db/rooms';
@@ -28,28 +28,6 @@ export function readLogFilter(url: URL): LogFilter {
 }
 
 export type LogEvent = Awaited<ReturnType<typeof listRoomEvents>>[number];
-
-export interface InvestorSummary {
-	guestId: string;
-	who: string;
-	lastVisit: Date;
-	events: number;
-	opened: string[];
-}
-
-/** Per investor: the last event, how many, and the distinct things opened (newest first). Team members' own visits are left out. */
-export function summariseByInvestor(events: readonly LogEvent[]): InvestorSummary[] {
-	const byGuest = new Map<string, InvestorSummary>();
-	for (const event of events) {
-		if (!event.guestId) continue;
-		const summary = byGuest.get(event.guestId) ?? { guestId: event.guestId, who: event.who, lastVisit: event.at, events: 0, opened: [] };
-		summary.events += 1;
-		if (event.at > summary.lastVisit) summary.lastVisit = event.at;
-		if (event.kind !== 'room-view' && event.targetName && !summary.opened.includes(event.targetName)) summary.opened.push(event.targetName);
-		byGuest.set(event.guestId, summary);
-	}
-	return [...byGuest.values()].sort((a, b) => b.lastVisit.getTime() - a.lastVisit.getTime());
-}
 
 export function logCsv(events: readonly LogEvent[]): string {
 	return tableToCsv({

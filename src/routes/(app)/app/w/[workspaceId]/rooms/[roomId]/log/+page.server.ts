@@ -1,6 +1,6 @@
 import { authorize } from '$lib/server/auth/access';
-import { getRoom, listGuestsOfRoom, listRoomEvents } from '$lib/server/db/rooms';
-import { ROOM_EVENT_KINDS, readLogFilter, roomEventWords, summariseByInvestor } from '$lib/server/rooms/access-log';
+import { getRoom, listGuestsOfRoom, listRoomEvents, summariseInvestorVisits } from '$lib/server/db/rooms';
+import { ROOM_EVENT_KINDS, readLogFilter, roomEventWords } from '$lib/server/rooms/access-log';
 import type { PageServerLoad } from './$types';
 
 /** Who saw what, and when: every view and download of the room, for the team. */
@@ -8,21 +8,18 @@ export const load: PageServerLoad = async (event) => {
 	const { membership } = await authorize(event, { workspaceId: event.params.workspaceId, roomId: event.params.roomId }, 'viewer');
 	const room = (await getRoom(event.params.roomId))!;
 	const filter = readLogFilter(event.url);
-	const filtered = filter.guest !== undefined || filter.kind !== undefined;
-	const [all, guests, matching] = await Promise.all([
-		listRoomEvents(room.id),
+	const [events, guests, summary] = await Promise.all([
+		listRoomEvents(room.id, { guestId: filter.guest, kind: filter.kind }),
 		listGuestsOfRoom(room.id),
-		// Without a filter the table shows the same events the summary reads: one query.
-		filtered ? listRoomEvents(room.id, { guestId: filter.guest, kind: filter.kind }) : null
+		summariseInvestorVisits(room.id)
 	]);
-	const events = matching ?? all;
 	return {
 		workspaceId: membership.workspaceId,
 		room: { id: room.id, name: room.name },
 		filter: { guest: filter.guest ?? '', kind: filter.kind ?? '' },
 		kinds: ROOM_EVENT_KINDS.map((k) => ({ key: k, label: roomEventWords[k] })),
 		guests: guests.map((g) => ({ id: g.guestId, email: g.email })),
-		summary: summariseByInvestor(all).map((s) => ({ ...s, lastVisit: s.lastVisit.toISOString() })),
+		summary: summary.map((s) => ({ ...s, lastVisit: s.lastVisit.toISOString() })),
 		events: events.map((e) => ({ at: e.at.toISOString(), who: e.who, byTeam: e.byTeam, what: roomEventWords[e.kind], item: e.targetName, version: e.version }))
 	};
 };
