@@ -14,7 +14,8 @@
  */
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
 import { listWorkspacesForUser, type WorkspaceMembership } from '../db/memberships';
-import { getProjectById, getProjectOfRoom, getProjectOfScenario, getProjectOfUpload, type ProjectRow } from '../db/projects';
+import { getProjectById, getProjectOfScenario, getProjectOfUpload, getRoomAndProject, type ProjectRow } from '../db/projects';
+import type { RoomRow } from '../db/rooms';
 import { getScenarioWithProject, type ScenarioRecord } from '../db/scenarios';
 import { roleAtLeast, type WorkspaceRole } from './roles';
 import type { ApiTokenPrincipal, GuestPrincipal, MemberPrincipal, Principal } from './principal';
@@ -79,6 +80,8 @@ export interface UploadAccess extends ProjectAccess {
 
 export interface RoomAccess extends ProjectAccess {
 	roomId: string;
+	/** The room itself, read with its project by the door. */
+	room: RoomRow;
 }
 
 type Place = { workspaceId?: string; projectId?: string };
@@ -228,9 +231,9 @@ export async function authorize(
 	}
 	if (target.roomId !== undefined) {
 		const roomId = target.roomId;
-		const project = isUuid(roomId) ? await projectOf(event, `room:${roomId}`, () => getProjectOfRoom(roomId)) : undefined;
-		const access = await projectAccess(event, project, place, minimum, hidden.room);
-		return { ...access, roomId };
+		const found = isUuid(roomId) ? await getRoomAndProject(roomId) : undefined;
+		const access = await projectAccess(event, found?.project, place, minimum, hidden.room);
+		return { ...access, roomId, room: found!.room };
 	}
 	if (target.projectId !== undefined) {
 		const projectId = target.projectId;

@@ -19,7 +19,7 @@ export interface RoomRow {
 	updated_at: Date;
 }
 
-const roomColumns = ['id', 'workspace_id', 'project_id', 'name', 'terms', 'terms_version', 'created_at', 'updated_at'] as const;
+export const roomColumns = ['id', 'workspace_id', 'project_id', 'name', 'terms', 'terms_version', 'created_at', 'updated_at'] as const;
 
 export async function createRoom(input: { workspaceId: string; projectId: string; name: string; terms: string; createdBy: string }, knex: Knex = db()): Promise<RoomRow> {
 	const [row] = await knex('data_rooms')

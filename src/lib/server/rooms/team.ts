@@ -10,7 +10,6 @@ import {
 	answerQuestion,
 	createRoom,
 	getGuest,
-	getRoom,
 	grantRoomAccess,
 	insertGuestLink,
 	insertRoomDocument,
@@ -79,7 +78,7 @@ export async function attachDocument(access: RoomAccess, input: { fileName: stri
 export async function inviteGuest(access: RoomAccess, input: { email: string; name: string; accessUntil: Date; origin: string }): Promise<void> {
 	requireFeature(access.membership, 'dataRooms', 'share');
 	if (input.accessUntil.getTime() <= Date.now()) throw new RoomProblem('Choose an access end date in the future.', 'accessUntil');
-	const room = (await getRoom(access.roomId))!;
+	const { room } = access;
 	const guest = await upsertGuest(input.email, input.name);
 	await grantRoomAccess(room.id, guest.id, input.accessUntil, access.user.id);
 	const token = generateRandomToken();
@@ -122,7 +121,7 @@ export async function answerRoomQuestion(access: RoomAccess, input: { questionId
 	const answered = await answerQuestion(access.roomId, input.questionId, input.answer, input.visibility, access.user.id);
 	if (!answered) throw new RoomProblem('That question is not in this room.', 'questionId');
 	const asker = await getGuest(answered.guest_id);
-	const room = (await getRoom(access.roomId))!;
+	const { room } = access;
 	if (asker) await sendMail(asker.email, roomAnswerMessage({ roomName: room.name, question: answered.question, answer: input.answer, url: `${input.origin}/rooms/${room.id}` }));
 }
 

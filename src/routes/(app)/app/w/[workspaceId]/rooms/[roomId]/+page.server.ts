@@ -2,7 +2,7 @@ import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { authorize } from '$lib/server/auth/access';
 import { roleAtLeast } from '$lib/server/auth/roles';
-import { getRoom, listGuestsOfRoom, listQuestions, listRoomDocuments, listRoomVersions } from '$lib/server/db/rooms';
+import { listGuestsOfRoom, listQuestions, listRoomDocuments, listRoomVersions } from '$lib/server/db/rooms';
 import { listScenariosInProject } from '$lib/server/db/scenarios';
 import { answerRoomQuestion, attachDocument, changeTerms, inviteGuest, publishVersion, removeDocument, revokeGuest, RoomProblem } from '$lib/server/rooms/team';
 import { roomTermsSchema } from '$lib/server/rooms/terms';
@@ -16,8 +16,7 @@ import { ROOM_DOCUMENT_MAX_BYTES } from '$lib/server/rooms/document-check';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 export const load: PageServerLoad = async (event) => {
-	const { project, membership } = await authorize(event, { workspaceId: event.params.workspaceId, roomId: event.params.roomId }, 'viewer');
-	const room = (await getRoom(event.params.roomId))!;
+	const { project, membership, room } = await authorize(event, { workspaceId: event.params.workspaceId, roomId: event.params.roomId }, 'viewer');
 	const [versions, scenarios, documents, guests, questions] = await Promise.all([
 		listRoomVersions(room.id),
 		listScenariosInProject(project.id),

@@ -1,12 +1,11 @@
 import { authorize } from '$lib/server/auth/access';
-import { getRoom, listGuestsOfRoom, listRoomEvents, summariseInvestorVisits } from '$lib/server/db/rooms';
+import { listGuestsOfRoom, listRoomEvents, summariseInvestorVisits } from '$lib/server/db/rooms';
 import { ROOM_EVENT_KINDS, readLogFilter, roomEventWords } from '$lib/server/rooms/access-log';
 import type { PageServerLoad } from './$types';
 
 /** Who saw what, and when: every view and download of the room, for the team. */
 export const load: PageServerLoad = async (event) => {
-	const { membership } = await authorize(event, { workspaceId: event.params.workspaceId, roomId: event.params.roomId }, 'viewer');
-	const room = (await getRoom(event.params.roomId))!;
+	const { membership, room } = await authorize(event, { workspaceId: event.params.workspaceId, roomId: event.params.roomId }, 'viewer');
 	const filter = readLogFilter(event.url);
 	const [events, guests, summary] = await Promise.all([
 		listRoomEvents(room.id, { guestId: filter.guest, kind: filter.kind }),

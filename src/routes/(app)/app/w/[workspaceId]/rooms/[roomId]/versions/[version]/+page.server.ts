@@ -1,15 +1,14 @@
 import { error } from '@sveltejs/kit';
 import { authorize } from '$lib/server/auth/access';
-import { getRoom, getRoomVersion, listGuestsOfRoom } from '$lib/server/db/rooms';
+import { getRoomVersion, listGuestsOfRoom } from '$lib/server/db/rooms';
 import type { PageServerLoad } from './$types';
 
 /** Any published version as it was, and which investors last saw this one. */
 export const load: PageServerLoad = async (event) => {
-	const { membership } = await authorize(event, { workspaceId: event.params.workspaceId, roomId: event.params.roomId }, 'viewer');
+	const { membership, room } = await authorize(event, { workspaceId: event.params.workspaceId, roomId: event.params.roomId }, 'viewer');
 	const number = Number(event.params.version);
 	const version = Number.isInteger(number) ? await getRoomVersion(event.params.roomId, number) : undefined;
 	if (!version) error(404, 'No such version of this room.');
-	const room = (await getRoom(event.params.roomId))!;
 	const guests = await listGuestsOfRoom(room.id);
 	return {
 		workspaceId: membership.workspaceId,
