@@ -43,6 +43,8 @@ test('sign up, confirm from the mail, sign in, sign out, forget the password, re
 	await expect(page.getByText('You are signed out.')).toBeVisible();
 
 	await page.getByRole('link', { name: 'Forgot the password?' }).click();
+	// The sign-in page has an E-mail field too: wait for the new page before filling it.
+	await expect(page.getByRole('heading', { name: 'Forgot the password' })).toBeVisible();
 	await page.getByLabel('E-mail').fill(email);
 	await page.getByRole('button', { name: 'Send the link' }).click();
 	await expect(page.getByRole('status')).toContainText('is on its way');
