@@ -1,15 +1,61 @@
 /**
- * The engine's one decimal type. 30 significant digits keep 25-year discounting
+ * The engine's one number type. 30 significant digits keep 25-year discounting
  * and root solving far below a cent on billion-scale projects.
+ *
+ * The engine is written once, over this module's `Decimal`, `ZERO`, `ONE` and
+ * `PI`. withFloat64(fn) runs fn with them bound to float64 (./float64.ts): the
+ * draws of a probabilistic run and the first pass of a circular solve, where
+ * speed matters and 1e-12 is plenty. The bindings are live ES module exports,
+ * swapped for the synchronous call and put back after it; the engine never
+ * awaits, so nothing else can run in between.
  */
 import DecimalJs from 'decimal.js';
+import { Float64 } from './float64';
 
-export const Decimal = DecimalJs.clone({ precision: 30, rounding: DecimalJs.ROUND_HALF_EVEN });
-export type Decimal = InstanceType<typeof Decimal>;
+const Decimal30 = DecimalJs.clone({ precision: 30, rounding: DecimalJs.ROUND_HALF_EVEN });
+export type Decimal = InstanceType<typeof Decimal30>;
 export type DecimalInput = Decimal | number | string;
+export type NumberKind = 'decimal' | 'float64';
 
-export const ZERO = new Decimal(0);
-export const ONE = new Decimal(1);
+const kinds = {
+	decimal: { Decimal: Decimal30, ZERO: new Decimal30(0), ONE: new Decimal30(1), PI: Decimal30.acos(-1) },
+	// The engine sees float64 through decimal.js's type: it calls only methods Float64 has.
+	float64: {
+		Decimal: Float64 as unknown as typeof Decimal30,
+		ZERO: new Float64(0) as unknown as Decimal,
+		ONE: new Float64(1) as unknown as Decimal,
+		PI: new Float64(Math.PI) as unknown as Decimal
+	}
+};
+
+export let Decimal = kinds.decimal.Decimal;
+export let ZERO: Decimal = kinds.decimal.ZERO;
+export let ONE: Decimal = kinds.decimal.ONE;
+export let PI: Decimal = kinds.decimal.PI;
+let current: NumberKind = 'decimal';
+
+/** The number kind the engine is running over now. */
+export function numberKind(): NumberKind {
+	return current;
+}
+
+function bind(kind: NumberKind) {
+	current = kind;
+	({ Decimal, ZERO, ONE, PI } = kinds[kind]);
+}
+
+/** Run a synchronous engine call over float64 numbers. Its results hold Float64 values (read them with toNumber). */
+export function withFloat64<T>(fn: () => T): T {
+	if (current === 'float64') return fn();
+	bind('float64');
+	try {
+		const result = fn();
+		if (result instanceof Promise) throw new Error('withFloat64 runs synchronous engine calls only');
+		return result;
+	} finally {
+		bind('decimal');
+	}
+}
 
 export function dec(value: DecimalInput): Decimal {
 	return value instanceof Decimal ? value : new Decimal(value);

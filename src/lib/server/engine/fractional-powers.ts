@@ -6,7 +6,7 @@
  * the float64 root, which doubles the correct digits each step) and kept, so
  * a power is one integer power of it (repeated squaring).
  */
-import { Decimal } from './decimal';
+import { Decimal, numberKind } from './decimal';
 
 const DIVISORS_OF_24 = [1, 2, 3, 4, 6, 8, 12, 24];
 const ROOT_CACHE_SIZE = 256;
@@ -21,6 +21,7 @@ export function periodsPerYearOf(times: readonly number[]): number {
 /** g^(1/m), g > 0, to the precision of the engine's decimals. */
 export function rootOf(g: Decimal, m: number): Decimal {
 	if (m === 1) return g;
+	if (numberKind() === 'float64') return new Decimal(Math.pow(g.toNumber(), 1 / m));
 	const key = `${g.toString()}|${m}`;
 	const known = roots.get(key);
 	if (known) return known;

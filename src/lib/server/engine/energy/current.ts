@@ -3,9 +3,9 @@
  * Speeds in m/s, density in kg/m^3, areas in m^2, power in kW.
  */
 import { dec, Decimal, ZERO, type DecimalInput } from '../decimal';
+import { PI } from '../decimal';
+export { PI };
 import type { DeviceSpec } from '../../../schemas/scenario';
-
-export const PI = Decimal.acos(-1);
 
 type RotorSpec = Extract<DeviceSpec, { kind: 'rotor' }>;
 type PowerCurveSpec = Extract<DeviceSpec, { kind: 'power-curve' }>;
