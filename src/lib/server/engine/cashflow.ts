@@ -275,14 +275,20 @@ function shieldedSculptingGuess(
  * losses carry forward, never back, so later years cannot change the debt.
  * Downside sizing cases (P90, P99 energy) run the same tax with the same
  * interest on their own EBITDA. Source: common practice.
+ *
+ * sizedOn is the operation the debt is sized on, op the one the years bring:
+ * the same but for a probabilistic draw, whose debt is sized at financial
+ * close on the estimate and then lives with the energy drawn.
  */
-export function financeCase(prep: CasePreparation, op: OperatingResult): FinancingResult {
+export function financeCase(prep: CasePreparation, op: OperatingResult, sizedOn: OperatingResult = op): FinancingResult {
 	const { finance } = prep.scenario;
 	const n = prep.timeline.operatingYears;
 	const warnings: string[] = [];
 	const terms = finance.debt;
 	type Case = { label: string; exceedancePercent: number | null; horizonYears: number | null; targetDscr: number; ebitda: readonly Decimal[]; decommissioning: readonly Decimal[] };
-	const cases: Case[] = [{ label: 'P50', exceedancePercent: null, horizonYears: null, targetDscr: terms.sizing === 'target-dscr' ? terms.targetDscr : 0, ebitda: op.ebitda, decommissioning: op.decommissioning }];
+	const cases: Case[] = [{ label: 'P50', exceedancePercent: null, horizonYears: null, targetDscr: terms.sizing === 'target-dscr' ? terms.targetDscr : 0, ebitda: sizedOn.ebitda, decommissioning: sizedOn.decommissioning }];
+	// The years as they turn out: the sized case unless the debt was sized on another estimate (a probabilistic draw).
+	const actual: Case = sizedOn === op ? cases[0] : { ...cases[0], ebitda: op.ebitda, decommissioning: op.decommissioning };
 	if (terms.sizing === 'target-dscr') {
 		for (const downside of terms.downsideCases) {
 			const energy = scaledEnergy(prep.energy, horizonExceedanceFactor(downside.exceedancePercent, downside.horizonYears, prep.energy.uncertaintySplit));
@@ -312,8 +318,8 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 
 	if (terms.sizing === 'none') {
 		const zeros = op.ebitda.map(() => ZERO);
-		const taxed = taxFor(cases[0], zeros);
-		const cfads = cfadsFor(cases[0], taxed.tax);
+		const taxed = taxFor(actual, zeros);
+		const cfads = cfadsFor(actual, taxed.tax);
 		return {
 			debt: null,
 			interest: zeros,
@@ -356,7 +362,7 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 	const overLife = (values: readonly Decimal[]) => Array.from({ length: n }, (_, k) => values[k] ?? ZERO);
 	const flow = (debt: DebtStructure) =>
 		runWaterfall({
-			cfads: cfadsFor(cases[0], taxFor(cases[0], overLife(interest)).tax),
+			cfads: cfadsFor(actual, taxFor(actual, overLife(interest)).tax),
 			loanRows: debt.rows,
 			interestRate: terms.interestRate,
 			debtServiceReserve: dsraSpec,
@@ -407,8 +413,8 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 	// Tax on the waterfall's own interest, then the waterfall on that CFADS: without a sweep the interest is the
 	// loan's and the ledger closes exactly; with one, the two interest vectors agree to the tolerance above.
 	interest = overLife(sweeps ? flow(debt).interest : debt.rows.map((r) => r.interest));
-	const taxed = taxFor(cases[0], interest);
-	const cfads = cfadsFor(cases[0], taxed.tax);
+	const taxed = taxFor(actual, interest);
+	const cfads = cfadsFor(actual, taxed.tax);
 	const waterfall = flow(debt);
 	if (!converged) warnings.push('The debt and tax calculation did not settle; debt figures may be slightly off.');
 	warnings.push(...debt.warnings, ...waterfall.warnings);
@@ -429,7 +435,7 @@ export function financeCase(prep: CasePreparation, op: OperatingResult): Financi
 	};
 }
 
-/** The same energy estimate with its net energy scaled (a downside case's P90 or P99 energy). */
-function scaledEnergy(energy: EnergyEstimate, factor: Decimal): EnergyEstimate {
+/** The same energy estimate with its net energy scaled (a downside case's P90 or P99 energy, a draw's outturn). */
+export function scaledEnergy(energy: EnergyEstimate, factor: Decimal): EnergyEstimate {
 	return { ...energy, netAepMWh: energy.netAepMWh.times(factor) };
 }

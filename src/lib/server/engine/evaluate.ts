@@ -12,7 +12,7 @@ import { byConstructionYear } from './timeline';
 import { coverShortfalls, coverShortfallWarnings, type CoverShortfalls } from './cover-shortfalls';
 import type { Scenario } from '../../schemas/scenario';
 import { estimateEnergy, type EnergyEstimate, type Exceedance } from './energy/yield';
-import { financeCase, operate, prepareCase, type CasePreparation, type FinancingResult, type OperatingResult } from './cashflow';
+import { financeCase, operate, prepareCase, scaledEnergy, withEnergy, type CasePreparation, type FinancingResult, type OperatingResult } from './cashflow';
 import { nominalPricePath } from './revenue';
 import { coverRatios, discountedLcoe, type CoverRatios, fixedChargeRateLcoe, internalRate, loanLifeCoverRatio, paybackYears, timedFlows } from './metrics';
 import { multipleIrrWarning, paybackReversalWarning } from './metric-warnings';
@@ -40,6 +40,11 @@ export type EvaluateOptions = {
 	energy?: EnergyEstimate;
 	/** Solve the breakeven tariff (a few extra cash-flow passes). Default true. */
 	breakeven?: boolean;
+	/**
+	 * The years deliver this multiple of the estimated net energy, while the debt is sized on the estimate
+	 * (a probabilistic draw of the energy uncertainty). Default 1: the years deliver the estimate.
+	 */
+	energyOutturn?: number;
 };
 
 /** Metrics that need the debt and levered-tax pass. */
@@ -49,12 +54,16 @@ type Computed = Omit<DetailedEvaluation, 'financing'> & { financing: FinancingRe
 
 /** Runs the stages the wanted metrics need; metrics not wanted are null without a warning. */
 function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlySet<MetricKey>): Computed {
-	const energy = options.energy ?? estimateEnergy(scenario);
-	const prep = prepareCase(scenario, energy);
-	const prices = nominalPricePath(scenario.revenue, prep.tariffInflation, prep.timeline.operatingYears);
-	const operating = operate(prep, prices);
+	const estimate = options.energy ?? estimateEnergy(scenario);
+	const sizingPrep = prepareCase(scenario, estimate);
+	const prices = nominalPricePath(scenario.revenue, sizingPrep.tariffInflation, sizingPrep.timeline.operatingYears);
+	const sizingOperating = operate(sizingPrep, prices);
+	const outturn = options.energyOutturn ?? 1;
+	const energy = outturn === 1 ? estimate : scaledEnergy(estimate, new Decimal(outturn));
+	const prep = outturn === 1 ? sizingPrep : withEnergy(sizingPrep, energy);
+	const operating = outturn === 1 ? sizingOperating : operate(prep, prices);
 	const needsFinancing = [...wanted].some((m) => FINANCING_METRICS.has(m));
-	const financing = needsFinancing ? financeCase(prep, operating) : null;
+	const financing = needsFinancing ? financeCase(sizingPrep, operating, sizingOperating) : null;
 	const warnings = [...energy.warnings, ...prep.warnings, ...(financing?.warnings ?? [])];
 	const note = (metric: MetricKey, reason: string) => warnings.push(`${METRICS[metric].label} is not available: ${reason}.`);
 	const want = (m: MetricKey) => wanted.has(m);
@@ -142,6 +151,12 @@ export function evaluateDetailed(scenario: Scenario, options: EvaluateOptions = 
  */
 export function evaluateMetric(scenario: Scenario, metric: MetricKey, energy?: EnergyEstimate): Decimal | null {
 	return compute(scenario, { energy }, new Set([metric])).metrics[metric];
+}
+
+/** Several metrics, running only the stages they need (the draws of a probabilistic run). */
+export function evaluateMetrics<K extends MetricKey>(scenario: Scenario, metrics: readonly K[], options: EvaluateOptions = {}): { metrics: Record<K, Decimal | null>; warnings: string[] } {
+	const computed = compute(scenario, options, new Set(metrics));
+	return { metrics: computed.metrics, warnings: computed.warnings };
 }
 
 // ---------------------------------------------------------------- plain-data result
