@@ -45,6 +45,8 @@ export type EvaluateOptions = {
 	 * (a probabilistic draw of the energy uncertainty). Default 1: the years deliver the estimate.
 	 */
 	energyOutturn?: number;
+	/** Look for the warnings that cost extra passes (several IRRs, payback reversing). Default true; draws skip them. */
+	extraChecks?: boolean;
 };
 
 /** Metrics that need the debt and levered-tax pass. */
@@ -67,8 +69,11 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 	const warnings = [...energy.warnings, ...prep.warnings, ...(financing?.warnings ?? [])];
 	const note = (metric: MetricKey, reason: string) => warnings.push(`${METRICS[metric].label} is not available: ${reason}.`);
 	const want = (m: MetricKey) => wanted.has(m);
-	const warnIf = (sentence: string | null) => {
-		if (sentence !== null) warnings.push(sentence);
+	const extraChecks = options.extraChecks !== false;
+	const warnIf = (sentence: () => string | null) => {
+		if (!extraChecks) return;
+		const text = sentence();
+		if (text !== null) warnings.push(text);
 	};
 
 	const lcoe = discountedLcoe(prep);
@@ -79,7 +84,7 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 		if (!want(metric)) return null;
 		const result = internalRate(series, times);
 		if (result.rate === null) note(metric, result.reason);
-		else warnIf(multipleIrrWarning(METRICS[metric].label, timedFlows(series, times), result.rate));
+		else warnIf(() => multipleIrrWarning(METRICS[metric].label, timedFlows(series, times), result.rate));
 		return result.rate;
 	};
 
@@ -87,7 +92,7 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 	if (want('paybackYears')) {
 		payback = paybackYears(operating.projectPostTax);
 		if (payback === null) note('paybackYears', 'the cumulative post-tax cash flow never turns positive');
-		else warnIf(paybackReversalWarning(METRICS.paybackYears.label, operating.projectPostTax));
+		else warnIf(() => paybackReversalWarning(METRICS.paybackYears.label, operating.projectPostTax));
 	}
 
 	let cover: CoverRatios = { perYear: [], min: null, average: null };

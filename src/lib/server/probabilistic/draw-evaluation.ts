@@ -34,7 +34,7 @@ export function scenarioForDraw(base: Scenario, drivers: DrawInput['drivers']): 
 export function evaluateDraw(base: Scenario, draw: DrawInput): DrawOutcome {
 	const scenario = scenarioForDraw(base, draw.drivers);
 	try {
-		const { metrics } = withFloat64(() => evaluateMetrics(scenario, RUN_OUTPUTS, { breakeven: false, energyOutturn: draw.energyOutturn }));
+		const { metrics } = withFloat64(() => evaluateMetrics(scenario, RUN_OUTPUTS, { breakeven: false, energyOutturn: draw.energyOutturn, extraChecks: false }));
 		const outcome = {} as DrawOutcome;
 		for (const key of RUN_OUTPUTS) {
 			const value = metrics[key]?.toNumber() ?? null;
