@@ -36,7 +36,8 @@ export const METHOD_NOTES = [
 	{ slug: 'reserves', title: 'Reserve accounts: debt service, maintenance and decommissioning' },
 	{ slug: 'covenants', title: 'Covenants: lock-up, default and cash sweep' },
 	{ slug: 'breakeven-tariff', title: 'Breakeven tariff' },
-	{ slug: 'sensitivity', title: 'Sensitivity: tornado and spider' }
+	{ slug: 'sensitivity', title: 'Sensitivity: tornado and spider' },
+	{ slug: 'probabilistic-runs', title: 'Probabilistic runs: P10, P50 and P90 of every result' }
 ] as const satisfies readonly MethodNote[];
 
 export type MethodSlug = (typeof METHOD_NOTES)[number]['slug'];

@@ -15,6 +15,11 @@ describe('summaryNoteSlugs', () => {
 		expect(summaryNoteSlugs('wave', true)).toContain('sensitivity');
 	});
 
+	it('prints the probabilistic-runs note only beside a run', () => {
+		expect(summaryNoteSlugs('wave', true)).not.toContain('probabilistic-runs');
+		expect(summaryNoteSlugs('wave', false, true)).toContain('probabilistic-runs');
+	});
+
 	it('keeps the reading order of the notes', () => {
 		const order = METHOD_NOTES.map((n) => n.slug as string);
 		const slugs = summaryNoteSlugs('ocean-current', true);

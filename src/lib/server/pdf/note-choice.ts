@@ -4,9 +4,12 @@ import type { Technology } from '../../technology';
 
 /**
  * The notes a summary prints, in reading order: every note but the power
- * note of the other kind of device, and the sensitivity note only beside a tornado.
+ * note of the other kind of device, the sensitivity note only beside a
+ * tornado and the probabilistic-runs note only beside a run.
  */
-export function summaryNoteSlugs(technology: Technology, withTornado: boolean): string[] {
+export function summaryNoteSlugs(technology: Technology, withTornado: boolean, withRun = false): string[] {
 	const otherPower = technology === 'wave' ? 'current-power' : 'wave-power';
-	return METHOD_NOTES.map((n) => n.slug as string).filter((slug) => slug !== otherPower && (withTornado || slug !== 'sensitivity'));
+	return METHOD_NOTES.map((n) => n.slug as string).filter(
+		(slug) => slug !== otherPower && (withTornado || slug !== 'sensitivity') && (withRun || slug !== 'probabilistic-runs')
+	);
 }
