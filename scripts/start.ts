@@ -1,6 +1,7 @@
 /**
  * One command for a working Tidewright: local PostgreSQL (migrated, seeded when
- * empty), the local stand-ins, a build when the sources changed, and the app on
+ * empty), the local stand-ins, a build when the sources changed, one worker
+ * for probabilistic runs (scripts/worker.ts), and the app on
  * http://127.0.0.1:3000. Ctrl-C stops everything it started.
  *
  *   tsx scripts/start.ts          production build (adapter-node)
@@ -21,6 +22,7 @@ const origin = process.env.ORIGIN ?? `http://${host}:${port}`;
 
 const services: RunningService[] = [];
 let app: ChildProcess | undefined;
+let worker: ChildProcess | undefined;
 let stopping = false;
 
 function newestMtime(path: string): number {
@@ -41,22 +43,27 @@ function buildIsStale(): boolean {
 	return inputs.some((input) => newestMtime(join(projectRoot, input)) > builtAt);
 }
 
+/** SIGTERM, then SIGKILL when the child is still there after `graceMs`. */
+async function stopChild(child: ChildProcess | undefined, graceMs: number) {
+	if (!child || child.exitCode !== null || child.signalCode !== null) return;
+	child.kill('SIGTERM');
+	await new Promise((resolve) => {
+		const timer = setTimeout(() => {
+			child.kill('SIGKILL');
+			resolve(undefined);
+		}, graceMs);
+		child.once('exit', () => {
+			clearTimeout(timer);
+			resolve(undefined);
+		});
+	});
+}
+
 async function shutdown(code: number) {
 	if (stopping) return;
 	stopping = true;
-	if (app && app.exitCode === null) {
-		app.kill('SIGTERM');
-		await new Promise((resolve) => {
-			const timer = setTimeout(() => {
-				app?.kill('SIGKILL');
-				resolve(undefined);
-			}, 5_000);
-			app?.once('exit', () => {
-				clearTimeout(timer);
-				resolve(undefined);
-			});
-		});
-	}
+	// The worker finishes the chunk in hand (well under a second) before PostgreSQL stops.
+	await Promise.all([stopChild(app, 5_000), stopChild(worker, 10_000)]);
 	for (const service of services.reverse()) {
 		try {
 			await service.stop();
@@ -93,6 +100,18 @@ async function main() {
 		const status = await new Promise<number | null>((resolve) => demoBilling.once('exit', resolve));
 		if (status !== 0) throw new Error('the demo subscriptions could not be made in the Stripe stand-in');
 	}
+
+	// Probabilistic runs are computed apart from the web server, by worker processes
+	// taking jobs from PostgreSQL: one here (`npm run worker` starts more). Node with
+	// tsx's loader rather than the tsx command, so the child is the worker itself.
+	worker = spawn(process.execPath, ['--import', 'tsx', 'scripts/worker.ts'], {
+		cwd: projectRoot,
+		env: { ...env, TSX_TSCONFIG_PATH: 'scripts/tsconfig.json' },
+		stdio: 'inherit'
+	});
+	worker.once('exit', (code, signal) => {
+		if (!stopping) console.error(`[start] the worker exited (${code ?? signal}); probabilistic runs wait until a worker runs (npm run worker)`);
+	});
 
 	if (dev) {
 		app = spawn('npx', ['vite', 'dev', '--host', host, '--port', port, '--strictPort'], {
