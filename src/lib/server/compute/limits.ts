@@ -18,7 +18,8 @@ export const COMPUTE_LIMITS = {
 	spider: { points: 30, windowSeconds: 60, words: 'spider runs' },
 	compare: { points: 60, windowSeconds: 60, words: 'comparisons' },
 	export: { points: 60, windowSeconds: 60, words: 'exports' },
-	upload: { points: 60, windowSeconds: 60, words: 'uploads' }
+	upload: { points: 60, windowSeconds: 60, words: 'uploads' },
+	'probabilistic-run': { points: 10, windowSeconds: 60, words: 'probabilistic runs started' }
 } as const satisfies Record<string, { points: number; windowSeconds: number; words: string }>;
 
 export type ComputeAction = keyof typeof COMPUTE_LIMITS;

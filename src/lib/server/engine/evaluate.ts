@@ -160,7 +160,7 @@ export function evaluateMetric(scenario: Scenario, metric: MetricKey, energy?: E
 
 /** Several metrics, running only the stages they need (the draws of a probabilistic run). */
 export function evaluateMetrics<K extends MetricKey>(scenario: Scenario, metrics: readonly K[], options: EvaluateOptions = {}): { metrics: Record<K, Decimal | null>; warnings: string[] } {
-	const computed = compute(scenario, options, new Set(metrics));
+	const computed = compute(scenario, options, new Set<MetricKey>(metrics));
 	return { metrics: computed.metrics, warnings: computed.warnings };
 }
 
