@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { averageRanks, cumulativeCurve, histogram, presentValues, probabilityBelow, quantile, spearman, summarise } from './statistics';
+import { averageRanks, cumulativeCurve, histogram, presentValues, probabilityBelow, quantile, spearman, spearmanTable, summarise } from './statistics';
 
 describe('quantile (Hyndman and Fan definition 7)', () => {
 	it("matches numpy.percentile's documented example", () => {
@@ -149,5 +149,20 @@ describe('spearman', () => {
 describe('presentValues', () => {
 	it('drops null, NaN and infinities', () => {
 		expect(presentValues([1, null, Number.NaN, Number.POSITIVE_INFINITY, -2])).toEqual([1, -2]);
+	});
+});
+
+describe('spearmanTable', () => {
+	it('gives what spearman gives pair by pair, missing output values left out per output', () => {
+		const f1 = [1, 5, 2, 8, 3, 9, 4];
+		const f2 = [7, 1, 6, 2, 5, 4, 3];
+		const full = [2, 10, 3, 20, 4, 30, 5];
+		const gappy = [null, 1, 2, null, 9, 3, 4];
+		const table = spearmanTable([f1, f2], [full, gappy]);
+		expect(table).toEqual([
+			[spearman(f1, full), spearman(f1, gappy)],
+			[spearman(f2, full), spearman(f2, gappy)]
+		]);
+		expect(table[0][0]).toBe(1);
 	});
 });

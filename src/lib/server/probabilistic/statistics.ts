@@ -194,14 +194,16 @@ export function spearman(x: readonly (number | null)[], y: readonly (number | nu
 	const keep = x.map((v, i) => v !== null && Number.isFinite(v) && y[i] !== null && Number.isFinite(y[i]));
 	const xs = x.filter((_, i) => keep[i]) as number[];
 	const ys = y.filter((_, i) => keep[i]) as number[];
-	if (xs.length < 2) return null;
-	const rx = averageRanks(xs);
-	const ry = averageRanks(ys);
-	const mean = (xs.length + 1) / 2; // the mean of average ranks is always (n + 1) / 2
+	return xs.length < 2 ? null : rankPearson(averageRanks(xs), averageRanks(ys));
+}
+
+/** Pearson correlation of two lists of average ranks 1..n (their mean is always (n + 1) / 2). */
+function rankPearson(rx: readonly number[], ry: readonly number[]): number | null {
+	const mean = (rx.length + 1) / 2;
 	let sxy = 0;
 	let sxx = 0;
 	let syy = 0;
-	for (let i = 0; i < xs.length; i++) {
+	for (let i = 0; i < rx.length; i++) {
 		const dx = rx[i] - mean;
 		const dy = ry[i] - mean;
 		sxy += dx * dy;
@@ -209,4 +211,31 @@ export function spearman(x: readonly (number | null)[], y: readonly (number | nu
 		syy += dy * dy;
 	}
 	return sxx === 0 || syy === 0 ? null : sxy / Math.sqrt(sxx * syy);
+}
+
+/**
+ * spearman(factor, output) for every factor (always present) and output, with
+ * each column ranked once per set of draws the outputs leave out: a run of
+ * 50,000 draws and 15 drivers ranks 20 columns instead of 150.
+ */
+export function spearmanTable(factors: readonly (readonly number[])[], outputs: readonly (readonly (number | null)[])[]): (number | null)[][] {
+	const byMask = new Map<string, { kept: number[]; factorRanks: number[][] }>();
+	const columnsFor = (output: readonly (number | null)[]) => {
+		const kept = output.flatMap((v, i) => (v !== null && Number.isFinite(v) ? [i] : []));
+		const key = kept.length === output.length ? 'all' : kept.join(',');
+		let entry = byMask.get(key);
+		if (!entry) {
+			entry = { kept, factorRanks: factors.map((f) => averageRanks(kept.map((i) => f[i]))) };
+			byMask.set(key, entry);
+		}
+		return entry;
+	};
+	const table = factors.map(() => new Array<number | null>(outputs.length).fill(null));
+	outputs.forEach((output, o) => {
+		const { kept, factorRanks } = columnsFor(output);
+		if (kept.length < 2) return;
+		const outputRanks = averageRanks(kept.map((i) => output[i] as number));
+		factorRanks.forEach((ranks, f) => (table[f][o] = rankPearson(ranks, outputRanks)));
+	});
+	return table;
 }

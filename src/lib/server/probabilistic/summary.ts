@@ -7,7 +7,7 @@
  */
 import type { ProbabilisticDriverId } from '../../schemas/probabilistic';
 import { RUN_OUTPUTS, type RunOutput } from './draw-evaluation';
-import { cumulativeCurve, histogram, probabilityBelow, spearman, summarise, type CurvePoint, type Histogram, type Summary } from './statistics';
+import { cumulativeCurve, histogram, probabilityBelow, spearmanTable, summarise, type CurvePoint, type Histogram, type Summary } from './statistics';
 
 /** Every draw of a run, in draw order: each output (null where the draw has none), each drawn driver, the energy factor. */
 export interface RunDraws {
@@ -75,6 +75,10 @@ export function summariseRun(draws: RunDraws, options: SummaryOptions): RunSumma
 	const { minDscr, equityIrr } = draws.outputs;
 	const factors: { factor: FactorImportance['factor']; values: number[] }[] = options.drivers.map((driver) => ({ factor: driver, values: draws.drivers[driver] ?? [] }));
 	if (options.energyUncertainty) factors.push({ factor: 'energyFactor', values: draws.energyFactor });
+	const correlations = spearmanTable(
+		factors.map((f) => f.values),
+		RUN_OUTPUTS.map((key) => draws.outputs[key])
+	);
 	return {
 		draws: draws.energyFactor.length,
 		outputs,
@@ -83,11 +87,12 @@ export function summariseRun(draws: RunDraws, options: SummaryOptions): RunSumma
 		probabilities: {
 			minDscrBelowLockUp: options.lockUpDscr === null ? null : probabilityBelow(minDscr, options.lockUpDscr),
 			minDscrBelowOne: probabilityBelow(minDscr, 1),
-			equityIrrBelowHurdle: probabilityBelow(equityIrr, options.hurdleRate)
+			// No equity IRR: the equity never earns its money back, short of any hurdle.
+			equityIrrBelowHurdle: probabilityBelow(equityIrr, options.hurdleRate, 'below')
 		},
-		importance: factors.map(({ factor, values }) => ({
+		importance: factors.map(({ factor }, f) => ({
 			factor,
-			rankCorrelation: Object.fromEntries(RUN_OUTPUTS.map((key) => [key, spearman(values, draws.outputs[key])])) as Record<RunOutput, number | null>
+			rankCorrelation: Object.fromEntries(RUN_OUTPUTS.map((key, o) => [key, correlations[f][o]])) as Record<RunOutput, number | null>
 		}))
 	};
 }

@@ -159,7 +159,10 @@ type AssessedEnergy = Extract<Scenario['resource'], { kind: 'assessed-energy' }>
  * the assessment's (a given P90 or total sigma counts as long-term; see
  * sigmaFromExceedance for a P90).
  */
-function uncertaintyComponents(scenario: Scenario, assessed: AssessedEnergy | null): { sigma: Decimal; kind: UncertaintyKind }[] {
+export function uncertaintyComponents(
+	scenario: Scenario,
+	assessed: AssessedEnergy | null = scenario.resource.kind === 'assessed-energy' ? scenario.resource : null
+): { sigma: Decimal; kind: UncertaintyKind }[] {
 	const components = scenario.uncertainty.components.map((c) => ({ sigma: dec(c.sigma), kind: c.kind }));
 	if (!assessed) return components;
 	const own: { sigma: Decimal; kind: UncertaintyKind }[] = [];
