@@ -1,7 +1,7 @@
 /**
  * One command for a working Tidewright: local PostgreSQL (migrated, seeded when
- * empty), the local stand-ins, a build when the sources changed, one worker
- * for probabilistic runs (scripts/worker.ts), and the app on
+ * empty), the local stand-ins, a build when the sources changed, the workers
+ * for probabilistic runs (scripts/worker.ts; PROBABILISTIC_WORKERS, default 1), and the app on
  * http://127.0.0.1:3000. Ctrl-C stops everything it started.
  *
  *   tsx scripts/start.ts          production build (adapter-node)
@@ -22,7 +22,7 @@ const origin = process.env.ORIGIN ?? `http://${host}:${port}`;
 
 const services: RunningService[] = [];
 let app: ChildProcess | undefined;
-let worker: ChildProcess | undefined;
+const workers: ChildProcess[] = [];
 let stopping = false;
 
 function newestMtime(path: string): number {
@@ -62,8 +62,8 @@ async function stopChild(child: ChildProcess | undefined, graceMs: number) {
 async function shutdown(code: number) {
 	if (stopping) return;
 	stopping = true;
-	// The worker finishes the chunk in hand (well under a second) before PostgreSQL stops.
-	await Promise.all([stopChild(app, 5_000), stopChild(worker, 10_000)]);
+	// Each worker finishes the chunk in hand (well under a second) before PostgreSQL stops.
+	await Promise.all([stopChild(app, 5_000), ...workers.map((w) => stopChild(w, 10_000))]);
 	for (const service of services.reverse()) {
 		try {
 			await service.stop();
@@ -72,6 +72,14 @@ async function shutdown(code: number) {
 		}
 	}
 	process.exit(code);
+}
+
+/** Worker processes to start: PROBABILISTIC_WORKERS, default 1. */
+function workerCount(): number {
+	const raw = process.env.PROBABILISTIC_WORKERS ?? '1';
+	const count = Number(raw);
+	if (!Number.isInteger(count) || count < 0 || count > 64) throw new Error(`PROBABILISTIC_WORKERS must be a whole number from 0 to 64; it is "${raw}".`);
+	return count;
 }
 
 async function main() {
@@ -102,16 +110,19 @@ async function main() {
 	}
 
 	// Probabilistic runs are computed apart from the web server, by worker processes
-	// taking jobs from PostgreSQL: one here (`npm run worker` starts more). Node with
+	// taking jobs from PostgreSQL: one here unless PROBABILISTIC_WORKERS says otherwise (`npm run worker` starts more anywhere). Node with
 	// tsx's loader rather than the tsx command, so the child is the worker itself.
-	worker = spawn(process.execPath, ['--import', 'tsx', 'scripts/worker.ts'], {
-		cwd: projectRoot,
-		env: { ...env, TSX_TSCONFIG_PATH: 'scripts/tsconfig.json' },
-		stdio: 'inherit'
-	});
-	worker.once('exit', (code, signal) => {
-		if (!stopping) console.error(`[start] the worker exited (${code ?? signal}); probabilistic runs wait until a worker runs (npm run worker)`);
-	});
+	for (let i = 0; i < workerCount(); i++) {
+		const worker = spawn(process.execPath, ['--import', 'tsx', 'scripts/worker.ts'], {
+			cwd: projectRoot,
+			env: { ...env, TSX_TSCONFIG_PATH: 'scripts/tsconfig.json' },
+			stdio: 'inherit'
+		});
+		worker.once('exit', (code, signal) => {
+			if (!stopping) console.error(`[start] a worker exited (${code ?? signal}); probabilistic runs wait until a worker runs (npm run worker)`);
+		});
+		workers.push(worker);
+	}
 
 	if (dev) {
 		app = spawn('npx', ['vite', 'dev', '--host', host, '--port', port, '--strictPort'], {

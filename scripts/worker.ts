@@ -13,8 +13,11 @@
  * Optional settings, in seconds:
  *   PROBABILISTIC_MAINTENANCE_SECONDS  how often lost jobs are looked for (default 10)
  *   PROBABILISTIC_POLL_SECONDS         how long an idle worker waits before looking for work again (default 1)
+ *
+ * The worker lowers its own priority (nice +10, as the web server's compute
+ * threads do): on a machine shared with a web process, requests go first.
  */
-import { hostname } from 'node:os';
+import { hostname, setPriority } from 'node:os';
 import { closeDb } from '../src/lib/server/db/knex';
 import { DEFAULT_MAINTENANCE_INTERVAL_SECONDS, openQueue, workChunks } from '../src/lib/server/probabilistic/queue';
 import { chunkHandlers } from '../src/lib/server/probabilistic/runs';
@@ -48,6 +51,12 @@ for (const signal of ['SIGTERM', 'SIGINT'] as const) {
 		console.log(`[worker ${process.pid}] ${signal}: finishing the chunk in hand, then stopping`);
 		stop.abort();
 	});
+}
+
+try {
+	setPriority(10);
+} catch {
+	// Not allowed here (some containers): the worker runs at the usual priority.
 }
 
 try {
