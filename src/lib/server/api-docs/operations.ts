@@ -36,6 +36,7 @@ import {
 import { pageCursorSchema, pageLimitSchema } from '../../schemas/paging';
 import { portfolioQueryFields, portfolioResponseSchema } from '../../schemas/portfolio';
 import { scenarioSchema } from '../../schemas/scenario';
+import { runInputSchema } from '../../schemas/probabilistic';
 import {
 	applyUploadBody,
 	createProjectBody,
@@ -67,6 +68,7 @@ export const apiTags = {
 	Scenarios: 'Scenarios: a document of assumptions, saved as numbered revisions.',
 	Results: 'Figures calculated from a scenario: metrics, cash flows, sensitivity, comparison and exports.',
 	Uploads: 'Resource and device data uploaded as CSV files and applied to scenarios.',
+	Runs: 'Probabilistic runs: every chosen driver drawn at once, thousands of times, by worker processes; P10, P50 and P90 of the results.',
 	Portfolio: "Every project of your workspaces with its base case's stored key figures, to read side by side.",
 	Billing: "Stripe's event deliveries. Plans and seats are managed on the billing page in the browser, never with an API token."
 } as const;
@@ -93,7 +95,7 @@ export interface RequestBodySpec {
 }
 
 export interface ResponseSpec {
-	status: 200 | 201 | 204 | 503;
+	status: 200 | 201 | 202 | 204 | 503;
 	description: string;
 	/** The JSON answered; absent for files and empty answers. */
 	json?: z.ZodType;
@@ -128,7 +130,8 @@ export const pathParameters: Record<string, ParameterSpec> = {
 	projectId: { description: 'The project id', schema: z.guid() },
 	scenarioId: { description: 'The scenario id', schema: z.guid() },
 	uploadId: { description: 'The upload id', schema: z.guid() },
-	revision: { description: 'A revision number of the scenario (1 is the first save)', schema: z.int().min(1) }
+	revision: { description: 'A revision number of the scenario (1 is the first save)', schema: z.int().min(1) },
+	runId: { description: 'The probabilistic run id', schema: z.guid() }
 };
 
 /** A JSON body whose `document` field is described as a scenario document (the route checks it separately). */
@@ -170,6 +173,43 @@ const portfolioDescription =
 	"Each project, live and archived, with its base case (the live scenario marked so) and the figures of that base case's stored result for the current engine. A project without them is listed too, with the reason in missing and reason. A workspaceId you are not a member of answers 404, like any other workspace (an API token reaches its own workspace only).";
 
 const projectEnvelope = z.object({ project: projectJsonSchema });
+
+const runProgressSchema = z.object({
+	drawsDone: z.int(),
+	draws: z.int(),
+	fraction: z.number(),
+	etaSeconds: z.number().nullable().describe('Seconds left at the rate so far; null before the first chunk is in or once the run has ended')
+});
+const runFields = {
+	id: z.guid(),
+	workspaceId: z.guid(),
+	projectId: z.guid(),
+	scenarioId: z.guid(),
+	scenarioRevision: z.int().describe('The revision the run drew on'),
+	engineVersion: z.string(),
+	seed: z.int(),
+	draws: z.int(),
+	chunkSize: z.int(),
+	state: z.enum(['queued', 'running', 'done', 'cancelled', 'failed']),
+	drawsDone: z.int(),
+	failure: z.string().nullable(),
+	createdBy: z.guid().nullable(),
+	createdAt: z.iso.datetime(),
+	startedAt: z.iso.datetime().nullable(),
+	finishedAt: z.iso.datetime().nullable(),
+	progress: runProgressSchema
+};
+const runJsonSchema = z.object({
+	...runFields,
+	input: runInputSchema,
+	summary: z
+		.record(z.string(), z.unknown())
+		.nullable()
+		.describe(
+			'Once done: per output (lcoeReal, projectIrrPostTax, equityIrr, npv, minDscr) the statistics (mean, sd, min, max, p10, p50, p90: P90 is the value reached or bettered in 90 % of the draws), a histogram and a cumulative curve; the probabilities of the minimum DSCR below the lock-up level and below 1 and of the equity IRR below the hurdle; the rank correlation of each drawn input with each output'
+		)
+});
+const runListItemJsonSchema = z.object({ ...runFields, scenarioName: z.string(), projectName: z.string(), createdByName: z.string().nullable() });
 const scenarioEnvelope = z.object({ scenario: scenarioJsonSchema });
 
 /** Shared schemas and the names the OpenAPI document gives them; anything else is named after its operation. */
@@ -591,6 +631,83 @@ export const apiOperations: ApiOperation[] = [
 		requestBody: jsonBody(withScenarioDocument(tornadoBody, draftDocument), false),
 		response: { status: 200, description: 'The rows of the tornado chart', json: tornadoResponseSchema },
 		otherErrors: [403]
+	},
+	{
+		operationId: 'listScenarioRuns',
+		method: 'GET',
+		path: '/api/v1/scenarios/{scenarioId}/runs',
+		tag: 'Runs',
+		summary: "The scenario's probabilistic runs, newest first, with their progress",
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		response: { status: 200, description: 'The runs (the latest 50)', json: z.object({ scenarioId: z.guid(), runs: z.array(runListItemJsonSchema) }) },
+		otherErrors: [402]
+	},
+	{
+		operationId: 'startRun',
+		method: 'POST',
+		path: '/api/v1/scenarios/{scenarioId}/runs',
+		tag: 'Runs',
+		summary: 'Start a probabilistic run of the saved scenario',
+		description:
+			'Draws the chosen drivers from their distributions (with rank correlations) and the energy uncertainty; the debt is sized on the estimate and the years deliver the energy drawn. The same seed, input and revision give the same results. Paid plans; at most 4 runs waiting or running in a workspace, 10 starts a minute per user.',
+		minimumRole: 'analyst',
+		apiToken: 'read-write',
+		requestBody: jsonBody(runInputSchema, true),
+		response: { status: 202, description: 'The queued run; GET it for its progress and, once done, its summary', json: z.object({ run: runJsonSchema }) },
+		otherErrors: [402, 429]
+	},
+	{
+		operationId: 'getRun',
+		method: 'GET',
+		path: '/api/v1/scenarios/{scenarioId}/runs/{runId}',
+		tag: 'Runs',
+		summary: 'One run: input, state, progress and, once done, its summary',
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		response: { status: 200, description: 'The run', json: z.object({ run: runJsonSchema }) },
+		otherErrors: [402]
+	},
+	{
+		operationId: 'cancelRun',
+		method: 'POST',
+		path: '/api/v1/scenarios/{scenarioId}/runs/{runId}/cancel',
+		tag: 'Runs',
+		summary: 'Cancel a run that is waiting or drawing',
+		minimumRole: 'analyst',
+		apiToken: 'read-write',
+		response: { status: 200, description: 'The cancelled run', json: z.object({ run: runJsonSchema }) },
+		otherErrors: [402],
+		conflict: 'The run has already ended (done, cancelled or failed); nothing was changed'
+	},
+	{
+		operationId: 'downloadRunDraws',
+		method: 'GET',
+		path: '/api/v1/scenarios/{scenarioId}/runs/{runId}/draws.csv',
+		tag: 'Runs',
+		summary: "Download every draw of a finished run as CSV",
+		description: 'One row per draw: its index, each drawn driver value, the energy factor and each output, in engine units (rates as fractions).',
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		response: { status: 200, description: 'The CSV file, as an attachment', fileTypes: ['text/csv'] },
+		otherErrors: [402],
+		conflict: 'The run is not done yet'
+	},
+	{
+		operationId: 'listWorkspaceRuns',
+		method: 'GET',
+		path: '/api/v1/workspaces/{workspaceId}/runs',
+		tag: 'Runs',
+		summary: "The workspace's probabilistic runs, newest first",
+		minimumRole: 'viewer',
+		apiToken: 'read-only',
+		query: [{ name: 'live', required: false, description: '1: only runs waiting or running', schema: z.enum(['1']) }],
+		response: {
+			status: 200,
+			description: 'The runs (the latest 50)',
+			json: z.object({ workspace: z.object({ id: z.guid(), name: z.string() }), runs: z.array(runListItemJsonSchema) })
+		},
+		otherErrors: [402]
 	},
 	{
 		operationId: 'getUpload',

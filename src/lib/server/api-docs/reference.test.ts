@@ -114,6 +114,8 @@ describe('apiReference', () => {
 			deleteScenario: expect.stringMatching(/archive it first.*its project is archived/),
 			archiveScenario: expect.stringMatching(/project is archived/),
 			markBaseCase: expect.stringMatching(/restore it before making it the base case.*its project is archived/),
+			downloadRunDraws: expect.stringMatching(/not done yet/),
+			cancelRun: expect.stringMatching(/already ended/),
 			duplicateScenario: expect.stringMatching(/project is archived/),
 			restoreScenario: expect.stringMatching(/project is archived/),
 			applyUpload: expect.stringMatching(/currentRevision.*its project is archived/)

@@ -8,9 +8,9 @@ import type { ScenarioAccess } from '../auth/access';
 import { requireFeature } from '../billing/gates';
 import { takeComputeAllowance } from '../compute/limits';
 import { getRun, listRunsOfScenario, listRunsOfWorkspace, type ProbabilisticRun, type RunListItem } from '../db/probabilistic-runs';
-import { ApiProblem, validateBody } from '../workbench/api-route';
+import { ApiProblem } from '../workbench/api-route';
 import { documentToEvaluate } from '../workbench/evaluation';
-import { runInputSchema } from '../../schemas/probabilistic';
+import type { RunInput } from '../../schemas/probabilistic';
 import { cancelRun, runProgress, startRun, type RunProgress } from './runs';
 import { energyComponentsOf } from './energy-components';
 import { createSampler } from './sampling';
@@ -55,10 +55,9 @@ export async function scenarioRuns(access: ScenarioAccess): Promise<RunListItem[
 	return listRunsOfScenario(access.scenarioId);
 }
 
-/** Starts a run of the saved scenario (analysts and owners, paid plans). The body is checked before any allowance is spent. */
-export async function startScenarioRun(access: ScenarioAccess, body: unknown): Promise<ProbabilisticRun> {
+/** Starts a run of the saved scenario (analysts and owners, paid plans), with an input already checked against runInputSchema. */
+export async function startScenarioRun(access: ScenarioAccess, input: RunInput): Promise<ProbabilisticRun> {
 	requireFeature(access.membership, 'probabilisticRuns', 'change');
-	const input = validateBody(runInputSchema, body);
 	const { document, scenario } = await documentToEvaluate(access, undefined);
 	try {
 		createSampler(input, energyComponentsOf(document), document.timeline.operatingYears);

@@ -1,6 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { authorize } from '$lib/server/auth/access';
-import { apiRoute, readJsonBody } from '$lib/server/workbench/api-route';
+import { apiRoute, readJsonBody, validateBody } from '$lib/server/workbench/api-route';
+import { runInputSchema } from '$lib/schemas/probabilistic';
 import { runListView, runView, scenarioRuns, startScenarioRun } from '$lib/server/probabilistic/run-requests';
 import type { RequestHandler } from './$types';
 
@@ -17,6 +18,6 @@ export const GET: RequestHandler = apiRoute(async (event) => {
  */
 export const POST: RequestHandler = apiRoute(async (event) => {
 	const access = await authorize(event, event.params, 'analyst');
-	const run = await startScenarioRun(access, await readJsonBody(event.request));
+	const run = await startScenarioRun(access, validateBody(runInputSchema, await readJsonBody(event.request)));
 	return json({ run: runView(run) }, { status: 202 });
 });
