@@ -48,6 +48,10 @@ import { NO_ROOM, ROOM_CLOSED, guestRoom } from '../../src/lib/server/rooms/gues
 import { validateGuestSession } from '../../src/lib/server/rooms/guest-sessions';
 import { enterByLink, requestSignInLink, signInGuest, viewGuestLink } from '../../src/lib/server/rooms/guest-sign-in';
 import { PublishProblem, buildSnapshot } from '../../src/lib/server/rooms/snapshot';
+import { latestDoneRuns } from '../../src/lib/server/rooms/publishable-runs';
+import { roomSummaryInput } from '../../src/lib/server/rooms/room-pdf';
+import { snapshotScenarioView } from '../../src/lib/server/rooms/views';
+import { handMadeInput, handMadeSummary } from '../fixtures/probabilistic-run';
 import { RoomProblem, answerRoomQuestion, attachDocument, changeTerms, createRoomForProject, inviteGuest, publishVersion, questionsForGuest, removeDocument, revokeGuest } from '../../src/lib/server/rooms/team';
 
 const ORIGIN = 'http://127.0.0.1:9';
@@ -315,6 +319,105 @@ describe('publishVersion: frozen snapshots', () => {
 		const { snapshot } = (await getRoomVersion(room.id, 1))!;
 		expect(snapshot.scenarios.map((s) => s.name)).toEqual(['Low availability', 'Base case']);
 		expect(Number(snapshot.scenarios[0].result.metrics.netAepMWh)).toBeLessThan(Number(snapshot.scenarios[1].result.metrics.netAepMWh));
+	});
+});
+
+/**
+ * A probabilistic run row as a worker leaves it, written straight into the
+ * table (migrations/20261208000001_probabilistic_runs.ts): done with the
+ * hand-made summary and a finishing time, or still running.
+ */
+async function insertRunRow(team: Team, scenario: { id: string }, revision: number, state: 'done' | 'running', finishedAt: Date | null): Promise<string> {
+	const input = handMadeInput();
+	const done = state === 'done';
+	const [row] = await database
+		.knex('probabilistic_runs')
+		.insert({
+			workspace_id: team.workspaceId,
+			project_id: team.project.id,
+			scenario_id: scenario.id,
+			scenario_revision: revision,
+			engine_version: ENGINE_VERSION,
+			input: JSON.stringify(input),
+			seed: input.seed,
+			draws: input.draws,
+			chunk_size: 50,
+			state,
+			draws_done: done ? input.draws : 0,
+			summary: done ? JSON.stringify(handMadeSummary()) : null,
+			started_at: new Date(Date.now() - 3_600_000),
+			finished_at: finishedAt
+		})
+		.returning('id');
+	return row.id as string;
+}
+
+describe('publishVersion: a probabilistic run', () => {
+	it("freezes the latest finished run of the published revision with its summary and inputs; the room page and its PDF read it back; older versions read on without one", async () => {
+		const team = await newTeam();
+		const scenario = await newScenario(team.project, 'Lender base case');
+		const plain = await newScenario(team.project, 'No run here');
+		const room = await newRoom(team);
+		const access = await roomAccess(team, room.id);
+		// Version 1, before any run: no run in its snapshot.
+		expect(await publishVersion(access, [scenario.id])).toBe(1);
+
+		// A run of revision 1, then revision 2 saved with two finished runs and one still running.
+		const hour = 3_600_000;
+		await insertRunRow(team, scenario, 1, 'done', new Date(Date.now() - hour / 4));
+		const saved = (await saveScenario({ scenarioId: scenario.id, expectedRevision: 1, notes: 'After the lenders’ review.', userId: team.owner.id }, database.knex))!;
+		expect(saved.revision).toBe(2);
+		await storeResult(saved);
+		// The latest to finish is not the latest made: "latest" goes by finishing time.
+		const latest = await insertRunRow(team, scenario, 2, 'done', new Date(Date.now() - hour / 3));
+		await insertRunRow(team, scenario, 2, 'done', new Date(Date.now() - hour / 2));
+		await insertRunRow(team, scenario, 2, 'running', null);
+
+		// What the publish page offers: the latest finished run of each scenario's saved revision, none for the other.
+		const offered = await latestDoneRuns([{ id: scenario.id, revision: 2 }, { id: plain.id, revision: 1 }], database.knex);
+		expect([...offered.keys()]).toEqual([scenario.id]);
+		expect(offered.get(scenario.id)).toMatchObject({ id: latest, scenarioRevision: 2, draws: 100 });
+
+		// A run asked for a scenario with none is refused in words, writing nothing.
+		const refusal = await thrown(() => publishVersion(access, [scenario.id, plain.id], { withRunOf: [plain.id] }));
+		expect(refusal).toBeInstanceOf(PublishProblem);
+		expect((refusal as Error).message).toBe('No run here has no finished probabilistic run of revision 1: reload the page and choose again.');
+		expect(await count('data_room_versions', { room_id: room.id })).toBe(1);
+
+		expect(await publishVersion(access, [scenario.id, plain.id], { withRunOf: [scenario.id] })).toBe(2);
+		const version = (await getRoomVersion(room.id, 2))!;
+		const [withRun, without] = version.snapshot.scenarios;
+		const input = handMadeInput();
+		expect(withRun.revision).toBe(2);
+		expect(withRun.probabilisticRun).toMatchObject({
+			runId: latest,
+			seed: input.seed,
+			draws: input.draws,
+			engineVersion: ENGINE_VERSION,
+			energyUncertainty: true,
+			hurdleRate: input.hurdleRate,
+			correlations: input.correlations
+		});
+		expect(withRun.probabilisticRun!.drivers.map((d) => [d.driver, d.label, d.distribution])).toEqual([
+			['capex', 'Capex', input.drivers[0].distribution],
+			['opex', 'Opex', input.drivers[1].distribution]
+		]);
+		expect(new Date(withRun.probabilisticRun!.finishedAt).getTime()).toBe(offered.get(scenario.id)!.finishedAt.getTime());
+		expect(withRun.probabilisticRun!.summary).toEqual(handMadeSummary());
+		expect(without.probabilisticRun).toBeUndefined();
+
+		// The room page's view and the room PDF's input carry it, with the method note on runs.
+		expect(snapshotScenarioView(version, 1).scenario.probabilisticRun).toEqual(withRun.probabilisticRun);
+		expect(snapshotScenarioView(version, 2).scenario.probabilisticRun).toBeNull();
+		const pdfInput = roomSummaryInput(room.name, version, 1, null);
+		expect(pdfInput.run).toEqual(withRun.probabilisticRun);
+		expect(pdfInput.methodNotes.map((n) => n.slug)).toContain('probabilistic-runs');
+		expect(roomSummaryInput(room.name, version, 2, null).methodNotes.map((n) => n.slug)).not.toContain('probabilistic-runs');
+
+		// Version 1, frozen before runs could be published, reads on without one.
+		const first = (await getRoomVersion(room.id, 1))!;
+		expect(snapshotScenarioView(first, 1).scenario.probabilisticRun).toBeNull();
+		expect(roomSummaryInput(room.name, first, 1, null).run).toBeNull();
 	});
 });
 

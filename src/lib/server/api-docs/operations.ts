@@ -568,9 +568,10 @@ export const apiOperations: ApiOperation[] = [
 		tag: 'Results',
 		summary: "Download a saved scenario's PDF summary",
 		description:
-			'The team copy: cover, key metrics, assumptions, the annual cash-flow table, charts (energy, cash flows, DSCR, a tornado of the real LCOE) and the method notes, with the cautions on every page.',
+			'The team copy: cover, key metrics, assumptions, the annual cash-flow table, charts (energy, cash flows, DSCR, a tornado of the real LCOE), the latest finished probabilistic run of the saved revision when there is one and the plan shows runs, and the method notes, with the cautions on every page.',
 		minimumRole: 'viewer',
 		apiToken: 'read-only',
+		query: [{ name: 'run', required: false, description: 'none: leave the probabilistic run out', schema: z.enum(['none']) }],
 		response: { status: 200, description: 'The PDF, as an attachment', fileTypes: ['application/pdf'] },
 		otherErrors: [422]
 	},

@@ -1,7 +1,8 @@
 /**
  * The summary's charts, drawn as pdfkit vector paths (no pictures, no
  * browser): energy by flow-speed bin or by sea state, annual cash flows with
- * their running total, DSCR against its target, and the tornado. Each has a
+ * their running total, DSCR against its target, the tornado, and the
+ * histogram of a probabilistic run. Each has a
  * title, axis titles, ticks and a legend, in the app's palette and the same
  * series the app's charts show. Numbers here are floats: charts only.
  */
@@ -9,6 +10,7 @@ import { METRICS, metricUnit } from '../../metrics/catalogue';
 import { chartValue, formatMetric } from '../../metrics/format';
 import type { EngineResult } from '../engine/evaluate';
 import type { TornadoResult, TornadoRow } from '../engine/sensitivity';
+import type { RunHistogramView } from '../../probabilistic/run-report';
 import { withUnit } from './assumptions';
 import { labelEvery, linearScale, niceTicks, tickLabel, type Ticks } from './chart-scale';
 import { printable } from './fonts';
@@ -432,5 +434,61 @@ export function drawTornadoChart(doc: Doc, box: Rect, tornado: TornadoResult, cu
 		{ label: 'Driver at its low value', colour: colours.positive, kind: 'bar' },
 		{ label: 'Driver at its high value', colour: colours.high, kind: 'bar' },
 		{ label: 'Base case', colour: colours.line, kind: 'line' }
+	]);
+}
+
+// ---------------------------------------------------------------- probabilistic run
+
+/** P90 in the signal colour (the lenders' case), P50 in ink, P10 in copper, as the room page draws them. */
+const PERCENTILE_COLOURS = { P90: colours.target, P50: colours.line, P10: colours.high } as const;
+
+/** A run's histogram: touching bars on a linear axis of the output, P90, P50 and P10 as dashed lines labelled above the plot. */
+export function drawRunHistogramChart(doc: Doc, box: Rect, view: RunHistogramView): void {
+	const title = `${view.label}: how ${view.count.toLocaleString('en-GB')} draws spread`;
+	if (view.bins.length === 0) return emptyNote(doc, box, title, 'No draw has a value, so there is nothing to chart.');
+	drawTitle(doc, box, title);
+	const counts = view.bins.map((b) => b.count);
+	const tallest = Math.max(1, ...counts);
+	// No more steps than draws in the tallest bar, so no tick is a fraction of a draw.
+	const yTicks = niceTicks(0, tallest, Math.min(5, tallest));
+	const first = view.bins[0].from;
+	const last = view.bins[view.bins.length - 1].to;
+	const xTicks = niceTicks(first, last, 6);
+	const plot = plotArea(doc, box, yTicks, null);
+	// Room above the plot for one marker label a row.
+	const labelRows = view.markers.length;
+	plot.y += labelRows * 9;
+	plot.height -= labelRows * 9;
+	const y = linearScale([yTicks.min, yTicks.max], [plot.y + plot.height, plot.y]);
+	const x = linearScale([xTicks.min, xTicks.max], [plot.x, plot.x + plot.width]);
+	drawYAxis(doc, plot, yTicks, y, 'left', 'Draws', box, true);
+	for (const bin of view.bins) {
+		if (bin.count === 0) continue;
+		const left = x(bin.from);
+		const width = Math.max(0.3, x(bin.to) - left - 0.6);
+		doc.rect(left + 0.3, y(bin.count), width, y(0) - y(bin.count)).fill(colours.positive);
+	}
+	const bottom = plot.y + plot.height;
+	doc.moveTo(plot.x, bottom).lineTo(plot.x + plot.width, bottom).lineWidth(0.5).strokeColor(colours.faint).stroke();
+	for (const value of xTicks.values) {
+		const px = x(value);
+		doc.moveTo(px, bottom).lineTo(px, bottom + TICK).lineWidth(0.5).strokeColor(colours.faint).stroke();
+		write(doc, tickLabel(value, xTicks.step), px - 30, bottom + TICK + 1, { width: 60, align: 'center' });
+	}
+	view.markers.forEach((marker, row) => {
+		const px = x(marker.value);
+		const colour = PERCENTILE_COLOURS[marker.name];
+		doc.moveTo(px, plot.y).lineTo(px, bottom).lineWidth(1.2).strokeColor(colour).dash(4, { space: 3 }).stroke();
+		doc.undash();
+		const label = `${marker.name} ${marker.text}`;
+		doc.font('sansBold').fontSize(type.tiny + 0.5);
+		const width = doc.widthOfString(printable(label)) + 2;
+		const left = Math.min(Math.max(px - width / 2, box.x), box.x + box.width - width);
+		write(doc, label, left, plot.y - (labelRows - row) * 9, { size: type.tiny + 0.5, colour, bold: true, width });
+	});
+	drawXTitle(doc, plot, `${view.label} (${view.unit})`);
+	drawLegend(doc, box, [
+		{ label: 'Draws in the bin', colour: colours.positive, kind: 'bar' },
+		...view.markers.map((m) => ({ label: `${m.name} ${m.text} ${view.unit}`, colour: PERCENTILE_COLOURS[m.name], kind: 'dashed' as const }))
 	]);
 }

@@ -10,6 +10,7 @@ import type { Technology } from '../../technology';
 import type { ProjectRow } from '../db/projects';
 import type { EngineResult } from '../engine/evaluate';
 import type { TornadoResult } from '../engine/sensitivity';
+import type { SnapshotRun } from '../rooms/snapshot-format';
 import { getMethodNoteSource } from '../methods/notes';
 import { fileStem } from '../workbench/export';
 import { summaryNoteSlugs } from './note-choice';
@@ -18,8 +19,8 @@ import type { ScenarioSummaryInput } from './summary';
 export { summaryNoteSlugs };
 
 /** The chosen notes with their markdown, as bundled with the app. */
-export function summaryMethodNotes(technology: Technology, withTornado: boolean): ScenarioSummaryInput['methodNotes'] {
-	return summaryNoteSlugs(technology, withTornado).flatMap((slug) => {
+export function summaryMethodNotes(technology: Technology, withTornado: boolean, withRun = false): ScenarioSummaryInput['methodNotes'] {
+	return summaryNoteSlugs(technology, withTornado, withRun).flatMap((slug) => {
 		const note = getMethodNoteSource(slug);
 		return note ? [note] : [];
 	});
@@ -34,6 +35,8 @@ export interface TeamCopySource {
 	result: EngineResult;
 	engineVersion: string;
 	tornado: TornadoResult | null;
+	/** The revision's latest finished probabilistic run, frozen as a room would freeze it; printed with its method note. */
+	run?: SnapshotRun | null;
 	date: Date;
 }
 
@@ -47,7 +50,8 @@ export function teamCopyInput(source: TeamCopySource): ScenarioSummaryInput {
 		result: source.result,
 		engineVersion: source.engineVersion,
 		tornado: source.tornado,
-		methodNotes: summaryMethodNotes(project.technology, source.tornado !== null),
+		run: source.run ?? null,
+		methodNotes: summaryMethodNotes(project.technology, source.tornado !== null, Boolean(source.run)),
 		cautions: CAUTIONS,
 		edition: { label: TEAM_EDITION_LABEL, date: source.date }
 	};

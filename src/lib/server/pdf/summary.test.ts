@@ -12,6 +12,9 @@ import { evaluateScenario } from '../engine/evaluate';
 import { defaultDrivers, tornado } from '../engine/sensitivity';
 import { CHAPTERS, renderScenarioSummaryPdf, type ScenarioSummaryInput } from './summary';
 import { summaryMethodNotes } from './summary-input';
+import { P90_CONVENTION, runProbabilities } from '../../probabilistic/run-report';
+import type { SnapshotRun } from '../rooms/snapshot-format';
+import { handMadeInput, handMadeSummary } from '../../../../tests/fixtures/probabilistic-run';
 
 // The PDF is read back with poppler's pdftotext and pdfimages (Debian's poppler-utils), as a reader's tools would.
 const EXAMPLES = ['tidal-stream-kestle-narrows', 'ocean-current-mornstrand', 'wave-orrin-bank'] as const;
@@ -202,6 +205,64 @@ describe('renderScenarioSummaryPdf', () => {
 		it('has the financing fees in the cash-flow table', () => {
 			const tablePages = read.flat.filter((page) => page.includes(CHAPTERS.cashFlow));
 			expect(tablePages[0]).toContain('Fees');
+		});
+	});
+
+	describe('a summary with a probabilistic run', () => {
+		let read: ReadBack;
+		let runPage: string;
+		beforeAll(async () => {
+			const input = handMadeInput();
+			const run: SnapshotRun = {
+				runId: '00000000-0000-4000-8000-000000000001',
+				seed: input.seed,
+				draws: input.draws,
+				engineVersion: '7',
+				finishedAt: '2026-12-08T10:30:00.000Z',
+				drivers: [
+					{ driver: 'capex', label: 'Capex', unit: 'x base', distribution: input.drivers[0].distribution },
+					{ driver: 'opex', label: 'Opex', unit: 'x base', distribution: input.drivers[1].distribution }
+				],
+				correlations: input.correlations,
+				energyUncertainty: true,
+				hurdleRate: input.hurdleRate,
+				summary: handMadeSummary()
+			};
+			const document = example('tidal-stream-kestle-narrows');
+			read = await renderAndRead({ ...inputFor(document, { tornado: false }), run, methodNotes: summaryMethodNotes(document.technology, false, true) });
+			runPage = read.flat.filter((page) => page.includes(CHAPTERS.run) && page.includes('Mean')).join(' ');
+		});
+
+		it('prints the run on a page of its own: the table of mean, P90, P50 and P10 with the words on the P90 convention', () => {
+			expect(runPage).toContain('100 draws, seed 4242, engine 7, finished 8 December 2026');
+			// Equity IRR of the hand-made run, worked by hand in tests/fixtures/probabilistic-run.ts: mean 9.50, P90 5.90, P50 9.50, P10 13.10.
+			expect(runPage).toMatch(/Equity IRR %\/yr 9\.50 5\.90 9\.50 13\.10/);
+			expect(runPage).toMatch(/LCOE, real EUR\/MWh 245\.00 281\.00 245\.00 209\.00/);
+			expect(runPage).toContain(P90_CONVENTION);
+			expect(runPage).toContain('Minimum DSCR: 10 of 100 draws have none');
+		});
+
+		it('prints the probabilities, what was drawn and the histogram of the equity IRR', () => {
+			for (const p of runProbabilities(handMadeSummary())) {
+				expect(runPage).toContain(p.label);
+				expect(runPage).toContain(p.value);
+			}
+			const all = read.flat.join(' ');
+			expect(all).toContain('Capex triangular, 90 to 135 % of base, most likely 100 % of base');
+			expect(all).toContain('Equity IRR: how 100 draws spread');
+			expect(all).toContain('P90 5.90 %/yr');
+			expect(read.imageCount).toBe(0);
+		});
+
+		it('prints the method note on probabilistic runs among the notes', () => {
+			const notes = read.flat.slice(read.flat.findIndex((page) => page.includes(CHAPTERS.notes))).join(' ');
+			expect(notes).toContain('Probabilistic runs: P10, P50 and P90 of every result');
+		});
+
+		it('leaves the run pages out of a summary without a run', async () => {
+			const without = await renderAndRead(inputFor(example('tidal-stream-kestle-narrows'), { tornado: false }));
+			expect(without.flat.join(' ')).not.toContain(P90_CONVENTION);
+			expect(without.flat.join(' ')).not.toContain('how 100 draws spread');
 		});
 	});
 

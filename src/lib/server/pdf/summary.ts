@@ -2,7 +2,8 @@
  * The PDF summary of one scenario, for investors' data rooms and for the
  * team: a cover, the key metrics (the one catalogue, formatted as the app
  * shows them), the assumptions in words, the annual cash-flow table, charts
- * drawn as vectors, and the method notes; every page carries the cautions,
+ * drawn as vectors, a probabilistic run when one is given, and the method
+ * notes; every page carries the cautions,
  * "page n of N" and, on an investor's copy, who it was prepared for.
  *
  * Pure but for the font files it reads once: everything it prints comes in
@@ -19,12 +20,14 @@ import type { EngineResult } from '../engine/evaluate';
 import type { TornadoResult } from '../engine/sensitivity';
 import { assumptionSections } from './assumptions';
 import { cashFlowTableCells } from './cash-flow-table';
-import { drawCashFlowChart, drawDscrChart, drawEnergyChart, drawTornadoChart, type Rect } from './charts';
+import { drawCashFlowChart, drawDscrChart, drawEnergyChart, drawRunHistogramChart, drawTornadoChart, type Rect } from './charts';
 import { printable, registerFonts } from './fonts';
 import { drawPageFrames, PageFlow, utcMinute, type PageFrame } from './layout';
 import { noteBlocks, type TextRun } from './markdown';
 import { colours, page, type } from './style';
 import { drawTable, tableHeight } from './tables';
+import type { SnapshotRun } from '../rooms/snapshot-format';
+import { missingNotes, P90_CONVENTION, RUN_SECTION_TITLE, runBasisLine, runFacts, runHistogram, runProbabilities, runTableRows, samplingNote } from '../../probabilistic/run-report';
 
 export interface ScenarioSummaryInput {
 	project: { name: string; technology: Technology; siteName: string; siteDescription: string; currency: string };
@@ -35,6 +38,8 @@ export interface ScenarioSummaryInput {
 	engineVersion: string;
 	/** A tornado of one metric, drawn when given. */
 	tornado?: TornadoResult | null;
+	/** A finished probabilistic run of this revision, printed on pages of its own when given (pass the 'probabilistic-runs' note with it). */
+	run?: SnapshotRun | null;
 	/** Notes from docs/methods: the title, and the markdown with its sources. */
 	methodNotes: { slug: string; title: string; markdown: string }[];
 	/** The cautions every results surface carries (src/lib/cautions.ts). */
@@ -53,6 +58,7 @@ export const CHAPTERS = {
 	assumptions: 'Assumptions',
 	cashFlow: 'Annual cash flow',
 	charts: 'Charts',
+	run: RUN_SECTION_TITLE,
 	notes: 'Method notes'
 } as const;
 
@@ -89,6 +95,7 @@ export function renderScenarioSummaryPdf(input: ScenarioSummaryInput): Promise<B
 	assumptions(flow, input);
 	cashFlow(flow, input);
 	charts(flow, input);
+	probabilisticRun(flow, input);
 	methodNotes(flow, input);
 
 	drawPageFrames(doc, frame);
@@ -266,6 +273,56 @@ function charts(flow: PageFlow, input: ScenarioSummaryInput): void {
 	place(anyCover ? 260 : 44, (box) => drawDscrChart(doc, box, result.cashFlow, targetDscrOf(document.finance.debt), downside));
 	const tornado = input.tornado;
 	if (tornado) place(Math.min(flow.bottom - flow.top - 40, 100 + tornado.rows.length * 22), (box) => drawTornadoChart(doc, box, tornado, result.currency));
+	doc.x = flow.left;
+}
+
+// ---------------------------------------------------------------- probabilistic run
+
+function probabilisticRun(flow: PageFlow, input: ScenarioSummaryInput): void {
+	const run = input.run;
+	if (!run) return;
+	const { doc } = flow;
+	const currency = input.result.currency;
+	flow.newPage('portrait');
+	flow.heading(CHAPTERS.run);
+	flow.paragraph(
+		`Revision ${input.scenario.revision}'s drivers drawn together: ${runBasisLine(run)}. Each draw takes every driver from its distribution${run.energyUncertainty ? ' and the energy from its uncertainty' : ''} and evaluates the scenario; the figures below summarise the draws.`,
+		{ size: type.small, colour: colours.muted, gap: 8 }
+	);
+	drawTable(flow, {
+		columns: [
+			{ header: 'Output' },
+			{ header: 'Unit' },
+			{ header: 'Mean', align: 'right' },
+			{ header: 'P90', align: 'right' },
+			{ header: 'P50', align: 'right' },
+			{ header: 'P10', align: 'right' }
+		],
+		rows: runTableRows(run.summary, currency).map((r) => [r.label, r.unit, r.mean, r.p90, r.p50, r.p10]),
+		fontSize: type.body,
+		stretch: true,
+		negative: (text) => text.startsWith('−')
+	});
+	flow.y += 4;
+	flow.paragraph(P90_CONVENTION, { size: type.small, colour: colours.text, gap: 3 });
+	for (const note of missingNotes(run.summary)) flow.paragraph(note, { size: type.small, colour: colours.muted, gap: 3 });
+	flow.paragraph(samplingNote(run.draws), { size: type.small, colour: colours.muted, gap: 6 });
+
+	flow.subheading('Probabilities', 60);
+	drawTable(flow, { columns: [{ header: 'Event', wrap: true }, { header: 'Share of the draws', align: 'right' }], rows: runProbabilities(run.summary).map((p) => [p.label, p.value]), header: false, fontSize: type.body });
+
+	const histogram = runHistogram(run.summary, currency);
+	if (histogram) {
+		const height = 250;
+		flow.ensure(height + 20);
+		flow.y += 12;
+		const box = { x: flow.left, y: flow.y, width: flow.width, height };
+		drawRunHistogramChart(doc, box, histogram);
+		flow.y = box.y + height + 16;
+	}
+
+	flow.subheading('What was drawn', 60);
+	drawTable(flow, { columns: [{ header: 'Item', wrap: true }, { header: 'Value', wrap: true }], rows: runFacts(run).map((f) => [f.label, f.value]), header: false, fontSize: type.small });
 	doc.x = flow.left;
 }
 

@@ -5,9 +5,33 @@
  */
 import type { EngineResult } from '../engine/evaluate';
 import type { ScenarioDocument } from '../db/scenarios';
+import type { RunSummary } from '../probabilistic/summary';
+import type { Distribution, ProbabilisticDriverId, RunInput } from '../../schemas/probabilistic';
 import { ENGINE_VERSION } from '../engine/version';
 
 export const SNAPSHOT_FORMAT = 1;
+
+/**
+ * A finished probabilistic run of the published revision, frozen with what it
+ * drew: each driver with its label and unit as they were, the distributions,
+ * correlations, energy uncertainty and hurdle rate, and the run's summary.
+ */
+export interface SnapshotRun {
+	runId: string;
+	seed: number;
+	draws: number;
+	/** The engine the run's draws were computed with (may be older than the snapshot's). */
+	engineVersion: string;
+	/** ISO 8601. */
+	finishedAt: string;
+	/** In the run's order; unit as the sensitivity drivers give it ('x base', 'fraction', 'fraction/yr', 'years', 'devices'). */
+	drivers: { driver: ProbabilisticDriverId; label: string; unit: string; distribution: Distribution }[];
+	correlations: RunInput['correlations'];
+	energyUncertainty: boolean;
+	/** Fraction per year, nominal. */
+	hurdleRate: number;
+	summary: RunSummary;
+}
 
 export interface SnapshotScenario {
 	id: string;
@@ -17,6 +41,8 @@ export interface SnapshotScenario {
 	isBaseCase: boolean;
 	document: ScenarioDocument;
 	result: EngineResult;
+	/** Chosen at publication; versions published before runs existed (or without one) have none. */
+	probabilisticRun?: SnapshotRun;
 }
 
 export interface RoomSnapshot {

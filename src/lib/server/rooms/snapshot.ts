@@ -1,7 +1,8 @@
 /**
  * A room version's frozen snapshot: each published scenario's document and
- * stored result, the engine version, the method notes and cautions as they
- * were, and the project's description. Stored whole with the version, so
+ * stored result (and, where the team chose, its latest finished probabilistic
+ * run of that revision), the engine version, the method notes and cautions as
+ * they were, and the project's description. Stored whole with the version, so
  * later edits of scenarios, notes or cautions never change what a room shows.
  */
 import { CAUTIONS } from '../../cautions';
@@ -10,6 +11,8 @@ import { assembleSnapshot, type SnapshotScenario } from './snapshot-format';
 import { getScenariosInProject } from '../db/scenarios';
 import { resultOfSavedScenario } from '../workbench/stored-results';
 import type { ProjectRow } from '../db/projects';
+import { latestDoneRunsInFull } from './publishable-runs';
+import { freezeRun } from './snapshot-run';
 import type { RoomSnapshot } from './snapshot-format';
 
 export type { RoomSnapshot, SnapshotScenario } from './snapshot-format';
@@ -23,16 +26,32 @@ export class PublishProblem extends Error {
 
 export const MAX_SCENARIOS_PER_VERSION = 12;
 
-/** Freezes the chosen live scenarios of the project, in the order given, with their stored (or now computed) results. */
-export async function buildSnapshot(project: ProjectRow, scenarioIds: readonly string[]): Promise<RoomSnapshot> {
+export interface SnapshotChoices {
+	/** Scenarios (of those published) whose latest finished probabilistic run of the published revision goes with them. */
+	withRunOf?: readonly string[];
+}
+
+/**
+ * Freezes the chosen live scenarios of the project, in the order given, with
+ * their stored (or now computed) results and the runs asked for. A run asked
+ * for a scenario whose saved revision has no finished run is refused in words
+ * (the scenario may have been saved again since the page was loaded).
+ */
+export async function buildSnapshot(project: ProjectRow, scenarioIds: readonly string[], choices: SnapshotChoices = {}): Promise<RoomSnapshot> {
 	const unique = [...new Set(scenarioIds)];
 	if (unique.length === 0) throw new PublishProblem('Choose at least one scenario to publish.');
 	if (unique.length > MAX_SCENARIOS_PER_VERSION) throw new PublishProblem(`A version holds at most ${MAX_SCENARIOS_PER_VERSION} scenarios.`);
 	const scenarios = await getScenariosInProject(project.id, unique);
 	const live = scenarios.filter((s) => s.archivedAt === null);
 	if (live.length !== unique.length) throw new PublishProblem('Some chosen scenarios are not live scenarios of this project: reload the page and choose again.');
+	const wantRun = new Set(choices.withRunOf ?? []);
+	const runs = await latestDoneRunsInFull(live.filter((s) => wantRun.has(s.id)));
 	const frozen: SnapshotScenario[] = [];
 	for (const scenario of live) {
+		const run = runs.get(scenario.id);
+		if (wantRun.has(scenario.id) && !run) {
+			throw new PublishProblem(`${scenario.name} has no finished probabilistic run of revision ${scenario.revision}: reload the page and choose again.`);
+		}
 		const { result } = await resultOfSavedScenario(scenario, project);
 		frozen.push({
 			id: scenario.id,
@@ -41,7 +60,8 @@ export async function buildSnapshot(project: ProjectRow, scenarioIds: readonly s
 			revision: scenario.revision,
 			isBaseCase: scenario.isBaseCase,
 			document: scenario.document,
-			result
+			result,
+			...(run ? { probabilisticRun: freezeRun(run) } : {})
 		});
 	}
 	return assembleSnapshot({

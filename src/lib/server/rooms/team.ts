@@ -25,7 +25,7 @@ import {
 import { generateRandomToken, hashToken } from '../auth/tokens';
 import { sendMail } from '../mail/mailer';
 import { roomAnswerMessage, roomInvitationMessage } from '../mail/templates';
-import { buildSnapshot } from './snapshot';
+import { buildSnapshot, type SnapshotChoices } from './snapshot';
 import { endSessionsOfGuestWithoutRooms } from './guest-sessions';
 import { checkRoomDocument } from './document-check';
 import { VIEWABLE_KINDS } from './document-response';
@@ -48,9 +48,12 @@ export async function createRoomForProject(access: ProjectAccess, input: { name:
 	return createRoom({ workspaceId: access.membership.workspaceId, projectId: access.project.id, name: input.name, terms: input.terms || DEFAULT_TERMS_TEXT, createdBy: access.user.id });
 }
 
-export async function publishVersion(access: RoomAccess, scenarioIds: readonly string[]): Promise<number> {
+/** A new frozen version; a probabilistic run shown to investors needs a plan with runs, as the room itself needs one with rooms. */
+export async function publishVersion(access: RoomAccess, scenarioIds: readonly string[], choices: SnapshotChoices = {}): Promise<number> {
 	requireFeature(access.membership, 'dataRooms', 'change');
-	const snapshot = await buildSnapshot(access.project, scenarioIds);
+	const withRunOf = (choices.withRunOf ?? []).filter((id) => scenarioIds.includes(id));
+	if (withRunOf.length > 0) requireFeature(access.membership, 'probabilisticRuns', 'share');
+	const snapshot = await buildSnapshot(access.project, scenarioIds, { withRunOf });
 	return insertRoomVersion(access.roomId, snapshot, access.user.id);
 }
 

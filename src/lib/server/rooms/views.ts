@@ -1,7 +1,8 @@
 /**
  * What a room page shows of one frozen scenario (investors' pages and the
  * team's preview of any version alike): results as published, the
- * assumptions in words, the method notes and cautions of the snapshot.
+ * assumptions in words, the probabilistic run published with it (if any),
+ * the method notes and cautions of the snapshot.
  */
 import type { RoomVersion } from '../db/rooms';
 import { assumptionSections } from '../pdf/assumptions';
@@ -22,7 +23,9 @@ export function snapshotScenarioView(version: RoomVersion, position: number) {
 			isBaseCase: scenario.isBaseCase,
 			result: scenario.result,
 			targetDscr: targetDscrOf(scenario.document.finance.debt),
-			assumptions: assumptionSections(scenario.document, scenario.result)
+			assumptions: assumptionSections(scenario.document, scenario.result),
+			// Versions published before runs could be included have none.
+			probabilisticRun: scenario.probabilisticRun ?? null
 		},
 		methodNotes: snapshot.methodNotes,
 		cautions: snapshot.cautions

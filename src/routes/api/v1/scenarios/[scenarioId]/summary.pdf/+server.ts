@@ -6,6 +6,9 @@ import { defaultDrivers } from '$lib/server/engine/sensitivity';
 import { renderSummaryPdfOnPool, tornadoOnPool } from '$lib/server/compute/pool';
 import { takeComputeAllowance } from '$lib/server/compute/limits';
 import { summaryPdfResponse, teamCopyInput } from '$lib/server/pdf/summary-input';
+import { planAllows } from '$lib/billing/plans';
+import { latestDoneRunsInFull } from '$lib/server/rooms/publishable-runs';
+import { freezeRun } from '$lib/server/rooms/snapshot-run';
 import type { RequestHandler } from './$types';
 
 /**
@@ -13,14 +16,21 @@ import type { RequestHandler } from './$types';
  * assumptions, the cash-flow table, charts (with a tornado of the real LCOE
  * over the usual screening ranges) and the method notes, the cautions on
  * every page. Drawn on the compute pool.
+ *
+ * The latest finished probabilistic run of the saved revision is printed
+ * too, on pages of its own with its method note, whenever there is one and
+ * the plan lets the team read runs; `?run=none` leaves it out. A run of an
+ * older revision describes another document and is never printed.
  */
 export const GET: RequestHandler = apiRoute(async (event) => {
-	const { project, scenarioId, user } = await authorize(event, event.params, 'viewer');
+	const { project, scenarioId, user, membership } = await authorize(event, event.params, 'viewer');
 	const scenario = await loadScenario(scenarioId);
 	await takeComputeAllowance(user.id, 'export');
 	const { result, engineVersion } = await resultOfSavedScenario(scenario, project);
 	const document = validateDocument(scenario.document, project);
 	const tornado = await runEngine(() => tornadoOnPool(document, defaultDrivers(document), 'lcoeReal'));
+	const withRun = event.url.searchParams.get('run') !== 'none' && planAllows(membership, 'probabilisticRuns', 'read').allowed;
+	const run = withRun ? (await latestDoneRunsInFull([scenario])).get(scenario.id) : undefined;
 	const pdf = await renderSummaryPdfOnPool(
 		teamCopyInput({
 			project,
@@ -29,6 +39,7 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 			result,
 			engineVersion,
 			tornado,
+			run: run ? freezeRun(run) : null,
 			date: new Date()
 		})
 	);

@@ -13,6 +13,7 @@ import { readForm } from '$lib/server/forms';
 import { UNSTORABLE_TEXT_MESSAGE, unstorableTextPaths } from '$lib/server/storable-text';
 import { planAllows } from '$lib/billing/plans';
 import { ROOM_DOCUMENT_MAX_BYTES } from '$lib/server/rooms/document-check';
+import { latestDoneRuns, type PublishableRun } from '$lib/server/rooms/publishable-runs';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -25,12 +26,18 @@ export const load: PageServerLoad = async (event) => {
 		listQuestions(room.id)
 	]);
 	const plan = planAllows(membership, 'dataRooms', 'change');
+	const canChange = roleAtLeast(membership.role, 'analyst') && plan.allowed;
+	// A run can go with a scenario only where the plan lets runs be shown to investors.
+	const runs = canChange && planAllows(membership, 'probabilisticRuns', 'share').allowed ? await latestDoneRuns(scenarios) : new Map<string, PublishableRun>();
 	return {
 		workspaceId: membership.workspaceId,
 		project: { id: project.id, name: project.name },
 		room: { id: room.id, name: room.name, terms: room.terms, termsVersion: room.terms_version },
 		versions: versions.map((v) => ({ ...v, publishedAt: v.publishedAt.toISOString() })),
-		scenarios: scenarios.map((s) => ({ id: s.id, name: s.name, revision: s.revision, isBaseCase: s.isBaseCase })),
+		scenarios: scenarios.map((s) => {
+			const run = runs.get(s.id);
+			return { id: s.id, name: s.name, revision: s.revision, isBaseCase: s.isBaseCase, latestRun: run ? { draws: run.draws, finishedAt: run.finishedAt.toISOString() } : null };
+		}),
 		documents: documents.map((d) => ({ id: d.id, folder: d.folder, fileName: d.fileName, kind: d.kind, byteSize: d.byteSize, access: d.access, sha256: d.sha256 })),
 		guests: guests.map((g) => ({
 			...g,
@@ -41,7 +48,7 @@ export const load: PageServerLoad = async (event) => {
 			acceptedCurrentTerms: g.acceptedTermsVersion === room.terms_version
 		})),
 		questions: questions.map((q) => ({ ...q, askedAt: q.askedAt.toISOString(), answeredAt: q.answeredAt?.toISOString() ?? null })),
-		canChange: roleAtLeast(membership.role, 'analyst') && plan.allowed,
+		canChange,
 		planMessage: plan.allowed ? null : plan.message,
 		maxDocumentMB: ROOM_DOCUMENT_MAX_BYTES / 1024 / 1024
 	};
@@ -75,8 +82,9 @@ export const actions: Actions = {
 		const access = await changer(event);
 		const form = await event.request.formData();
 		const ids = form.getAll('scenarioId').map(String);
+		const withRunOf = form.getAll('withRunOf').map(String);
 		try {
-			const version = await publishVersion(access, ids);
+			const version = await publishVersion(access, ids, { withRunOf });
 			return { action: 'publish', done: `Version ${version} is published: investors see it from now on.` };
 		} catch (e) {
 			return refused('publish', e);
