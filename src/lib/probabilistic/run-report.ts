@@ -213,10 +213,9 @@ export function histogramOutput(summary: Pick<RunSummary, 'outputs'>): RunOutput
 	return null;
 }
 
-/** The histogram of `histogramOutput`, in display units; null when neither output has a value. */
-export function runHistogram(summary: Pick<RunSummary, 'outputs'>, currency: string): RunHistogramView | null {
-	const key = histogramOutput(summary);
-	if (key === null) return null;
+/** The histogram of one output (by default `histogramOutput`), in display units; null when it has no value. */
+export function runHistogram(summary: Pick<RunSummary, 'outputs'>, currency: string, key: RunOutputKey | null = histogramOutput(summary)): RunHistogramView | null {
+	if (key === null || !(key in summary.outputs) || summary.outputs[key].stats.count === 0) return null;
 	const { histogram, stats } = summary.outputs[key];
 	const display = (value: number) => chartValue(key, String(value))!;
 	const edges = histogram.edges.map(display);
