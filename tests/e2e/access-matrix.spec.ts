@@ -114,6 +114,7 @@ interface Ids {
 	workspaceB: string;
 	projectId: string;
 	scenarioId: string;
+	runId: string;
 	uploadId: string;
 	revision: string;
 	slug: string;
@@ -217,6 +218,9 @@ const matrix: Row[] = [
 	{ route: '/app/w/[workspaceId]/projects/[projectId]/compare', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/projects/[projectId]/scenarios/[scenarioId]', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/projects/[projectId]/scenarios/[scenarioId]/sensitivity', method: 'GET', expect: page('viewer') },
+	// Probabilistic runs (workspace A is on the Team plan): viewers read them, analysts start and cancel them from the API.
+	{ route: '/app/w/[workspaceId]/projects/[projectId]/scenarios/[scenarioId]/runs', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/runs', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/members', method: 'POST', action: 'invite', body: { form: { email: 'not-an-address', role: 'analyst' } }, expect: action('owner', 400) },
 	{ route: '/app/w/[workspaceId]/members', method: 'POST', action: 'changeRole', body: { form: { userId: 'nobody', role: 'boss' } }, expect: action('owner', 400) },
 	{ route: '/app/w/[workspaceId]/members', method: 'POST', action: 'remove', body: { form: { userId: 'nobody' } }, expect: action('owner', 400) },
@@ -253,6 +257,7 @@ const matrix: Row[] = [
 	{ route: '/api/v1/portfolio.csv', method: 'GET', expect: { ...signedIn(200, 401), readToken: 200, writeToken: 200 } },
 	{ route: '/api/v1/workspaces/[workspaceId]/projects', method: 'GET', expect: api('viewer') },
 	{ route: '/api/v1/workspaces/[workspaceId]/projects', method: 'POST', body: badJson, expect: api('analyst', 422) },
+	{ route: '/api/v1/workspaces/[workspaceId]/runs', method: 'GET', expect: api('viewer') },
 	{ route: '/api/v1/projects/[projectId]', method: 'GET', expect: api('viewer') },
 	{ route: '/api/v1/projects/[projectId]', method: 'PATCH', body: badJson, expect: api('analyst', 422) },
 	{ route: '/api/v1/projects/[projectId]', method: 'DELETE', expect: api('owner'), after: restoreProbeProject },
@@ -275,6 +280,13 @@ const matrix: Row[] = [
 	{ route: '/api/v1/scenarios/[scenarioId]/revisions', method: 'GET', expect: api('viewer') },
 	{ route: '/api/v1/scenarios/[scenarioId]/revisions/[revision]', method: 'GET', expect: api('viewer') },
 	{ route: '/api/v1/scenarios/[scenarioId]/spider', method: 'POST', body: badJson, expect: api('viewer', 422) },
+	// The probe's run (made and finished in beforeAll): read by viewers; a bad start body is 422 after the role check;
+	// cancelling the finished run is 409 for those allowed to cancel, after the role check.
+	{ route: '/api/v1/scenarios/[scenarioId]/runs', method: 'GET', expect: api('viewer') },
+	{ route: '/api/v1/scenarios/[scenarioId]/runs', method: 'POST', body: badJson, expect: api('analyst', 422) },
+	{ route: '/api/v1/scenarios/[scenarioId]/runs/[runId]', method: 'GET', expect: api('viewer') },
+	{ route: '/api/v1/scenarios/[scenarioId]/runs/[runId]/cancel', method: 'POST', expect: api('analyst', 409) },
+	{ route: '/api/v1/scenarios/[scenarioId]/runs/[runId]/draws.csv', method: 'GET', expect: api('viewer') },
 	{ route: '/api/v1/scenarios/[scenarioId]/summary.pdf', method: 'GET', expect: api('viewer') },
 	{ route: '/api/v1/scenarios/[scenarioId]/tornado', method: 'POST', body: badJson, expect: api('viewer', 422) },
 	{ route: '/api/v1/uploads/[uploadId]', method: 'GET', expect: api('viewer') },
@@ -417,8 +429,33 @@ async function invitationTokenFor(email: string): Promise<string> {
 	return token;
 }
 
+/**
+ * A small probabilistic run of the probe scenario, started by the owner and
+ * waited for until a worker (started with the app) has finished it: the run
+ * rows read a run that exists, and cancelling it is refused as already ended.
+ */
+async function finishedProbeRun(): Promise<string> {
+	const started = await clients.owner.post(`/api/v1/scenarios/${ids.scenarioId}/runs`, {
+		data: {
+			drivers: [{ driver: 'capex', distribution: { shape: 'triangular', min: 0.9, mode: 1, max: 1.2 } }],
+			energyUncertainty: false,
+			seed: 7,
+			draws: 100,
+			hurdleRate: 0.08
+		}
+	});
+	expect(started.status(), await started.text()).toBe(202);
+	const runId = (await started.json()).run.id as string;
+	await expect
+		.poll(async () => (await (await clients.owner.get(`/api/v1/scenarios/${ids.scenarioId}/runs/${runId}`)).json()).run.state, { timeout: 60_000, intervals: [250] })
+		.toBe('done');
+	return runId;
+}
+
 test.describe('role x route matrix', () => {
 	test.beforeAll(async ({ playwright }) => {
+		// Sign-ins, the probe data and a probabilistic run drawn by the worker.
+		test.setTimeout(150_000);
 		requestFactory = playwright.request;
 		for (const persona of personas) await signIn(persona);
 
@@ -447,6 +484,7 @@ test.describe('role x route matrix', () => {
 		});
 		expect(upload.status(), await upload.text()).toBe(201);
 		ids.uploadId = (await upload.json()).upload.id;
+		ids.runId = await finishedProbeRun();
 
 		ids.slug = METHOD_NOTES[0].slug;
 
@@ -516,6 +554,12 @@ test.describe('role x route matrix', () => {
 			`/api/v1/projects/${nowhere}`,
 			`/api/v1/scenarios/${nowhere}`,
 			`/api/v1/uploads/${nowhere}`,
+			`/api/v1/workspaces/${nowhere}/runs`,
+			`/api/v1/scenarios/${nowhere}/runs`,
+			`/api/v1/scenarios/${nowhere}/runs/${nowhere}`,
+			`/api/v1/scenarios/${ids.scenarioId}/runs/${nowhere}`,
+			`/api/v1/scenarios/${ids.scenarioId}/runs/${nowhere}/draws.csv`,
+			`/api/v1/scenarios/${ids.scenarioId}/runs/not-a-uuid`,
 			'/api/v1/projects/not-a-uuid',
 			'/api/v1/scenarios/not-a-uuid'
 		];
@@ -544,6 +588,22 @@ test.describe('role x route matrix', () => {
 		// A's project under B's address is no way in for B's owner.
 		const crossed = await clients.outsider.get(`/app/w/${workspaceB}/projects/${ids.projectId}/compare`, { maxRedirects: 0 });
 		expect(crossed.status()).toBe(404);
+	});
+
+	test('a run under another scenario\u2019s address answers 404, even to those who may read both', async () => {
+		const listed = await clients.viewer.get(`/api/v1/workspaces/${ids.workspaceId}/projects`);
+		const otherProject = ((await listed.json()).projects as { id: string }[]).find((p) => p.id !== ids.projectId);
+		if (!otherProject) throw new Error('workspace A has no project besides the probe');
+		const scenarios = (await (await clients.viewer.get(`/api/v1/projects/${otherProject.id}/scenarios`)).json()).scenarios as { id: string }[];
+		const otherScenario = scenarios[0]?.id;
+		if (!otherScenario) throw new Error('the other project has no scenario');
+		for (const persona of ['viewer', 'analyst', 'owner', 'readToken', 'writeToken'] as const) {
+			expect((await clients[persona].get(`/api/v1/scenarios/${otherScenario}/runs/${ids.runId}`)).status(), persona).toBe(404);
+			expect((await clients[persona].get(`/api/v1/scenarios/${otherScenario}/runs/${ids.runId}/draws.csv`)).status(), persona).toBe(404);
+		}
+		expect((await clients.owner.post(`/api/v1/scenarios/${otherScenario}/runs/${ids.runId}/cancel`)).status()).toBe(404);
+		// Under its own scenario the same run is there.
+		expect((await clients.viewer.get(`/api/v1/scenarios/${ids.scenarioId}/runs/${ids.runId}`)).status()).toBe(200);
 	});
 
 	test('a page address whose ids do not nest (scenario under another project) answers 404', async () => {
