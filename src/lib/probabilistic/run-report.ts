@@ -59,20 +59,20 @@ export function runTableRows(summary: Pick<RunSummary, 'outputs'>, currency: str
 	});
 }
 
-const why: Partial<Record<RunOutputKey, string>> = {
-	projectIrrPostTax: 'no IRR',
-	equityIrr: 'no IRR',
-	minDscr: 'no debt service'
-};
+/** Why an output can have no value in a draw. */
+function whyMissing(key: RunOutputKey): string | null {
+	if (key === 'minDscr') return 'no debt service';
+	return key === 'projectIrrPostTax' || key === 'equityIrr' ? 'no IRR' : null;
+}
 
-/** One sentence per output with draws that have no value: "Equity IRR: 12 of 10,000 draws have none (no IRR) and are left out." */
+/** One sentence per output with draws that have no value: "<label>: 12 of 10,000 draws have none (no IRR) and are left out." */
 export function missingNotes(summary: Pick<RunSummary, 'outputs' | 'draws'>): string[] {
 	return runOutputKeys(summary).flatMap((key) => {
 		const { count, missing } = summary.outputs[key].stats;
 		if (missing === 0) return [];
 		const total = groupDigits(count + missing, 0);
-		if (count === 0) return [`${METRICS[key].label}: no draw has a value${why[key] ? ` (${why[key]})` : ''}.`];
-		return [`${METRICS[key].label}: ${groupDigits(missing, 0)} of ${total} draws have none${why[key] ? ` (${why[key]}, or the draw was refused)` : ''} and are left out.`];
+		if (count === 0) return [`${METRICS[key].label}: no draw has a value${whyMissing(key) ? ` (${whyMissing(key)})` : ''}.`];
+		return [`${METRICS[key].label}: ${groupDigits(missing, 0)} of ${total} draws have none${whyMissing(key) ? ` (${whyMissing(key)}, or the draw was refused)` : ''} and are left out.`];
 	});
 }
 
@@ -97,16 +97,16 @@ export function runProbabilities(summary: Pick<RunSummary, 'probabilities' | 'th
 	const cover = (value: number) => `${groupDigits(value, 2)}×`;
 	const lockUp: RunProbability =
 		thresholds.lockUpDscr === null
-			? { label: 'Minimum DSCR below the lock-up level', value: 'no lock-up level in this scenario' }
+			? { label: `${METRICS.minDscr.label} below the lock-up level`, value: 'no lock-up level in this scenario' }
 			: {
-					label: `Minimum DSCR below the lock-up level (${cover(thresholds.lockUpDscr)})`,
+					label: `${METRICS.minDscr.label} below the lock-up level (${cover(thresholds.lockUpDscr)})`,
 					value: p.minDscrBelowLockUp === null ? 'not defined: no draw has debt service' : formatProbability(p.minDscrBelowLockUp)
 				};
 	return [
 		lockUp,
-		{ label: `Minimum DSCR below ${cover(1)}`, value: p.minDscrBelowOne === null ? 'not defined: no draw has debt service' : formatProbability(p.minDscrBelowOne) },
+		{ label: `${METRICS.minDscr.label} below ${cover(1)}`, value: p.minDscrBelowOne === null ? 'not defined: no draw has debt service' : formatProbability(p.minDscrBelowOne) },
 		{
-			label: `Equity IRR below the hurdle rate (${runFigure('equityIrr', thresholds.hurdleRate)} ${metricUnit('equityIrr', '')})`,
+			label: `${METRICS.equityIrr.label} below the hurdle rate (${runFigure('equityIrr', thresholds.hurdleRate)} ${metricUnit('equityIrr', '')})`,
 			value: p.equityIrrBelowHurdle === null ? 'not defined: no draw has an equity IRR' : formatProbability(p.equityIrrBelowHurdle)
 		}
 	];
