@@ -1,5 +1,6 @@
 /**
- * `npm test`: type-check, then the vitest unit and integration tests, then the
+ * `npm test`: the Debian packages the tests need (installed when missing, as
+ * root), type-check, then the vitest unit and integration tests, then the
  * Playwright browser tests in Debian's Chromium. Ends with the pass/fail counts.
  */
 import { spawn, spawnSync } from 'node:child_process';
@@ -14,12 +15,17 @@ interface Outcome {
 
 const chromiumPath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
-/** Debian packages the tests use: Chromium, jq for the worked API example in docs/, and poppler's pdftotext to read the PDF summary back. */
+/**
+ * Debian packages the tests use: Chromium, jq for the worked API example in
+ * docs/, poppler's pdftotext to read the PDF summary back, and LibreOffice
+ * Calc (headless) to open the XLSX and CSV exports as a spreadsheet would.
+ */
 function ensureDebianPackages() {
 	const missing = [
 		{ path: chromiumPath, pkg: 'chromium' },
 		{ path: '/usr/bin/jq', pkg: 'jq' },
-		{ path: '/usr/bin/pdftotext', pkg: 'poppler-utils' }
+		{ path: '/usr/bin/pdftotext', pkg: 'poppler-utils' },
+		{ path: '/usr/bin/soffice', pkg: 'libreoffice-calc-nogui' }
 	].filter((need) => !existsSync(need.path));
 	if (missing.length === 0) return;
 	const names = missing.map((m) => m.pkg);
@@ -76,9 +82,10 @@ const countPlaywright = (out: string) => ({
 
 async function main() {
 	const outcomes: Outcome[] = [];
+	// Before vitest: its tests read the PDF back with pdftotext and open the exports with soffice.
+	ensureDebianPackages();
 	outcomes.push(await runStep('svelte-check', 'npm', ['run', '--silent', 'check'], countSvelteCheck));
 	outcomes.push(await runStep('vitest (unit + integration)', 'npx', ['vitest', 'run'], countVitest));
-	ensureDebianPackages();
 	outcomes.push(await runStep('playwright (Chromium)', 'npx', ['playwright', 'test'], countPlaywright));
 
 	console.log('\n[test] ── summary ──');

@@ -145,7 +145,7 @@ test.describe('exports', () => {
 		const response = await clients.viewer.get(`/api/v1/scenarios/${base.id}/export?format=csv`);
 		expect(response.status()).toBe(200);
 		expect(response.headers()['content-type']).toBe('text/csv; charset=utf-8');
-		expect(response.headers()['content-disposition']).toMatch(/attachment; filename="base-r1-cash-flow\.csv"/);
+		expect(response.headers()['content-disposition']).toMatch(/^attachment; filename="[a-z0-9-]+-base-\d{4}-\d{2}-\d{2}-cash-flow\.csv"$/);
 		const text = (await response.text()).replace(/^\uFEFF/, '');
 		const [table, cautions] = text.split('\r\n\r\n');
 		const rows = Papa.parse<string[]>(table, { skipEmptyLines: true }).data;
@@ -171,8 +171,8 @@ test.describe('exports', () => {
 		expect(response.headers()['content-type']).toBe('application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
 		const workbook = new ExcelJS.Workbook();
 		await workbook.xlsx.load((await response.body()) as unknown as ArrayBuffer);
-		expect(workbook.worksheets.map((s) => s.name)).toEqual(['About', 'Cash flow', 'Metrics', 'Warnings', 'Cautions']);
-		const cashFlow = workbook.getWorksheet('Cash flow')!;
+		expect(workbook.worksheets.map((s) => s.name)).toEqual(['About', 'Assumptions', 'Annual table', 'Metrics', 'Warnings', 'Cautions']);
+		const cashFlow = workbook.getWorksheet('Annual table')!;
 		expect(cashFlow.getRow(1).getCell(5).value).toBe('Revenue (EUR, nominal)');
 		expect(cashFlow.rowCount).toBe(1 + 22);
 		expect(typeof cashFlow.getRow(5).getCell(5).value).toBe('number');

@@ -547,12 +547,12 @@ export const apiOperations: ApiOperation[] = [
 		tag: 'Results',
 		summary: "Download a saved scenario's results as a spreadsheet",
 		description:
-			'XLSX: every table on its own sheet, with the cautions. CSV: one table (the cash-flow table, or the metrics), the cautions after a blank line.',
+			"XLSX: every table on its own sheet (About, Assumptions, Annual table, Metrics, Warnings, Cautions): the inputs in words with value and unit apart, numbers as numbers with number formats at the app's precision, header rows frozen. CSV: one table (the cash-flow table, the metrics or the assumptions), figures at the same precision, the cautions after a blank line. The file is named for the project, the scenario and the day (UTC), as skerrow-sound-base-case-2026-01-15.xlsx; a CSV file adds its table, as skerrow-sound-base-case-2026-01-15-metrics.csv.",
 		minimumRole: 'viewer',
 		apiToken: 'read-only',
 		query: [
 			{ name: 'format', required: false, description: 'File format (xlsx when left out)', schema: z.enum(exportFormats) },
-			{ name: 'table', required: false, description: 'For CSV: which table (cash-flow when left out)', schema: z.enum(csvTables) }
+			{ name: 'table', required: false, description: 'For CSV: which table, the annual cash flows, the metrics or the inputs (cash-flow when left out)', schema: z.enum(csvTables) }
 		],
 		response: {
 			status: 200,

@@ -99,7 +99,7 @@ describe('apiReference', () => {
 		expect(exported.parameters.map((p) => [p.name, p.where, p.type])).toEqual([
 			['scenarioId', 'path', 'id (uuid)'],
 			['format', 'query', 'one of: csv, xlsx'],
-			['table', 'query', 'one of: cash-flow, metrics']
+			['table', 'query', 'one of: cash-flow, metrics, assumptions']
 		]);
 		expect(exported.body).toBeNull();
 	});

@@ -92,7 +92,7 @@ describe('ComputePool.run', () => {
 
 	it('builds the CSV export byte for byte as on this thread', async () => {
 		const result = evaluateScenario(examples.wave);
-		const context = { projectName: 'Orrin Bank', scenarioName: 'Base', revision: 3, generatedAt: new Date('2026-01-02T03:04:05Z') };
+		const context = { projectName: 'Orrin Bank', scenarioName: 'Base', revision: 3, generatedAt: new Date('2026-01-02T03:04:05Z'), document: examples.wave };
 		const pooled = await pool.run('buildExport', { result, context, format: 'csv', table: 'cash-flow' });
 		const direct = await buildExport(result, context, 'csv', 'cash-flow');
 		expect(pooled.fileName).toBe(direct.fileName);
@@ -101,7 +101,7 @@ describe('ComputePool.run', () => {
 
 	it('builds the workbook export with the same sheets and cells as on this thread', async () => {
 		const result = evaluateScenario(examples.tidal);
-		const context = { projectName: 'Kestle Narrows', scenarioName: 'Base', revision: 1, generatedAt: new Date('2026-01-02T03:04:05Z') };
+		const context = { projectName: 'Kestle Narrows', scenarioName: 'Base', revision: 1, generatedAt: new Date('2026-01-02T03:04:05Z'), document: examples.tidal };
 		const pooled = await pool.run('buildExport', { result, context, format: 'xlsx', table: 'cash-flow' });
 		const direct = await buildExport(result, context, 'xlsx');
 		const sheets = async (body: Uint8Array) => {
@@ -109,7 +109,7 @@ describe('ComputePool.run', () => {
 			await book.xlsx.load(body as unknown as ArrayBuffer);
 			return book.worksheets.map((sheet) => ({ name: sheet.name, rows: sheet.getSheetValues().map((row) => JSON.stringify(row)) }));
 		};
-		expect(pooled.fileName).toBe('base-r1.xlsx');
+		expect(pooled.fileName).toBe('kestle-narrows-base-2026-01-02.xlsx');
 		expect(await sheets(pooled.body)).toEqual(await sheets(direct.body));
 	});
 

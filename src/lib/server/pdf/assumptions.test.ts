@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { parseScenario, type Scenario } from '../../schemas/scenario';
 import { evaluateScenario } from '../engine/evaluate';
-import { assumptionSections, fieldText, plainNumber, withUnit } from './assumptions';
+import { assumptionSections, fieldText, inputFigure, plainNumber, withUnit } from './assumptions';
 
 function example(name: string): Scenario {
 	const parsed = parseScenario(JSON.parse(readFileSync(`examples/${name}.json`, 'utf8')));
@@ -243,5 +243,61 @@ describe('the exceedance table', () => {
 		const p90 = t.rows.find((r) => r[0] === 'P90')!;
 		const figure = (text: string) => Number(text.replace(/,/g, ''));
 		expect(figure(p90[3])).toBeGreaterThan(figure(p90[1]));
+	});
+});
+
+describe('inputFigure', () => {
+	it('gives the number as read, per cent for shares, with its unit apart and the decimals typed', () => {
+		expect(inputFigure(0.04, 'fraction')).toEqual({ value: '4', places: 0, unit: '%' });
+		expect(inputFigure(0.0075, 'fraction/yr of undrawn debt')).toEqual({ value: '0.75', places: 2, unit: '%/yr of undrawn debt' });
+		expect(inputFigure(0.1 + 0.2, 'share')).toEqual({ value: '30', places: 0, unit: '%' });
+		expect(inputFigure(3200000, 'EUR/device')).toEqual({ value: '3200000', places: 0, unit: 'EUR/device' });
+		expect(inputFigure(0.42, 'Cp, –')).toEqual({ value: '0.42', places: 2, unit: '–' });
+	});
+});
+
+describe('figures beside the words', () => {
+	const sections = assumptionSections(tidal, evaluateScenario(tidal));
+	const fact = (title: string, label: string) => sections.find((s) => s.title === title)!.facts.find((f) => f.label === label);
+
+	it('gives inputs and derived figures their number and unit apart, and words none', () => {
+		// examples/tidal-stream-kestle-narrows.json: availability 0.93.
+		expect(fact('Array, losses and uncertainty', 'Availability')).toEqual({ label: 'Availability', value: '93 %', figure: { value: '93', places: 0, unit: '%' } });
+		expect(fact('Array, losses and uncertainty', 'Installed capacity')?.figure).toEqual({ value: '15.00', places: 2, unit: 'MW' });
+		expect(fact('Finance and debt', 'Repayment')?.figure).toBeUndefined();
+	});
+
+	it('lists the reserve accounts and covenants the document sets', () => {
+		const lender = example('lender-case-skerrow-sound');
+		const finance = assumptionSections(lender, evaluateScenario(lender)).find((s) => s.title === 'Finance and debt')!;
+		const value = (label: string) => finance.facts.find((f) => f.label === label)?.value;
+		// examples/lender-case-skerrow-sound.json: a six-month reserve funded at COD, a maintenance reserve, lock-up 1.15, default 1.05.
+		expect(value("Debt service reserve, in months of the next year's debt service")).toBe('6 months');
+		expect(value('Debt service reserve filled')).toBe('In full at COD, from the construction funding');
+		expect(value('Maintenance reserve: each overhaul funded over')).toBe('its own interval');
+		expect(value('Distributions locked up below a DSCR of')).toBe('1.15×');
+		expect(value('Event of default below a DSCR of')).toBe('1.05×');
+		const sweep: Scenario = { ...lender, finance: { ...lender.finance, covenants: { ...lender.finance.covenants, cashSweep: { share: 0.5, when: 'in-lock-up' } } } };
+		const swept = assumptionSections(sweep, evaluateScenario(sweep)).find((s) => s.title === 'Finance and debt')!;
+		expect(swept.facts.find((f) => f.label === 'Cash sweep to prepay the loan')?.value).toBe('50 % of the cash trapped in lock-up years');
+	});
+
+	it('says which uncertainties average out over the years', () => {
+		const table = sections.find((s) => s.title === 'Array, losses and uncertainty')!.tables[0];
+		expect(table.columns.map((c) => c.header)).toEqual(['Uncertainty', 'One standard deviation', 'Kind']);
+		expect(table.rows.every((r) => ['Long-term, the same every year', 'Year to year, averaging out over years'].includes(r[2]))).toBe(true);
+	});
+
+	it('tabulates the resource at full detail only, and the device tables whatever their size', () => {
+		const full = assumptionSections(wave, evaluateScenario(wave), 'full');
+		const scatter = full[0].tables[0];
+		if (wave.resource.kind !== 'sea-state-table') throw new Error('the wave example has a scatter diagram');
+		expect(scatter.rows).toHaveLength(wave.resource.states.length);
+		expect(scatter.rows[0]).toEqual([plainNumber(wave.resource.states[0].hsM), plainNumber(wave.resource.states[0].periodS), plainNumber(wave.resource.states[0].occurrence)]);
+		expect(assumptionSections(wave, evaluateScenario(wave))[0].tables).toEqual([]);
+		if (wave.device.kind !== 'power-matrix') throw new Error('the wave example has a power matrix');
+		const wide: Scenario = { ...wave, device: { ...wave.device, periodS: Array.from({ length: 20 }, (_, i) => 4 + i), powerKW: wave.device.hsM.map(() => Array.from({ length: 20 }, () => 100)) } };
+		expect(assumptionSections(wide, evaluateScenario(wide))[1].tables).toEqual([]);
+		expect(assumptionSections(wide, evaluateScenario(wide), 'full')[1].tables[0].columns).toHaveLength(21);
 	});
 });

@@ -5,6 +5,9 @@
  * the editor keeps as fractions read as per cent here (0.04 -> 4 %), the
  * one change of form. Figures the engine derived (installed capacity, capex
  * totals, the debt at COD) come from its result, rounded with decimal.js.
+ * The PDF summary, the data-room pages and the spreadsheet export read these
+ * sections: facts with a number carry it apart from its unit (`figure`) for a
+ * spreadsheet's cells.
  */
 import DecimalJs from 'decimal.js';
 import { groupDigits } from '../../metrics/format';
@@ -18,9 +21,19 @@ import type { TableColumn } from './tables';
 
 const Decimal = DecimalJs.clone({ precision: 40, rounding: DecimalJs.ROUND_HALF_EVEN });
 
+/** A number as it is read: in its display unit (per cent figures times 100), exact decimal text at `places` decimals. */
+export interface Figure {
+	value: string;
+	places: number;
+	/** '' for a pure number. */
+	unit: string;
+}
+
 export interface Fact {
 	label: string;
 	value: string;
+	/** The number in `value` apart from its unit; absent for a fact in words. */
+	figure?: Figure;
 }
 
 export interface FactTable {
@@ -44,20 +57,45 @@ export function plainNumber(value: DecimalJs.Value): string {
 	return groupDigits(d, d.decimalPlaces());
 }
 
+const isShare = (unit: string) => unit === 'share' || unit.startsWith('share of ') || unit.startsWith('fraction');
+
+/** The unit a number is read in: fractions and shares as per cent, a symbol unit ("Cp, –") as a dash, anything else as the editor writes it. */
+function displayUnit(unit: string): string {
+	if (unit === 'share') return '%';
+	if (unit.startsWith('share of ')) return `% of ${unit.slice('share of '.length)}`;
+	if (unit.startsWith('fraction')) return unit.replace(/^fraction/, '%');
+	return /^\S+, –$/.test(unit) ? '–' : unit;
+}
+
+/** A number typed against the editor's unit, as it is read: 0.04 'fraction' is 4 '%' (at most six decimals, no float noise). */
+export function inputFigure(value: DecimalJs.Value, unit: string): Figure {
+	const d = new Decimal(value).times(isShare(unit) ? 100 : 1).toDecimalPlaces(MAX_PLACES, Decimal.ROUND_HALF_EVEN);
+	return { value: (d.isZero() ? d.abs() : d).toFixed(), places: d.decimalPlaces(), unit: displayUnit(unit) };
+}
+
 /**
  * A number with the editor's unit: fractions and shares as per cent
  * ("4 %", "2 %/yr", "1 % of capex", "100 % of inflation"), a symbol unit
  * ("Cp, –") left to the label, anything else as the editor writes it.
  */
 export function withUnit(value: number, unit: string): string {
-	if (unit === '' || unit === 'ratio' || /^\S+, –$/.test(unit)) return plainNumber(value);
-	const percent = () => plainNumber(new Decimal(value).times(100));
-	if (unit === 'share') return `${percent()} %`;
-	if (unit.startsWith('share of ')) return `${percent()} % of ${unit.slice('share of '.length)}`;
-	if (unit.startsWith('fraction')) return `${percent()} ${unit.replace(/^fraction/, '%')}`;
-	if (unit === '×') return `${plainNumber(value)}×`;
+	const figure = inputFigure(value, unit);
+	const text = plainNumber(figure.value);
+	if (figure.unit === '' || figure.unit === 'ratio' || figure.unit === '–') return text;
+	if (figure.unit === '×') return `${text}×`;
 	if (value === 1 && (unit === 'years' || unit === 'devices')) return `1 ${unit.slice(0, -1)}`;
-	return `${plainNumber(value)} ${unit}`;
+	return `${text} ${figure.unit}`;
+}
+
+/** An input as a fact: its value in words with its unit, and the number apart. */
+function inputFact(label: string, value: number, unit: string): Fact {
+	return { label, value: withUnit(value, unit), figure: inputFigure(value, unit) };
+}
+
+/** A figure the engine derived, at `places` decimals in `unit` (per cent figures already times 100): "15.00 MW". */
+function derived(label: string, value: DecimalJs.Value, places: number, unit: string): Fact {
+	const d = new Decimal(value).toDecimalPlaces(places, Decimal.ROUND_HALF_EVEN);
+	return { label, value: `${groupDigits(d, places)} ${unit}`, figure: { value: (d.isZero() ? d.abs() : d).toFixed(places), places, unit } };
 }
 
 /** The document's value at `path` with its editor unit; null when the field is absent. */
@@ -65,10 +103,6 @@ export function fieldText(document: Scenario, path: FieldPath): string | null {
 	const value = valueAt(document, path);
 	if (typeof value !== 'number') return null;
 	return withUnit(value, unitOf(path, document, document.currency));
-}
-
-function money(value: string, currency: string): string {
-	return `${groupDigits(value, 0)} ${currency}`;
 }
 
 function range(values: readonly number[], unit: string): string {
@@ -84,16 +118,23 @@ function shares(values: readonly number[] | undefined): string {
 
 function facts(document: Scenario, entries: [label: string, path: FieldPath][]): Fact[] {
 	return entries.flatMap(([label, path]) => {
-		const value = fieldText(document, path);
-		return value === null ? [] : [{ label, value }];
+		const value = valueAt(document, path);
+		return typeof value === 'number' ? [inputFact(label, value, unitOf(path, document, document.currency))] : [];
 	});
 }
 
 const yesNo = (value: boolean) => (value ? 'Yes' : 'No');
 
+/**
+ * summary: what fits a page (the PDF, the room pages): the device's own table
+ * only when it is small, the resource in words. full: every table the
+ * document holds, the resource's bins or sea states too (the spreadsheet).
+ */
+export type AssumptionDetail = 'summary' | 'full';
+
 // ---------------------------------------------------------------- sections
 
-function siteAndResource(document: Scenario): AssumptionSection {
+function siteAndResource(document: Scenario, detail: AssumptionDetail): AssumptionSection {
 	const r = document.resource;
 	const list: Fact[] = [];
 	if (document.site.name) list.push({ label: 'Site name', value: document.site.name });
@@ -144,10 +185,38 @@ function siteAndResource(document: Scenario): AssumptionSection {
 			);
 			break;
 	}
-	return { title: 'Site and resource', facts: list, tables: [] };
+	return { title: 'Site and resource', facts: list, tables: detail === 'full' ? resourceTables(r) : [] };
 }
 
-function device(document: Scenario, result: EngineResult): AssumptionSection {
+/** The flow speed histogram or the scatter diagram as the editor holds them. */
+function resourceTables(r: Scenario['resource']): FactTable[] {
+	const occurrence = (basis: 'hours' | 'probability'): TableColumn => ({ header: 'Occurrence', unit: basis === 'hours' ? 'h/yr' : 'probability', align: 'right' });
+	if (r.kind === 'speed-histogram') {
+		return [
+			{
+				title: 'Flow speed histogram',
+				columns: [{ header: 'Flow speed', unit: 'm/s', align: 'right' }, occurrence(r.occurrenceBasis)],
+				rows: r.bins.map((b) => [plainNumber(b.speedMPerS), plainNumber(b.occurrence)])
+			}
+		];
+	}
+	if (r.kind === 'sea-state-table') {
+		return [
+			{
+				title: 'Scatter diagram (sea states)',
+				columns: [
+					{ header: 'Hs', unit: 'm', align: 'right' },
+					{ header: r.periodType === 'energy-period' ? 'Te' : 'Tp', unit: 's', align: 'right' },
+					occurrence(r.occurrenceBasis)
+				],
+				rows: r.states.map((st) => [plainNumber(st.hsM), plainNumber(st.periodS), plainNumber(st.occurrence)])
+			}
+		];
+	}
+	return [];
+}
+
+function device(document: Scenario, result: EngineResult, detail: AssumptionDetail): AssumptionSection {
 	const d = document.device;
 	const list: Fact[] = [];
 	switch (d.kind) {
@@ -190,9 +259,9 @@ function device(document: Scenario, result: EngineResult): AssumptionSection {
 			);
 			break;
 	}
-	list.push({ label: 'Rated power per device (as used)', value: `${groupDigits(result.energy.ratedPowerPerDeviceKW, 0)} kW` });
-	list.push({ label: 'Mean power per device, before losses', value: `${groupDigits(result.energy.meanDevicePowerKW, 1)} kW` });
-	return { title: 'Device', facts: list, tables: deviceTables(d) };
+	list.push(derived('Rated power per device (as used)', result.energy.ratedPowerPerDeviceKW, 0, 'kW'));
+	list.push(derived('Mean power per device, before losses', result.energy.meanDevicePowerKW, 1, 'kW'));
+	return { title: 'Device', facts: list, tables: deviceTables(d, detail) };
 }
 
 /** Past these sizes the device's own table would not fit a page; the words above still describe it. */
@@ -200,8 +269,9 @@ const MAX_CURVE_POINTS = 60;
 const MAX_MATRIX_COLUMNS = 14;
 
 /** The measured power curve or the power matrix as the editor holds them. */
-function deviceTables(d: Scenario['device']): FactTable[] {
-	if (d.kind === 'power-curve' && d.points.length <= MAX_CURVE_POINTS) {
+function deviceTables(d: Scenario['device'], detail: AssumptionDetail): FactTable[] {
+	const full = detail === 'full';
+	if (d.kind === 'power-curve' && (full || d.points.length <= MAX_CURVE_POINTS)) {
 		return [
 			{
 				title: 'Power curve (electrical power per device)',
@@ -213,7 +283,7 @@ function deviceTables(d: Scenario['device']): FactTable[] {
 			}
 		];
 	}
-	if (d.kind === 'power-matrix' && d.periodS.length <= MAX_MATRIX_COLUMNS) {
+	if (d.kind === 'power-matrix' && (full || d.periodS.length <= MAX_MATRIX_COLUMNS)) {
 		const period = d.periodType === 'energy-period' ? 'Te' : 'Tp';
 		return [
 			{
@@ -226,11 +296,16 @@ function deviceTables(d: Scenario['device']): FactTable[] {
 	return [];
 }
 
+const uncertaintyKindWords: Record<Scenario['uncertainty']['components'][number]['kind'], string> = {
+	'long-term': 'Long-term, the same every year',
+	'inter-annual': 'Year to year, averaging out over years'
+};
+
 function arrayAndLosses(document: Scenario, result: EngineResult): AssumptionSection {
 	const e = result.energy;
 	const list: Fact[] = [
 		...facts(document, [['Devices in the array', ['array', 'deviceCount']]]),
-		{ label: 'Installed capacity', value: `${groupDigits(new Decimal(e.installedCapacityKW).dividedBy(1000), 2)} MW` },
+		derived('Installed capacity', new Decimal(e.installedCapacityKW).dividedBy(1000), 2, 'MW'),
 		...facts(document, [
 			['Array (wake and blockage) loss', ['array', 'arrayLoss']],
 			['Availability', ['array', 'availability']],
@@ -238,17 +313,18 @@ function arrayAndLosses(document: Scenario, result: EngineResult): AssumptionSec
 			['Other losses', ['array', 'otherLoss']],
 			['Degradation per year', ['array', 'degradationPerYear']]
 		]),
-		{ label: 'Gross annual energy, before losses', value: `${groupDigits(e.grossAepMWh, 0)} MWh/yr` },
-		{ label: 'Share of gross energy delivered', value: `${groupDigits(new Decimal(e.lossFactor).times(100), 1)} %` },
-		{ label: 'Combined yield uncertainty', value: `${groupDigits(new Decimal(e.combinedSigma).times(100), 1)} % of P50` }
+		derived('Gross annual energy, before losses', e.grossAepMWh, 0, 'MWh/yr'),
+		derived('Share of gross energy delivered', new Decimal(e.lossFactor).times(100), 1, '%'),
+		derived('Combined yield uncertainty', new Decimal(e.combinedSigma).times(100), 1, '% of P50')
 	];
 	const tables: FactTable[] = [];
 	const components = document.uncertainty.components;
 	if (components.length > 0) {
 		tables.push({
 			title: 'Yield uncertainties (independent, combined as the root sum of squares)',
-			columns: [{ header: 'Uncertainty', wrap: true }, { header: 'One standard deviation', unit: '% of P50', align: 'right' }],
-			rows: components.map((c) => [c.name, plainNumber(new Decimal(c.sigma).times(100))])
+			columns: [{ header: 'Uncertainty', wrap: true }, { header: 'One standard deviation', unit: '% of P50', align: 'right' }, { header: 'Kind' }],
+			// A document saved before the field existed counted every component as long-term.
+			rows: components.map((c) => [c.name, plainNumber(new Decimal(c.sigma).times(100)), uncertaintyKindWords[c.kind ?? 'long-term']])
 		});
 	}
 	// Results stored before the horizons existed have the one-year levels only.
@@ -311,7 +387,7 @@ function capitalCosts(document: Scenario, result: EngineResult): AssumptionSecti
 		facts: [
 			...facts(document, [['Contingency', ['capex', 'contingency']]]),
 			{ label: 'Default phasing over the construction years', value: defaultPhasing },
-			{ label: 'Capex total, with contingency, before grants', value: `${money(result.costs.capexRealTotal, currency)} (real, COD-year money)` }
+			derived('Capex total, with contingency, before grants', result.costs.capexRealTotal, 0, `${currency} (real, COD-year money)`)
 		],
 		tables: [
 			{
@@ -363,7 +439,7 @@ function operatingCosts(document: Scenario, result: EngineResult): AssumptionSec
 		title: 'Operating costs and decommissioning',
 		facts: [
 			{ label: 'Decommissioning, at the end of the final operating year', value: decommissioningText(document) },
-			{ label: 'Decommissioning as paid', value: `${money(result.costs.decommissioningNominal, document.currency)} (nominal)` }
+			derived('Decommissioning as paid', result.costs.decommissioningNominal, 0, `${document.currency} (nominal)`)
 		],
 		tables:
 			rows.length === 0
@@ -402,7 +478,7 @@ function revenue(document: Scenario, result: EngineResult): AssumptionSection {
 				['Merchant price escalation', ['revenue', 'merchantEscalation']],
 				['Curtailment (unpaid)', ['revenue', 'curtailment']]
 			]),
-			...(grants.length > 0 ? [{ label: 'Grants in total (real)', value: money(result.costs.grantsRealTotal, document.currency) }] : [])
+			...(grants.length > 0 ? [derived('Grants in total (real)', result.costs.grantsRealTotal, 0, document.currency)] : [])
 		],
 		tables:
 			grants.length === 0
@@ -430,6 +506,43 @@ const computedLabels: Record<string, string | null> = {
 	'Funding order': null
 };
 
+const reserveFundingWords: Record<'from-funding' | 'from-cash-flow', string> = {
+	'from-funding': 'In full at COD, from the construction funding',
+	'from-cash-flow': 'From the cash left after debt service, before distributions'
+};
+const sweepWords: Record<'always' | 'in-lock-up', string> = {
+	always: 'of the cash otherwise distributable, every year',
+	'in-lock-up': 'of the cash trapped in lock-up years'
+};
+
+/** The reserve accounts and covenants the document sets (none when it leaves them out). */
+function reservesAndCovenants(document: Scenario): Fact[] {
+	const { reserves, covenants } = document.finance;
+	const list: Fact[] = [];
+	const r = (...keys: string[]): FieldPath => ['finance', 'reserves', ...keys];
+	if (reserves?.debtService) {
+		list.push(...facts(document, [["Debt service reserve, in months of the next year's debt service", r('debtService', 'months')]]));
+		list.push({ label: 'Debt service reserve filled', value: reserveFundingWords[reserves.debtService.funding ?? 'from-funding'] });
+	}
+	if (reserves?.maintenance) {
+		const years = reserves.maintenance.fundingYears;
+		const label = 'Maintenance reserve: each overhaul funded over';
+		list.push(years === undefined ? { label, value: 'its own interval' } : inputFact(label, years, 'years'));
+	}
+	if (reserves?.decommissioning) list.push(...facts(document, [['Decommissioning reserve funded over the last', r('decommissioning', 'fundingYears')]]));
+	if (covenants) {
+		const c = (key: string): FieldPath => ['finance', 'covenants', key];
+		list.push(...facts(document, [['Distributions locked up below a DSCR of', c('lockUpDscr')], ['Event of default below a DSCR of', c('defaultDscr')]]));
+		const sweep = covenants.cashSweep;
+		if (sweep) {
+			const words = sweepWords[sweep.when ?? 'always'];
+			const figure = inputFigure(sweep.share, 'share');
+			list.push({ label: 'Cash sweep to prepay the loan', value: `${withUnit(sweep.share, 'share')} ${words}`, figure: { ...figure, unit: `% ${words}` } });
+		}
+	}
+	return list;
+}
+
 function financeAndDebt(document: Scenario, result: EngineResult): AssumptionSection {
 	const debt = document.finance.debt;
 	const list: Fact[] = [
@@ -437,7 +550,7 @@ function financeAndDebt(document: Scenario, result: EngineResult): AssumptionSec
 			['Inflation', ['finance', 'inflation']],
 			['Real discount rate', ['finance', 'realDiscountRate']]
 		]),
-		{ label: 'Nominal discount rate (Fisher)', value: `${groupDigits(new Decimal(result.rates.nominalDiscountRate).times(100), 2)} %/yr` }
+		derived('Nominal discount rate (Fisher)', new Decimal(result.rates.nominalDiscountRate).times(100), 2, '%/yr')
 	];
 	if (debt.sizing === 'none') {
 		list.push({ label: 'Senior debt', value: 'None: the project is funded by equity' });
@@ -465,7 +578,8 @@ function financeAndDebt(document: Scenario, result: EngineResult): AssumptionSec
 		// Documents saved before these fields existed were evaluated with the schema's defaults.
 		{ label: 'Construction funded', value: fundingOrderLabels[debt.fundingOrder ?? 'equity-first'] },
 		{ label: 'Repayment', value: repaymentWords[debt.repayment] },
-		{ label: 'Interest during construction', value: debt.capitalizeInterestDuringConstruction ? 'Rolled into the loan' : 'Paid by equity' }
+		{ label: 'Interest during construction', value: debt.capitalizeInterestDuringConstruction ? 'Rolled into the loan' : 'Paid by equity' },
+		...reservesAndCovenants(document)
 	);
 	const tables: FactTable[] = [];
 	const downside = debt.sizing === 'target-dscr' ? (debt.downsideCases ?? []) : [];
@@ -554,22 +668,25 @@ function tax(document: Scenario): AssumptionSection {
 	} else {
 		list.push({ label: 'Depreciation', value: depreciationMethodWords[dep.method] });
 		if (dep.method === 'declining-balance') list.push(...facts(document, [['Declining-balance factor', [...base, 'decliningBalanceFactor']]]));
-		list.push({ label: 'Depreciation life', value: lifeText(dep, years) });
+		const life = dep.method === 'schedule' ? undefined : (dep.lifeYears ?? years);
+		list.push({ label: 'Depreciation life', value: lifeText(dep, years), ...(life === undefined ? {} : { figure: inputFigure(life, 'years') }) });
 		if (dep.method === 'schedule') list.push({ label: 'Share written off each year, year 1 first', value: shares(dep.schedule) });
 		else list.push({ label: 'First year', value: firstYearText(dep) });
 	}
 	list.push({ label: 'Carry tax losses forward', value: yesNo(document.finance.taxLossCarryForward) });
 	if (document.finance.taxLossCarryForward && document.finance.taxLossCarryForwardCap !== undefined) {
-		list.push({ label: 'Losses brought forward may offset at most', value: `${withUnit(document.finance.taxLossCarryForwardCap, 'share')} of a year's taxable profit` });
+		const cap = document.finance.taxLossCarryForwardCap;
+		const figure = { ...inputFigure(cap, 'share'), unit: "% of a year's taxable profit" };
+		list.push({ label: 'Losses brought forward may offset at most', value: `${withUnit(cap, 'share')} of a year's taxable profit`, figure });
 	}
 	return { title: 'Tax', facts: list, tables };
 }
 
 /** Every section of the assumptions, in the editor's order. */
-export function assumptionSections(document: Scenario, result: EngineResult): AssumptionSection[] {
+export function assumptionSections(document: Scenario, result: EngineResult, detail: AssumptionDetail = 'summary'): AssumptionSection[] {
 	return [
-		siteAndResource(document),
-		device(document, result),
+		siteAndResource(document, detail),
+		device(document, result, detail),
 		arrayAndLosses(document, result),
 		timeline(document),
 		capitalCosts(document, result),

@@ -1,38 +1,51 @@
 /**
  * The tables an export holds: the annual cash-flow table with units in every
- * header, the metrics with the catalogue's labels, units and precision (one
- * form for CSV, one for a spreadsheet), the engine's warnings, and the
- * cautions.
+ * header (exact values with number formats for a spreadsheet, rounded to the
+ * same decimals for CSV), the metrics with the catalogue's labels, units and
+ * precision (one form for CSV, one for a spreadsheet), the engine's warnings,
+ * and the cautions.
  */
 import { CAUTIONS } from '../../cautions';
 import { METRIC_LIST, metricUnitWithBasis } from '../../metrics/catalogue';
 import { exactMetric, roundedMetric, spreadsheetNumberFormat } from '../../metrics/format';
+import type { Scenario } from '../../schemas/scenario';
 import type { CashFlowRow, EngineResult } from '../engine/evaluate';
+import { numberFormat, roundedText } from './export-numbers';
 
 export interface ExportColumn {
 	key: keyof CashFlowRow;
 	header: string;
-	numeric: boolean;
+	/** Decimals a number is shown with (the catalogue's for money, energy, prices and cover); null for text. */
+	places: number | null;
+	/** Thousands grouped in the spreadsheet (not for the year). */
+	grouped?: boolean;
 }
+
+export type ExportCell = string | number | null;
 
 export interface ExportTable {
 	title: string;
 	headers: string[];
-	/** Cells as text; numbers stay exact decimal strings, null is an empty cell. */
-	rows: (string | number | null)[][];
+	/** Cells as text; numbers as decimal strings, null is an empty cell. */
+	rows: ExportCell[][];
 	/** Which columns hold numbers (for spreadsheet cell types). */
 	numeric: boolean[];
-	/** Spreadsheet number formats by row and column (null: general); absent, every cell is general. */
+	/** Spreadsheet number formats by row and column (null: general); a cell with a format holds a number whatever its column. */
 	numberFormats?: (string | null)[][];
+	/** Rows set in bold under the header: the title and header of a small table within the sheet. */
+	headingRows?: boolean[];
+	/** Columns kept in view at the left as the sheet scrolls (the header row always is). */
+	frozenColumns?: number;
 }
 
+/** The columns of the annual table, each with the decimals of its figures: money and energy whole, prices and DSCR to two places (as the catalogue shows NPV, energy, LCOE and cover). */
 export function cashFlowColumns(currency: string): ExportColumn[] {
-	const money = (key: keyof CashFlowRow, label: string): ExportColumn => ({ key, header: `${label} (${currency}, nominal)`, numeric: true });
+	const money = (key: keyof CashFlowRow, label: string): ExportColumn => ({ key, header: `${label} (${currency}, nominal)`, places: 0, grouped: true });
 	return [
-		{ key: 't', header: 'Year t (0 = COD)', numeric: true },
-		{ key: 'phase', header: 'Phase', numeric: false },
-		{ key: 'energyMWh', header: 'Energy delivered (MWh)', numeric: true },
-		{ key: 'pricePerMWh', header: `Price (${currency}/MWh, nominal)`, numeric: true },
+		{ key: 't', header: 'Year t (0 = COD)', places: 0, grouped: false },
+		{ key: 'phase', header: 'Phase', places: null },
+		{ key: 'energyMWh', header: 'Energy delivered (MWh)', places: 0, grouped: true },
+		{ key: 'pricePerMWh', header: `Price (${currency}/MWh, nominal)`, places: 2, grouped: true },
 		money('revenue', 'Revenue'),
 		money('opex', 'Opex'),
 		money('ebitda', 'EBITDA'),
@@ -49,7 +62,7 @@ export function cashFlowColumns(currency: string): ExportColumn[] {
 		money('principal', 'Principal'),
 		money('debtService', 'Debt service'),
 		money('debtBalance', 'Debt balance at year end'),
-		{ key: 'dscr', header: 'DSCR (ratio)', numeric: true },
+		{ key: 'dscr', header: 'DSCR (ratio)', places: 2, grouped: false },
 		money('projectCashFlowPreTax', 'Project cash flow pre-tax'),
 		money('projectCashFlowPostTax', 'Project cash flow post-tax'),
 		money('cumulativeProjectCashFlow', 'Cumulative project cash flow post-tax'),
@@ -58,14 +71,40 @@ export function cashFlowColumns(currency: string): ExportColumn[] {
 	];
 }
 
+function columnFormat(column: ExportColumn): string | null {
+	if (column.places === null) return null;
+	return column.grouped ? numberFormat(column.places) : column.places > 0 ? `0.${'0'.repeat(column.places)}` : '0';
+}
+
+/** The annual table for a spreadsheet: the engine's exact values, each column's number format showing its decimals; the year column kept in view. */
 export function cashFlowTable(result: EngineResult): ExportTable {
 	const columns = cashFlowColumns(result.currency);
+	const formats = columns.map(columnFormat);
 	return {
-		title: 'Cash flow',
+		title: 'Annual table',
 		headers: columns.map((c) => c.header),
 		// A result stored before a column existed leaves its cells empty.
 		rows: result.cashFlow.map((row) => columns.map((c) => row[c.key] ?? null)),
-		numeric: columns.map((c) => c.numeric)
+		numeric: columns.map((c) => c.places !== null),
+		numberFormats: result.cashFlow.map(() => formats),
+		frozenColumns: 1
+	};
+}
+
+/** The annual table for a CSV file: every figure rounded to its column's decimals, as the spreadsheet shows it. */
+export function cashFlowCsvTable(result: EngineResult): ExportTable {
+	const columns = cashFlowColumns(result.currency);
+	const sheet = cashFlowTable(result);
+	return {
+		title: sheet.title,
+		headers: sheet.headers,
+		rows: sheet.rows.map((row) =>
+			row.map((cell, i) => {
+				const places = columns[i].places;
+				return cell === null || places === null ? cell : roundedText(cell, places);
+			})
+		),
+		numeric: sheet.numeric
 	};
 }
 
@@ -99,7 +138,8 @@ export function metricsSheetTable(result: EngineResult): ExportTable {
 		headers: ['Metric', 'Key', 'Value', 'Unit'],
 		rows: METRIC_LIST.map(({ key, label }) => [label, key, result.metrics[key], metricUnitWithBasis(key, result.currency)]),
 		numeric: [false, false, true, false],
-		numberFormats: METRIC_LIST.map(({ key }) => [null, null, spreadsheetNumberFormat(key), null])
+		numberFormats: METRIC_LIST.map(({ key }) => [null, null, spreadsheetNumberFormat(key), null]),
+		frozenColumns: 1
 	};
 }
 
@@ -116,6 +156,8 @@ export interface ExportContext {
 	scenarioName: string;
 	revision: number;
 	generatedAt: Date;
+	/** The saved document the result is of: the assumptions sheet lists its inputs. */
+	document: Scenario;
 }
 
 export function aboutTable(result: EngineResult, context: ExportContext): ExportTable {

@@ -1,5 +1,5 @@
 import { authorize } from '$lib/server/auth/access';
-import { ApiProblem, apiRoute } from '$lib/server/workbench/api-route';
+import { ApiProblem, apiRoute, validateDocument } from '$lib/server/workbench/api-route';
 import { loadScenario } from '$lib/server/workbench/evaluation';
 import { resultOfSavedScenario } from '$lib/server/workbench/stored-results';
 import { csvTables, exportFormats, type CsvTableName, type ExportFormat } from '$lib/server/workbench/export';
@@ -8,9 +8,11 @@ import { takeComputeAllowance } from '$lib/server/compute/limits';
 import type { RequestHandler } from './$types';
 
 /**
- * The saved scenario's results as a file: `?format=xlsx` (every table, a
- * sheet each, cautions on their own sheet) or `?format=csv` (the cash-flow
- * table, or `&table=metrics`, the cautions after a blank line).
+ * The saved scenario's results as a file named for the project, the scenario
+ * and the day: `?format=xlsx` (every table, a sheet each: assumptions, annual
+ * table, metrics, cautions on their own sheet) or `?format=csv` (the cash-flow
+ * table, or `&table=metrics` or `&table=assumptions`, the cautions after a
+ * blank line).
  */
 export const GET: RequestHandler = apiRoute(async (event) => {
 	const { project, scenarioId, user } = await authorize(event, event.params, 'viewer');
@@ -20,14 +22,16 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 		throw new ApiProblem(422, 'Choose an export format.', [{ path: 'format', message: `format must be ${exportFormats.join(' or ')}` }]);
 	}
 	if (!(csvTables as readonly string[]).includes(table)) {
-		throw new ApiProblem(422, 'Choose a table to export.', [{ path: 'table', message: `table must be ${csvTables.join(' or ')}` }]);
+		throw new ApiProblem(422, 'Choose a table to export.', [{ path: 'table', message: `table must be ${csvTables.slice(0, -1).join(', ')} or ${csvTables.at(-1)}` }]);
 	}
 	const scenario = await loadScenario(scenarioId);
 	await takeComputeAllowance(user.id, 'export');
 	const { result } = await resultOfSavedScenario(scenario, project);
+	// Read as the engine read it: an older schema version upgraded, defaults filled in.
+	const document = validateDocument(scenario.document, project);
 	const file = await buildExportOnPool(
 		result,
-		{ projectName: project.name, scenarioName: scenario.name, revision: scenario.revision, generatedAt: new Date() },
+		{ projectName: project.name, scenarioName: scenario.name, revision: scenario.revision, generatedAt: new Date(), document },
 		format as ExportFormat,
 		table as CsvTableName
 	);
