@@ -29,7 +29,7 @@ test('the skip link, the focus ring and the workspace switcher', async ({ page }
 	expect(ring).toEqual({ style: 'solid', width: '2px', colour: 'rgb(169, 78, 42)' });
 
 	// The consultant works in two workspaces: choosing the other one switches at once, no button press.
-	const switcher = page.getByLabel('Workspace', { exact: true });
+	const switcher = page.getByRole('combobox', { name: 'Workspace' });
 	const before = page.url();
 	const other = await switcher.locator('option:not(:checked)').first().getAttribute('value');
 	await switcher.selectOption(other!);
