@@ -85,7 +85,9 @@ test('an analyst creates a project, uploads a time series into a new scenario, e
 	expect(lcoeBefore).toMatch(/^\d[\d,]*\.\d\d$/);
 
 	const amount = page.getByRole('spinbutton', { name: 'Amount of capex line 1', exact: true });
-	const firstAmount = Number(await amount.inputValue());
+	// Money reads grouped (12,000,000) and is typed either way.
+	const firstAmount = Number((await amount.inputValue()).replace(/,/g, ''));
+	expect(firstAmount).toBeGreaterThan(0);
 	await amount.fill(String(firstAmount * 1.5));
 	await expect(page.getByText('Unsaved changes', { exact: true })).toBeVisible();
 	await expect(metric(page, 'lcoeReal')).not.toHaveText(lcoeBefore!);
@@ -94,14 +96,19 @@ test('an analyst creates a project, uploads a time series into a new scenario, e
 	// More capex for the same energy can only raise the levelised cost.
 	expect(lcoeAfter).toBeGreaterThan(Number(lcoeBefore!.replace(/,/g, '')));
 
-	// A field the schema refuses is named beside its input; the last good results stay.
+	// A field the schema refuses is named beside its input; the last good results stay. Shares are typed in per cent.
 	const availability = page.getByLabel('Availability', { exact: true });
-	await availability.fill('1.4');
+	await availability.fill('140');
 	await expect(page.locator('#field-array-availability-error')).toBeVisible();
 	await expect(page.getByTestId('results')).toBeVisible();
 	await shot(page, '4-field-error');
-	await availability.fill('0.93');
+	await availability.fill('93');
 	await expect(page.locator('#field-array-availability-error')).toHaveCount(0);
+	// An arrow key moves a share by a tenth of a point, not to 100 %.
+	await availability.press('ArrowUp');
+	await expect(availability).toHaveValue('93.1');
+	await availability.press('ArrowDown');
+	await expect(availability).toHaveValue('93');
 	await waitForResults(page);
 
 	await page.getByRole('button', { name: 'Save', exact: true }).click();
@@ -113,12 +120,12 @@ test('an analyst creates a project, uploads a time series into a new scenario, e
 	await page.getByLabel('Name of the copy').fill('Downside case');
 	await page.getByRole('button', { name: 'Duplicate', exact: true }).click();
 	await expect(page.getByLabel('Scenario name')).toHaveValue('Downside case');
-	await expect(page.getByRole('spinbutton', { name: 'Amount of capex line 1', exact: true })).toHaveValue(String(firstAmount * 1.5));
+	await expect(page.getByRole('spinbutton', { name: 'Amount of capex line 1', exact: true })).toHaveValue((firstAmount * 1.5).toLocaleString('en-GB', { maximumFractionDigits: 10 }));
 	await waitForResults(page);
 	const downsideUrl = page.url();
 
 	// Someone else saves first: the save is refused, nothing is overwritten, the latest can be loaded.
-	await page.getByLabel('Availability', { exact: true }).fill('0.85');
+	await page.getByLabel('Availability', { exact: true }).fill('85');
 	const scenarioId = downsideUrl.split('/').at(-1)!;
 	const current = await (await page.request.get(`/api/v1/scenarios/${scenarioId}`)).json();
 	const theirs = await page.request.put(`/api/v1/scenarios/${scenarioId}`, {
@@ -130,7 +137,7 @@ test('an analyst creates a project, uploads a time series into a new scenario, e
 	await shot(page, '5-stale-save');
 	await page.getByRole('button', { name: /Load revision 2/ }).click();
 	await expect(page.getByRole('textbox', { name: 'Notes', exact: true })).toHaveValue('Saved from another window');
-	await expect(page.getByLabel('Availability', { exact: true })).toHaveValue('0.93');
+	await expect(page.getByLabel('Availability', { exact: true })).toHaveValue('93');
 
 	await openPage(page, projectUrl);
 	const list = page.getByRole('list', { name: 'Scenarios' });

@@ -1,0 +1,59 @@
+/**
+ * How the editor's number fields read and are typed: fractions as per cent
+ * (0.87 shows and is typed as 87, beside "%"), thousands grouped
+ * (12,000,000), and arrow keys that step by an amount that fits the field
+ * (0.1 of a per cent, a whole device, a hundredth of a money amount's
+ * magnitude) rather than the browser's 1. Safe to import in the browser.
+ */
+
+/** Display units per stored unit: a fraction unit ("fraction/yr (nominal)") shows as per cent ("%/yr (nominal)"), times 100. */
+export function entryUnit(unit: string): { unit: string; scale: number } {
+	if (!unit.startsWith('fraction')) return { unit, scale: 1 };
+	return { unit: `%${unit.slice('fraction'.length)}`, scale: 100 };
+}
+
+/** Float noise away (0.87 * 100 = 87.00000000000001 -> 87), twelve significant digits kept. */
+export function tidy(x: number): number {
+	return x === 0 ? 0 : Number(x.toPrecision(12));
+}
+
+const grouping = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 10, useGrouping: true });
+
+/** A stored value as the field shows it: scaled, grouped, a true minus sign; empty for none. */
+export function formatEntry(value: number | undefined | null, scale: number): string {
+	if (value === undefined || value === null || !Number.isFinite(value)) return '';
+	return grouping.format(tidy(value * scale)).replace('-', '−');
+}
+
+/**
+ * Typed text to a stored value: spaces and thousands commas dropped, a true
+ * or ASCII minus, a point for decimals. Undefined for an empty field, NaN for
+ * text that is not a number.
+ */
+export function parseEntry(text: string, scale: number): number | undefined {
+	const cleaned = text.replace(/[\s\u00a0\u202f,]/g, '').replace(/[−–]/g, '-');
+	if (cleaned === '') return undefined;
+	if (!/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(cleaned)) return NaN;
+	return tidy(Number(cleaned) / scale);
+}
+
+/**
+ * The arrow-key step in display units: 0.1 for a per cent, 1 for whole
+ * numbers, otherwise a hundredth of the value's order of magnitude (0.01
+ * for 3.5, 100,000 for 12,000,000), at least 0.01.
+ */
+export function entryStep(displayValue: number | undefined, scale: number, integer: boolean): number {
+	if (integer) return 1;
+	if (scale === 100) return 0.1;
+	const magnitude = displayValue === undefined || displayValue === 0 ? 1 : Math.abs(displayValue);
+	return Math.max(0.01, 10 ** (Math.floor(Math.log10(magnitude)) - 2));
+}
+
+/** One arrow-key press: the displayed value moved by one step and kept inside the field's bounds (display units). */
+export function stepped(displayValue: number | undefined, direction: 1 | -1, step: number, bounds: { min?: number; max?: number }): number {
+	const from = displayValue ?? 0;
+	// Land on the step grid (8.13 up by 0.1 gives 8.2, not 8.23), as spin buttons do.
+	const onGrid = direction > 0 ? Math.floor(from / step + 1e-9) * step + step : Math.ceil(from / step - 1e-9) * step - step;
+	const next = tidy(onGrid);
+	return Math.min(bounds.max ?? Infinity, Math.max(bounds.min ?? -Infinity, next));
+}
