@@ -170,6 +170,11 @@ test('a viewer reads a scenario and cannot change it', async ({ page }) => {
 	await expect(page.getByRole('heading', { level: 1, name: 'Base case' })).toBeVisible();
 	await waitForResults(page);
 	await expect(page.getByText(/^Of the saved revision \d+$/)).toBeVisible();
+	// A viewer reads the assumptions in words first; every field, disabled, is a click away.
+	const summary = page.getByRole('region', { name: 'Assumptions' });
+	await expect(summary).toContainText('Availability');
+	await expect(page.getByLabel('Seawater density')).toHaveCount(0);
+	await page.getByRole('button', { name: 'Show every field' }).click();
 	await expect(page.getByLabel('Seawater density')).toBeDisabled();
 	await expect(page.getByRole('spinbutton', { name: 'Amount of capex line 1', exact: true })).toBeDisabled();
 	await expect(page.getByRole('button', { name: 'Save', exact: true })).toHaveCount(0);
