@@ -5,7 +5,11 @@ test('the home page says what Tidewright is and leads to the workbench', async (
 	await page.goto('/');
 	await expect(page.getByRole('heading', { level: 1 })).toContainText('resource to return');
 	await expect(page.getByLabel('Cautions')).toContainText('not investment advice');
-	await page.getByRole('link', { name: 'Open the workbench' }).click();
+	// A first visit leads to an account of one's own.
+	await page.getByRole('link', { name: 'Create a free account' }).click();
+	await expect(page).toHaveURL(/\/signup$/);
+	await page.goBack();
+	await page.getByRole('link', { name: /Open the workbench/ }).click();
 	await expect(page).toHaveURL(/\/signin/);
 });
 
