@@ -9,9 +9,8 @@
 import { readFileSync } from 'node:fs';
 import { expect, test, type Page } from '@playwright/test';
 import { demoProjects } from '../../seeds/01_demo_workspace';
-import { firstLinkIn, latestMailTo } from './helpers/mail';
 import { openPage } from './helpers/page';
-import { newSignedInPage, signInPage } from './helpers/session';
+import { newSignedInPage, signInPage, signUpFreshAccount } from './helpers/session';
 
 const artifacts = 'tests/.artifacts';
 const tidalProject = demoProjects[0].name;
@@ -218,27 +217,7 @@ test.describe('probabilistic runs', () => {
 	 */
 	test('on the Free plan the runs page names the plan it needs and shows no form; the API says 402', async ({ page }) => {
 		test.setTimeout(90_000);
-		const email = `maren.holt.${Date.now()}.${Math.floor(Math.random() * 1e6)}@example.org`;
-		const password = 'undertow quay lantern 58';
-		await openPage(page, '/signup');
-		await page.getByLabel('Your name').fill('Maren Holt');
-		await page.getByLabel('E-mail').fill(email);
-		await page.getByLabel('Password').fill(password);
-		await page.getByLabel('Workspace name').fill('Holt Wave Studies');
-		await page.getByRole('button', { name: 'Make my account' }).click();
-		await expect(page.getByRole('status')).toContainText(`We sent a link to ${email}`);
-		const verification = await latestMailTo(email, 'Confirm your e-mail');
-		await openPage(page, firstLinkIn(verification.text, '/verify-email/'));
-		await page.getByRole('button', { name: 'Confirm my address' }).click();
-		await expect(page.getByText('your address is confirmed')).toBeVisible();
-		await openPage(page, '/signin');
-		await page.getByLabel('E-mail').fill(email);
-		await page.getByLabel('Password').fill(password);
-		await page.getByRole('button', { name: 'Sign in' }).click();
-		await expect(page.getByRole('heading', { name: 'Holt Wave Studies' })).toBeVisible();
-
-		const workspaceId = /\/app\/w\/([0-9a-f-]{36})/.exec(page.url())?.[1];
-		if (!workspaceId) throw new Error(`not in a workspace: ${page.url()}`);
+		const workspaceId = await signUpFreshAccount(page, { name: 'Maren Holt', workspace: 'Holt Wave Studies' });
 		const project = await page.request.post(`/api/v1/workspaces/${workspaceId}/projects`, { data: { name: 'Holt test array', technology: 'wave', siteName: 'Holt Reach' } });
 		expect(project.status(), await project.text()).toBe(201);
 		const projectId = (await project.json()).project.id as string;

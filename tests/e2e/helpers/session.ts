@@ -5,6 +5,7 @@
 import { expect, type APIRequestContext, type Browser, type Page } from '@playwright/test';
 import { request as playwrightRequest } from '@playwright/test';
 import { demoUsers, type DemoPersona } from '../../../seeds/02_demo_users';
+import { firstLinkIn, latestMailTo } from './mail';
 import { openPage } from './page';
 
 export type Persona = DemoPersona | 'anonymous';
@@ -68,4 +69,33 @@ export async function signedInGuestRequest(
 	});
 	expect(response.status(), `sign-in of room guest ${investor.email}`).toBe(303);
 	return context;
+}
+
+/**
+ * A new account through the sign-up form, its address confirmed from the mail
+ * and signed in: it lands in its own empty workspace on the Free plan. Answers
+ * the workspace id.
+ */
+export async function signUpFreshAccount(page: Page, who: { name: string; workspace: string }): Promise<string> {
+	const email = `${who.name.toLowerCase().replace(/\W+/g, '.')}.${Date.now()}.${Math.floor(Math.random() * 1e6)}@example.org`;
+	const password = 'undertow quay lantern 58';
+	await openPage(page, '/signup');
+	await page.getByLabel('Your name').fill(who.name);
+	await page.getByLabel('E-mail').fill(email);
+	await page.getByLabel('Password').fill(password);
+	await page.getByLabel('Workspace name').fill(who.workspace);
+	await page.getByRole('button', { name: 'Make my account' }).click();
+	await expect(page.getByRole('status')).toContainText(`We sent a link to ${email}`);
+	const verification = await latestMailTo(email, 'Confirm your e-mail');
+	await openPage(page, firstLinkIn(verification.text, '/verify-email/'));
+	await page.getByRole('button', { name: 'Confirm my address' }).click();
+	await expect(page.getByText('your address is confirmed')).toBeVisible();
+	await openPage(page, '/signin');
+	await page.getByLabel('E-mail').fill(email);
+	await page.getByLabel('Password').fill(password);
+	await page.getByRole('button', { name: 'Sign in' }).click();
+	await expect(page.getByRole('heading', { name: who.workspace })).toBeVisible();
+	const workspaceId = /\/app\/w\/([0-9a-f-]{36})/.exec(page.url())?.[1];
+	if (!workspaceId) throw new Error(`not in a workspace: ${page.url()}`);
+	return workspaceId;
 }

@@ -7,15 +7,35 @@ import type { Technology } from '../../schemas/workbench';
 
 const examples = import.meta.glob<Record<string, unknown>>('/examples/*.json', { eager: true, import: 'default' });
 
-export function starterDocument(
-	technology: Technology,
-	options: { name: string; currency: string; siteName: string }
-): Record<string, unknown> | undefined {
-	const example = Object.keys(examples)
+/** The example each technology starts from (see starterDocument), by technology, in the examples' order. */
+function starterExample(technology: Technology): Record<string, unknown> | undefined {
+	return Object.keys(examples)
 		.sort()
 		.map((path) => examples[path])
 		// A lender's case on an assessed energy is no starting point for a design: the first example that computes its energy.
 		.find((doc) => doc.technology === technology && (doc.resource as { kind?: unknown } | undefined)?.kind !== 'assessed-energy');
+}
+
+/** A whole project to start from, per technology: the example's site, currency and document (an empty workspace offers them). */
+export function exampleProject(technology: Technology): { name: string; siteName: string; siteDescription: string; currency: string; document: Record<string, unknown> } | undefined {
+	const example = starterExample(technology);
+	if (!example) return undefined;
+	const site = (example.site ?? {}) as { name?: string };
+	const siteName = site.name ?? '';
+	return {
+		name: `${siteName || String(example.name)} (example)`,
+		siteName,
+		siteDescription: typeof example.description === 'string' ? example.description : '',
+		currency: typeof example.currency === 'string' ? example.currency : 'EUR',
+		document: { ...structuredClone(example), name: 'Base case' }
+	};
+}
+
+export function starterDocument(
+	technology: Technology,
+	options: { name: string; currency: string; siteName: string }
+): Record<string, unknown> | undefined {
+	const example = starterExample(technology);
 	if (!example) return undefined;
 	const copy = structuredClone(example);
 	const site = { ...(copy.site as Record<string, unknown> | undefined), name: options.siteName || undefined };
