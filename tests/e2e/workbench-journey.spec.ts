@@ -100,6 +100,10 @@ test('an analyst creates a project, uploads a time series into a new scenario, e
 	const availability = page.getByLabel('Availability', { exact: true });
 	await availability.fill('140');
 	await expect(page.locator('#field-array-availability-error')).toBeVisible();
+	// The summary names the field in words, as the form does, and links to it.
+	const summary = page.getByRole('alert').filter({ hasText: 'attention' });
+	await expect(summary.getByRole('link', { name: 'Availability' })).toHaveAttribute('href', '#field-array-availability');
+	await expect(summary).not.toContainText('array.availability');
 	await expect(page.getByTestId('results')).toBeVisible();
 	await shot(page, '4-field-error');
 	await availability.fill('93');
