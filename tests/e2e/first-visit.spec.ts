@@ -19,6 +19,6 @@ test('an empty workspace starts from an example of each technology', async ({ pa
 	await expect(page).toHaveURL(/\/projects\/[0-9a-f-]{36}$/);
 	await expect(page.getByRole('heading', { level: 1 })).toContainText('(example)');
 	await page.getByRole('link', { name: 'Base case', exact: true }).click();
-	await expect(page.getByRole('heading', { level: 1, name: 'Base case' })).toBeVisible();
+	await expect(page.getByLabel('Scenario name')).toHaveValue('Base case');
 	await expect(page.locator('[data-metric="lcoeReal"] dd').first()).toHaveText(/^\d[\d,]*\.\d\d$/, { timeout: 20_000 });
 });
