@@ -12,6 +12,8 @@ import { apiError } from '../server/api';
 import { evaluateScenario } from '../server/engine/evaluate';
 import { defaultDrivers, spider, tornado } from '../server/engine/sensitivity';
 import { compareScenarios } from '../server/workbench/compare';
+import { inputDifferences } from '../server/workbench/input-differences';
+import { sensitivityChoices } from '../server/analysis/sensitivity-choices';
 import { projectJson, scenarioJson, scenarioSummaryJson, uploadJson } from '../server/workbench/serialize';
 import type { KeyFigures } from '../server/workbench/stored-results';
 import { asJson } from '../workbench/api-types';
@@ -86,8 +88,20 @@ describe('comparisonResponseSchema', () => {
 			result: evaluateScenario(scenario)
 		});
 		const base = entry(first, 1, true);
-		const answer = { projectId: uuid(9), currency: 'EUR', ...compareScenarios([base, entry(second, 2, false)], base) };
+		const other = entry(second, 2, false);
+		const answer = {
+			projectId: uuid(9),
+			currency: 'EUR',
+			...compareScenarios([base, other], base),
+			inputDifferences: inputDifferences([
+				{ document: first, result: base.result },
+				{ document: second, result: other.result }
+			]),
+			screeningDrivers: { [base.id]: sensitivityChoices(first).filter((c) => c.usual), [other.id]: sensitivityChoices(second).filter((c) => c.usual) }
+		};
+		expect(answer.inputDifferences.length).toBeGreaterThan(0);
 		expect(fits(comparisonResponseSchema, answer)).toEqual([]);
+		expect(fits(comparisonResponseSchema, { ...answer, inputDifferences: null })).toEqual([]);
 	});
 });
 

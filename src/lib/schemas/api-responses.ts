@@ -272,9 +272,44 @@ export const comparisonResponseSchema = z.object({
 			coverShortfalls: z
 				.object({ negativeCfadsYears: z.array(z.number().int()), dscrBelowOneYears: z.array(z.number().int()) })
 				.describe('Operating years of the loan with negative CFADS, and with a DSCR below 1, shown beside the minimum DSCR (empty for a result stored before they were reported)'),
+			missingValues: z
+				.record(z.string(), z.string())
+				.describe('For each metric without a value, by key, why in words ("no IRR: cash flows never change sign …"), the engine’s own reason where the result has one'),
 			warnings: z.array(z.string())
 		})
-	)
+	),
+	inputDifferences: z
+		.array(
+			z.object({
+				title: z.string().describe('A section of the assumptions, in the editor’s order'),
+				rows: z.array(
+					z.object({
+						table: z.string().nullable().describe('The table of the section the input sits in; null for a single fact'),
+						label: z.string().describe('The input, or a table cell as "row, column"'),
+						unit: z.string().describe('The unit every value is in; empty when the values are words or carry their own units'),
+						values: z.array(z.string().nullable()).describe('One value a scenario, in the order of scenarios; null where a scenario has no such input')
+					})
+				)
+			})
+		)
+		.nullable()
+		.describe('The inputs whose values differ between the chosen scenarios, in the words and units of the assumptions summary, without figures the engine worked out; empty when they agree, null when a saved document no longer reads'),
+	screeningDrivers: z
+		.record(
+			z.uuid(),
+			z.array(
+				z.object({
+					driver: z.string(),
+					label: z.string(),
+					unit: z.string(),
+					baseInput: z.number(),
+					low: z.number().describe('The low value for the tornado route: a multiplier of the base or the value itself'),
+					high: z.number(),
+					usual: z.boolean()
+				})
+			)
+		)
+		.describe('By scenario id: the usual sensitivity drivers with that scenario’s own screening ranges (multiplier ranges are the same for every scenario)')
 });
 
 const driverRangeSchema = z.object({ driver: z.string(), low: z.number(), high: z.number() });

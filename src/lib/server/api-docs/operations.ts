@@ -434,7 +434,8 @@ export const apiOperations: ApiOperation[] = [
 		path: '/api/v1/projects/{projectId}/compare',
 		tag: 'Results',
 		summary: 'Compare saved scenarios side by side',
-		description: "Each scenario's metrics and its differences from the project's base case.",
+		description:
+			"Each scenario's metrics and its differences from the project's base case, words for the metrics without a value, the inputs that differ between the scenarios, and each scenario's usual sensitivity drivers with its own screening ranges (to send to the tornado route).",
 		minimumRole: 'viewer',
 		apiToken: 'read-only',
 		query: [

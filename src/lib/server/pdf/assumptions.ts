@@ -34,12 +34,16 @@ export interface Fact {
 	value: string;
 	/** The number in `value` apart from its unit; absent for a fact in words. */
 	figure?: Figure;
+	/** Worked out by the engine from the inputs (installed capacity, capex total, debt at COD), not typed: a comparison of inputs leaves it out. */
+	derived?: true;
 }
 
 export interface FactTable {
 	title: string;
 	columns: TableColumn[];
 	rows: string[][];
+	/** Columns the engine worked out (by index); every column when the whole table is a result. */
+	derivedColumns?: number[];
 }
 
 export interface AssumptionSection {
@@ -95,7 +99,7 @@ function inputFact(label: string, value: number, unit: string): Fact {
 /** A figure the engine derived, at `places` decimals in `unit` (per cent figures already times 100): "15.00 MW". */
 function derived(label: string, value: DecimalJs.Value, places: number, unit: string): Fact {
 	const d = new Decimal(value).toDecimalPlaces(places, Decimal.ROUND_HALF_EVEN);
-	return { label, value: `${groupDigits(d, places)} ${unit}`, figure: { value: (d.isZero() ? d.abs() : d).toFixed(places), places, unit } };
+	return { label, value: `${groupDigits(d, places)} ${unit}`, figure: { value: (d.isZero() ? d.abs() : d).toFixed(places), places, unit }, derived: true };
 }
 
 /** The document's value at `path` with its editor unit; null when the field is absent. */
@@ -330,14 +334,16 @@ function arrayAndLosses(document: Scenario, result: EngineResult): AssumptionSec
 	// Results stored before the horizons existed have the one-year levels only.
 	const tenYear = e.exceedancesByHorizon?.find((h) => h.horizonYears === 10);
 	const tenYearOf = (label: string) => tenYear?.levels.find((l) => l.label === label);
+	const exceedanceColumns: TableColumn[] = [
+		{ header: 'Level' },
+		{ header: 'Net energy, one year', unit: 'MWh/yr', align: 'right' },
+		{ header: 'Share of P50', unit: '%', align: 'right' },
+		...(tenYear ? [{ header: 'Mean over ten years', unit: 'MWh/yr', align: 'right' as const }] : [])
+	];
 	tables.push({
 		title: 'Net annual energy at each exceedance level (first operating year)',
-		columns: [
-			{ header: 'Level' },
-			{ header: 'Net energy, one year', unit: 'MWh/yr', align: 'right' },
-			{ header: 'Share of P50', unit: '%', align: 'right' },
-			...(tenYear ? [{ header: 'Mean over ten years', unit: 'MWh/yr', align: 'right' as const }] : [])
-		],
+		columns: exceedanceColumns,
+		derivedColumns: exceedanceColumns.map((_, i) => i),
 		rows: [
 			['P50', groupDigits(e.netAepMWh, 0), '100.0', ...(tenYear ? [groupDigits(e.netAepMWh, 0)] : [])],
 			...e.exceedances.map((x) => {
@@ -399,7 +405,8 @@ function capitalCosts(document: Scenario, result: EngineResult): AssumptionSecti
 					{ header: 'Phasing', unit: 'by construction year' },
 					{ header: 'Total with contingency', unit: `${currency}, real`, align: 'right' }
 				],
-				rows
+				rows,
+				derivedColumns: [4]
 			}
 		]
 	};
@@ -597,7 +604,7 @@ function financeAndDebt(document: Scenario, result: EngineResult): AssumptionSec
 	if (f) {
 		for (const fact of financingFacts(f, document.currency)) {
 			const label = fact.label in computedLabels ? computedLabels[fact.label] : fact.label;
-			if (label) list.push({ label, value: fact.value });
+			if (label) list.push({ label, value: fact.value, derived: true });
 		}
 		const sized = sizingCaseTable(f, document.currency);
 		if (sized.rows.length > 0) {
@@ -605,6 +612,7 @@ function financeAndDebt(document: Scenario, result: EngineResult): AssumptionSec
 			tables.push({
 				title: 'Debt each sizing case allows, with the DSCR under its energy',
 				columns: sized.headers.map((header, i) => ({ header, align: text(i) ? 'left' : 'right', wrap: text(i) })),
+				derivedColumns: sized.headers.map((_, i) => i),
 				rows: sized.rows.map((c) => (c.governs ? [`${c.cells[0]} (governs)`, ...c.cells.slice(1)] : c.cells))
 			});
 		}

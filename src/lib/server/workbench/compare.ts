@@ -4,7 +4,7 @@
  */
 import { Decimal } from '../engine/decimal';
 import { decimalString, type EngineResult } from '../engine/evaluate';
-import { CURRENCY_PLACEHOLDER, engineValueUnit, METRIC_KEYS, type MetricKey } from '../../metrics/catalogue';
+import { CURRENCY_PLACEHOLDER, engineValueUnit, METRIC_KEYS, METRICS, type MetricKey } from '../../metrics/catalogue';
 import type { CoverShortfalls } from '../engine/cover-shortfalls';
 
 export interface CompareEntry {
@@ -32,6 +32,8 @@ export interface ComparedScenario {
 	differences: Record<MetricKey, MetricDifference | null> | null;
 	/** The loan years the minimum DSCR leaves out or that fall short, shown beside it; none for a result stored before them. */
 	coverShortfalls: CoverShortfalls;
+	/** For each metric without a value, why, in words ("no IRR: …"), to show in its place. */
+	missingValues: Partial<Record<MetricKey, string>>;
 	warnings: string[];
 }
 
@@ -48,6 +50,57 @@ export function metricDifference(value: string | null, base: string | null): Met
 	const b = new Decimal(base);
 	const absolute = v.minus(b);
 	return { absolute: decimalString(absolute), relative: b.isZero() ? null : decimalString(absolute.div(b.abs())) };
+}
+
+/** What a missing metric is called before the reason: "no IRR: …". */
+const MISSING_HEAD: Record<MetricKey, string> = {
+	netAepMWh: 'no energy figure',
+	p90AepMWh: 'no energy figure',
+	capacityFactor: 'no capacity factor',
+	lcoeReal: 'no LCOE',
+	lcoeNominal: 'no LCOE',
+	lcoeFcr: 'no LCOE',
+	projectIrrPreTax: 'no IRR',
+	projectIrrPostTax: 'no IRR',
+	equityIrr: 'no IRR',
+	npv: 'no NPV',
+	paybackYears: 'no payback',
+	minDscr: 'no DSCR',
+	avgDscr: 'no DSCR',
+	llcr: 'no LLCR',
+	yearsInLockUp: 'no lock-up test',
+	debtAmount: 'no debt figure',
+	breakevenTariff: 'no breakeven tariff'
+};
+
+/** Metrics the engine leaves without a note of their own: they are missing for the same reason as the one named. */
+const MISSING_LIKE: Partial<Record<MetricKey, MetricKey>> = { lcoeNominal: 'lcoeReal', lcoeFcr: 'lcoeReal', avgDscr: 'minDscr' };
+
+/** Reasons where the engine writes none: a lock-up count needs a lock-up test among the covenants. */
+const FIXED_REASON: Partial<Record<MetricKey, string>> = { yearsInLockUp: 'the covenants set no lock-up DSCR' };
+const UNKNOWN_REASON = 'the engine gave no value (see what it noted)';
+
+/** The reason the engine wrote for a metric ("Equity IRR is not available: <reason>."), if the stored result has it. */
+function engineReason(key: MetricKey, warnings: readonly string[]): string | null {
+	const prefix = `${METRICS[key].label} is not available: `;
+	const found = warnings.find((w) => w.startsWith(prefix));
+	return found ? found.slice(prefix.length).replace(/\.$/, '') : null;
+}
+
+/**
+ * Words for each metric the result has no value for, in place of a dash:
+ * "no IRR: cash flows never change sign …", from the engine's own reason
+ * when the stored result carries it, else a short fixed reason.
+ */
+export function missingValueWords(result: Pick<EngineResult, 'metrics' | 'warnings'>): Partial<Record<MetricKey, string>> {
+	const words: Partial<Record<MetricKey, string>> = {};
+	for (const key of METRIC_KEYS) {
+		if (result.metrics[key] !== null && result.metrics[key] !== undefined) continue;
+		const like = MISSING_LIKE[key];
+		const reason = engineReason(key, result.warnings) ?? (like ? engineReason(like, result.warnings) : null) ?? FIXED_REASON[key] ?? UNKNOWN_REASON;
+		words[key] = `${MISSING_HEAD[key]}: ${reason}`;
+	}
+	return words;
 }
 
 export function compareScenarios(entries: readonly CompareEntry[], baseCase: CompareEntry | null): Comparison {
@@ -73,6 +126,7 @@ export function compareScenarios(entries: readonly CompareEntry[], baseCase: Com
 				negativeCfadsYears: entry.result.coverShortfalls?.negativeCfadsYears ?? [],
 				dscrBelowOneYears: entry.result.coverShortfalls?.dscrBelowOneYears ?? []
 			},
+			missingValues: missingValueWords(entry.result),
 			warnings: entry.result.warnings
 		}))
 	};

@@ -4,6 +4,9 @@ import { getBaseCaseOfProject, getScenariosInProject, listScenariosInProject, ty
 import { authorize } from '$lib/server/auth/access';
 import { ApiProblem, apiRoute } from '$lib/server/workbench/api-route';
 import { compareScenarios, type CompareEntry } from '$lib/server/workbench/compare';
+import { inputDifferences } from '$lib/server/workbench/input-differences';
+import { sensitivityChoices } from '$lib/server/analysis/sensitivity-choices';
+import { parseScenario, type Scenario } from '$lib/schemas/scenario';
 import { resultOfSavedScenario } from '$lib/server/workbench/stored-results';
 import { takeComputeAllowance } from '$lib/server/compute/limits';
 import type { ProjectRow } from '$lib/server/db/projects';
@@ -19,9 +22,17 @@ async function entryOf(scenario: ScenarioRecord, project: ProjectRow): Promise<C
 	return { id: scenario.id, name: scenario.name, revision: scenario.revision, isBaseCase: scenario.isBaseCase, result };
 }
 
+/** The saved document as the current schema reads it; null when it no longer passes (its result may still be stored). */
+function documentOf(scenario: ScenarioRecord): Scenario | null {
+	const parsed = parseScenario(scenario.document);
+	return parsed.ok ? parsed.scenario : null;
+}
+
 /**
  * Saved scenarios side by side (`?ids=a,b,c`; without ids, the project's live
- * scenarios), each with its differences from the project's base case.
+ * scenarios), each with its differences from the project's base case, the
+ * inputs that differ between them, and each one's usual sensitivity drivers
+ * with its own screening ranges (for tornadoes side by side).
  */
 export const GET: RequestHandler = apiRoute(async (event) => {
 	const { project, user } = await authorize(event, event.params, 'viewer');
@@ -44,5 +55,13 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 	const entries = await Promise.all(scenarios.map((s) => entryOf(s, project)));
 	const base = entries.find((e) => e.isBaseCase) ?? null;
 	const baseEntry = base ?? (await getBaseCaseOfProject(project.id).then((s) => (s ? entryOf(s, project) : null)));
-	return json({ projectId: project.id, currency: project.currency, ...compareScenarios(entries, baseEntry) });
+	const documents = scenarios.map(documentOf);
+	const readable = documents.every((d) => d !== null);
+	return json({
+		projectId: project.id,
+		currency: project.currency,
+		...compareScenarios(entries, baseEntry),
+		inputDifferences: readable ? inputDifferences(entries.map((e, i) => ({ document: documents[i]!, result: e.result }))) : null,
+		screeningDrivers: Object.fromEntries(scenarios.map((s, i) => [s.id, documents[i] ? sensitivityChoices(documents[i]).filter((c) => c.usual) : []]))
+	});
 });
