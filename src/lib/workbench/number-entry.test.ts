@@ -15,6 +15,9 @@ describe('number entry', () => {
 		expect(formatEntry(0.0815, 100)).toBe('8.15');
 		expect(formatEntry(-2500.5, 1)).toBe('−2,500.5');
 		expect(formatEntry(undefined, 1)).toBe('');
+		// At rest a field shows four decimals at most; typing in it shows them all.
+		expect(formatEntry(288.6666666666667, 1, 4)).toBe('288.6667');
+		expect(formatEntry(288.6666666666667, 1)).toBe('288.666666667');
 	});
 
 	it('reads typed text back, grouped or not', () => {

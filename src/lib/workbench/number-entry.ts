@@ -17,12 +17,24 @@ export function tidy(x: number): number {
 	return x === 0 ? 0 : Number(x.toPrecision(12));
 }
 
-const grouping = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 10, useGrouping: true });
+const formats = new Map<number, Intl.NumberFormat>();
+function grouping(places: number): Intl.NumberFormat {
+	let format = formats.get(places);
+	if (!format) formats.set(places, (format = new Intl.NumberFormat('en-GB', { maximumFractionDigits: places, useGrouping: true })));
+	return format;
+}
 
-/** A stored value as the field shows it: scaled, grouped, a true minus sign; empty for none. */
-export function formatEntry(value: number | undefined | null, scale: number): string {
+/** Decimals a field shows while it is not being typed in: 288.6666666666667 hours of a bin read 288.6667. */
+export const RESTING_PLACES = 4;
+
+/**
+ * A stored value as the field shows it: scaled, grouped, a true minus sign,
+ * at most `places` decimals (all of them, to twelve significant digits, while
+ * the field is being typed in); empty for none.
+ */
+export function formatEntry(value: number | undefined | null, scale: number, places = 10): string {
 	if (value === undefined || value === null || !Number.isFinite(value)) return '';
-	return grouping.format(tidy(value * scale)).replace('-', '−');
+	return grouping(places).format(tidy(value * scale)).replace('-', '−');
 }
 
 /**
