@@ -215,9 +215,17 @@ const matrix: Row[] = [
 	{ route: '/app/w/[workspaceId]/billing', method: 'POST', action: 'portal', expect: action('owner', `303 http://127.0.0.1:${stripeStandinPort}/portal/`) },
 	{ route: '/app/w/[workspaceId]/portfolio', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/projects/[projectId]', method: 'GET', expect: page('viewer') },
+	// Renaming is the analysts'; archiving and deleting an archived scenario the owners', and both ask first:
+	// the owner's body-less archive gets the question (200) and nothing changes.
+	{ route: '/app/w/[workspaceId]/projects/[projectId]', method: 'POST', action: 'rename', body: { form: { name: '' } }, expect: action('analyst', 400) },
+	{ route: '/app/w/[workspaceId]/projects/[projectId]', method: 'POST', action: 'archive', expect: action('owner', 200) },
+	{ route: '/app/w/[workspaceId]/projects/[projectId]', method: 'POST', action: 'deleteScenario', body: { form: { scenarioId: 'nobody' } }, expect: action('owner', 400) },
 	{ route: '/app/w/[workspaceId]/projects/[projectId]/compare', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/projects/[projectId]/scenarios/[scenarioId]', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/projects/[projectId]/scenarios/[scenarioId]/sensitivity', method: 'GET', expect: page('viewer') },
+	// The history reads like the scenario; restoring a revision saves, as the analysts' saves do.
+	{ route: '/app/w/[workspaceId]/projects/[projectId]/scenarios/[scenarioId]/history', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/projects/[projectId]/scenarios/[scenarioId]/history', method: 'POST', action: 'restore', body: { form: { revision: 'x' } }, expect: action('analyst', 400) },
 	// Probabilistic runs (workspace A is on the Team plan): viewers read them, analysts start and cancel them from the API.
 	{ route: '/app/w/[workspaceId]/projects/[projectId]/scenarios/[scenarioId]/runs', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/runs', method: 'GET', expect: page('viewer') },

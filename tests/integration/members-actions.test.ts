@@ -53,16 +53,29 @@ describe('members action remove', () => {
 		expect(await auditEvents(workspaceId)).toEqual([]);
 	});
 
-	it('removes a member and records it once', async () => {
+	it('asks first, naming the person, and changes nothing until the owner confirms', async () => {
 		const { owner, workspaceId } = await newWorkspace();
 		const analyst = await newUser();
 		await addMember(workspaceId, analyst.id, 'analyst', database.knex);
 		const outcome = (await actions.remove(actionEvent(owner, workspaceId, 'remove', { userId: analyst.id }))) as Outcome;
 		expect(isActionFailure(outcome)).toBe(false);
+		expect(outcome.confirmRemove).toEqual({ userId: analyst.id, name: analyst.name, email: analyst.email, role: 'analyst' });
+		expect(await getMembership(workspaceId, analyst.id, database.knex)).toBeDefined();
+		expect(await auditEvents(workspaceId)).toEqual([]);
+	});
+
+	it('removes a member once confirmed and records whom, once', async () => {
+		const { owner, workspaceId } = await newWorkspace();
+		const analyst = await newUser();
+		await addMember(workspaceId, analyst.id, 'analyst', database.knex);
+		const outcome = (await actions.remove(actionEvent(owner, workspaceId, 'remove', { userId: analyst.id, confirmed: 'yes' }))) as Outcome;
+		expect(isActionFailure(outcome)).toBe(false);
 		expect(await getMembership(workspaceId, analyst.id, database.knex)).toBeUndefined();
 		expect(await auditEvents(workspaceId)).toEqual([{ event: 'member-removed' }]);
+		const [{ detail }] = await database.knex('audit_events').select('detail').where({ workspace_id: workspaceId });
+		expect(detail).toMatchObject({ memberId: analyst.id, memberName: analyst.name, memberEmail: analyst.email });
 
-		const again = (await actions.remove(actionEvent(owner, workspaceId, 'remove', { userId: analyst.id }))) as Outcome;
+		const again = (await actions.remove(actionEvent(owner, workspaceId, 'remove', { userId: analyst.id, confirmed: 'yes' }))) as Outcome;
 		expect(again.status).toBe(404);
 		expect(await auditEvents(workspaceId)).toEqual([{ event: 'member-removed' }]);
 	});

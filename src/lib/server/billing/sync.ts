@@ -10,11 +10,14 @@ import {
 	getBillingAccount,
 	getBillingAccountOfCustomer,
 	getPlanPrice,
+	getWorkspaceStanding,
 	linkCustomer,
 	upsertInvoice,
 	type BillingAccount
 } from '../db/billing';
 import type { PlanStatus } from '../../billing/plans';
+import { recordAuditEvent } from '../db/audit';
+import { standingChange } from './standing-change';
 
 /** Stripe's subscription status -> the workspace's standing; null: not yet a paid plan (checkout not finished). */
 export function planStatusOf(status: Stripe.Subscription.Status): PlanStatus | null {
@@ -71,6 +74,7 @@ export async function syncSubscription(subscriptionId: string): Promise<boolean>
 	const price = lookupKey ? await getPlanPrice(lookupKey) : undefined;
 	if (!item || !price) throw new Error(`Subscription ${subscription.id} is for a price Tidewright does not offer (${lookupKey ?? 'no lookup key'})`);
 
+	const standing = await getWorkspaceStanding(account.workspaceId);
 	await applySubscriptionState(account.workspaceId, {
 		subscriptionId: subscription.id,
 		priceLookupKey: lookupKey,
@@ -82,6 +86,11 @@ export async function syncSubscription(subscriptionId: string): Promise<boolean>
 		plan: price.plan,
 		planStatus
 	});
+	const change = standingChange(
+		{ plan: standing.plan, planStatus: standing.planStatus, seats: account.seats, cancelAtPeriodEnd: account.cancelAtPeriodEnd },
+		{ plan: price.plan, planStatus, seats: item.quantity ?? 1, cancelAtPeriodEnd: subscription.cancel_at_period_end }
+	);
+	if (change) await recordAuditEvent({ event: 'billing-synced', workspaceId: account.workspaceId, detail: { ...change, subscriptionId: subscription.id } });
 	return true;
 }
 

@@ -68,6 +68,16 @@ export async function listMembers(workspaceId: string, knex: Knex = db()): Promi
 	return rows.map((r) => ({ userId: r.id, email: r.email, name: r.name, role: r.role, joinedAt: r.created_at }));
 }
 
+/** One member of the workspace with their name and address; undefined for someone who is not a member. */
+export async function getMember(workspaceId: string, userId: string, knex: Knex = db()): Promise<MemberRow | undefined> {
+	const r = await knex('memberships')
+		.join('users', 'users.id', 'memberships.user_id')
+		.select('users.id', 'users.email', 'users.name', 'memberships.role', 'memberships.created_at')
+		.where({ 'memberships.workspace_id': workspaceId, 'memberships.user_id': userId })
+		.first();
+	return r && { userId: r.id, email: r.email, name: r.name, role: r.role, joinedAt: r.created_at };
+}
+
 export async function addMember(workspaceId: string, userId: string, role: WorkspaceRole, knex: Knex = db()) {
 	await knex('memberships')
 		.insert({ workspace_id: workspaceId, user_id: userId, role })

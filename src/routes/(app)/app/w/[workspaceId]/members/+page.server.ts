@@ -4,7 +4,7 @@ import { inviteForm } from '$lib/schemas/account';
 import type { RequestEvent } from '@sveltejs/kit';
 import { authorize, type WorkspaceAccess } from '$lib/server/auth/access';
 import { isWorkspaceRole, roleDescriptions } from '$lib/server/auth/roles';
-import { LastOwnerError, changeMemberRole, listMembers, removeMember } from '$lib/server/db/memberships';
+import { LastOwnerError, changeMemberRole, getMember, listMembers, removeMember, type MemberRow } from '$lib/server/db/memberships';
 import { takeInvitationAllowance } from '$lib/server/auth/mail-limits';
 import { waitInWords } from '$lib/server/auth/rate-limit';
 import { INVITATION_DAYS, createInvitation, listOpenInvitations, revokeInvitation } from '$lib/server/db/invitations';
@@ -44,6 +44,9 @@ export const load: PageServerLoad = async (event) => {
 
 const memberTarget = z.object({ userId: z.string().uuid('Choose a member.') });
 const notAMember = 'That person is not a member of this workspace (any more): nothing was changed.';
+
+/** The member acted on, by name and address as they are now: what the audit log keeps. */
+const memberDetail = (member: MemberRow) => ({ memberId: member.userId, memberName: member.name, memberEmail: member.email });
 
 /** Records a workspace event done by the signed-in owner or member. */
 function audit(event: RequestEvent, access: Pick<WorkspaceAccess, 'user' | 'membership'>, name: AuditEventName, detail?: Record<string, unknown>) {
@@ -104,10 +107,12 @@ export const actions: Actions = {
 		const fields = await readForm(event.request);
 		const target = memberTarget.safeParse(fields);
 		if (!target.success || !isWorkspaceRole(fields.role)) return fail(400, { action: 'changeRole', tone: 'error' as const, message: 'Choose a member and a role.' });
+		const member = await getMember(membership.workspaceId, target.data.userId);
+		if (!member) return fail(404, { action: 'changeRole', tone: 'error' as const, message: notAMember });
 		try {
 			const previous = await changeMemberRole(membership.workspaceId, target.data.userId, fields.role);
 			if (!previous) return fail(404, { action: 'changeRole', tone: 'error' as const, message: notAMember });
-			await audit(event, { user, membership }, 'role-changed', { memberId: target.data.userId, from: previous, to: fields.role });
+			await audit(event, { user, membership }, 'role-changed', { ...memberDetail(member), from: previous, to: fields.role });
 		} catch (error) {
 			if (error instanceof LastOwnerError) return fail(409, { action: 'changeRole', tone: 'error' as const, message: error.message });
 			if (error instanceof SeatLimitError) {
@@ -118,10 +123,17 @@ export const actions: Actions = {
 		return { action: 'changeRole', tone: 'ok' as const, message: 'Role changed.' };
 	},
 
+	/** Asks first: without `confirmed=yes` the answer is the question, naming the person, and nothing changes. */
 	remove: async (event) => {
 		const { user, membership } = await authorize(event, event.params, 'owner');
-		const target = memberTarget.safeParse(await readForm(event.request));
+		const fields = await readForm(event.request);
+		const target = memberTarget.safeParse(fields);
 		if (!target.success) return fail(400, { action: 'remove', tone: 'error' as const, message: 'Choose a member.' });
+		const member = await getMember(membership.workspaceId, target.data.userId);
+		if (!member) return fail(404, { action: 'remove', tone: 'error' as const, message: notAMember });
+		if (fields.confirmed !== 'yes') {
+			return { action: 'remove', confirmRemove: { userId: member.userId, name: member.name, email: member.email, role: member.role } };
+		}
 		try {
 			const removed = await removeMember(membership.workspaceId, target.data.userId);
 			if (!removed) return fail(404, { action: 'remove', tone: 'error' as const, message: notAMember });
@@ -129,8 +141,8 @@ export const actions: Actions = {
 			if (error instanceof LastOwnerError) return fail(409, { action: 'remove', tone: 'error' as const, message: error.message });
 			throw error;
 		}
-		await audit(event, { user, membership }, 'member-removed', { memberId: target.data.userId });
-		return { action: 'remove', tone: 'ok' as const, message: 'Member removed.' };
+		await audit(event, { user, membership }, 'member-removed', { ...memberDetail(member), role: member.role });
+		return { action: 'remove', tone: 'ok' as const, message: `${member.name || member.email} is no longer a member of ${membership.workspaceName}.` };
 	},
 
 	revoke: async (event) => {

@@ -5,6 +5,7 @@ import { resultOfSavedScenario } from '$lib/server/workbench/stored-results';
 import { csvTables, exportFormats, type CsvTableName, type ExportFormat } from '$lib/server/workbench/export';
 import { buildExportOnPool } from '$lib/server/compute/pool';
 import { takeComputeAllowance } from '$lib/server/compute/limits';
+import { actorOf, recordWorkspaceEvent, scenarioDetail } from '$lib/server/workbench/audit-trail';
 import type { RequestHandler } from './$types';
 
 /**
@@ -15,7 +16,8 @@ import type { RequestHandler } from './$types';
  * blank line).
  */
 export const GET: RequestHandler = apiRoute(async (event) => {
-	const { project, scenarioId, user } = await authorize(event, event.params, 'viewer');
+	const access = await authorize(event, event.params, 'viewer');
+	const { project, scenarioId, user } = access;
 	const format = event.url.searchParams.get('format') ?? 'xlsx';
 	const table = event.url.searchParams.get('table') ?? 'cash-flow';
 	if (!(exportFormats as readonly string[]).includes(format)) {
@@ -35,6 +37,13 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 		format as ExportFormat,
 		table as CsvTableName
 	);
+	await recordWorkspaceEvent(actorOf(event, access), 'scenario-exported', {
+		...scenarioDetail(project, scenario),
+		revision: scenario.revision,
+		format,
+		...(format === 'csv' ? { table } : {}),
+		file: file.fileName
+	});
 	return new Response(file.body, {
 		headers: {
 			'content-type': file.contentType,

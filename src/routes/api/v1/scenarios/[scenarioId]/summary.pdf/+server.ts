@@ -9,6 +9,7 @@ import { summaryPdfResponse, teamCopyInput } from '$lib/server/pdf/summary-input
 import { planAllows } from '$lib/billing/plans';
 import { latestDoneRunsInFull } from '$lib/server/rooms/publishable-runs';
 import { freezeRun } from '$lib/server/rooms/snapshot-run';
+import { actorOf, recordWorkspaceEvent, scenarioDetail } from '$lib/server/workbench/audit-trail';
 import type { RequestHandler } from './$types';
 
 /**
@@ -23,7 +24,8 @@ import type { RequestHandler } from './$types';
  * older revision describes another document and is never printed.
  */
 export const GET: RequestHandler = apiRoute(async (event) => {
-	const { project, scenarioId, user, membership } = await authorize(event, event.params, 'viewer');
+	const access = await authorize(event, event.params, 'viewer');
+	const { project, scenarioId, user, membership } = access;
 	const scenario = await loadScenario(scenarioId);
 	await takeComputeAllowance(user.id, 'export');
 	const { result, engineVersion } = await resultOfSavedScenario(scenario, project);
@@ -43,5 +45,6 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 			date: new Date()
 		})
 	);
+	await recordWorkspaceEvent(actorOf(event, access), 'scenario-exported', { ...scenarioDetail(project, scenario), revision: scenario.revision, format: 'pdf', table: 'summary' });
 	return summaryPdfResponse(pdf, scenario.name, scenario.revision);
 });

@@ -11,6 +11,7 @@ import { scenarioJson } from '$lib/server/workbench/serialize';
 import { storeResultOfSave } from '$lib/server/workbench/stored-results';
 import type { RequestHandler } from './$types';
 import { requireLiveProject } from '$lib/server/workbench/live-project';
+import { actorOf, recordWorkspaceEvent, scenarioDetail } from '$lib/server/workbench/audit-trail';
 
 /**
  * `?scenarioId=`: puts the upload's parsed data into that scenario's document
@@ -18,7 +19,8 @@ import { requireLiveProject } from '$lib/server/workbench/live-project';
  * refuse the change when the scenario moved on since the user looked at it.
  */
 export const POST: RequestHandler = apiRoute(async (event) => {
-	const { project, user, uploadId } = await authorize(event, event.params, 'analyst');
+	const access = await authorize(event, event.params, 'analyst');
+	const { project, user, uploadId } = access;
 	requireLiveProject(project);
 	const body = validateBody(applyUploadBody, await readJsonBody(event.request, { optional: true }));
 	const scenarioId = event.url.searchParams.get('scenarioId') ?? '';
@@ -42,5 +44,13 @@ export const POST: RequestHandler = apiRoute(async (event) => {
 	});
 	if (!saved) throw new ApiProblem(404, 'No such scenario, or it is not yours.');
 	await storeResultOfSave(saved, project);
+	await recordWorkspaceEvent(actorOf(event, access), 'upload-applied', {
+		...scenarioDetail(project, saved),
+		revision: saved.revision,
+		upload: upload.fileName,
+		uploadId,
+		kind: uploadKindInfo[upload.kind].label,
+		section: applied.section
+	});
 	return json({ scenario: scenarioJson(saved), section: applied.section });
 });
