@@ -203,6 +203,8 @@ const matrix: Row[] = [
 	{ route: '/app/methods/[slug]', method: 'GET', expect: signedIn(200) },
 	{ route: '/app/portfolio', method: 'GET', expect: signedIn(200) },
 	{ route: '/app/w/[workspaceId]', method: 'GET', expect: page('viewer') },
+	// An example project: an unknown technology answers 400 after the role check (a real one would make a project).
+	{ route: '/app/w/[workspaceId]', method: 'POST', action: 'example', body: { form: { technology: 'steam' } }, expect: action('analyst', 400) },
 	{ route: '/app/w/[workspaceId]/audit', method: 'GET', expect: page('owner') },
 	{ route: '/app/w/[workspaceId]/members', method: 'GET', expect: page('viewer') },
 	// Billing is the owners' (workspace A pays for the Team plan in the demo data); bad fields answer 400 after the check.
