@@ -128,7 +128,7 @@ test('a scenario without debt reads its missing cover ratios in words, and its d
 	const table = page.getByRole('table', { name: 'Metrics of the chosen scenarios' });
 	// No debt service, no DSCR: the engine's own reason, not a dash (src/lib/server/engine/evaluate.ts).
 	const minDscr = table.getByRole('row').filter({ has: page.getByRole('rowheader', { name: 'Minimum DSCR', exact: true }) });
-	await expect(minDscr.getByTestId('missing-value')).toHaveText('no DSCR: there is no debt service');
+	await expect(minDscr.getByTestId('missing-value')).toHaveText('no minimum DSCR: there is no debt service');
 	await expect(table.locator('td > span:first-child').filter({ hasText: new RegExp(`^${NO_VALUE}$`) })).toHaveCount(0);
 	const inputs = page.getByRole('table', { name: 'Inputs that differ between the chosen scenarios' });
 	await expect(inputs.getByRole('row', { name: /^Senior debt/ })).toContainText('None: the project is funded by equity');

@@ -53,7 +53,7 @@ describe('missingValueWords', () => {
 			metrics: { ...result.metrics, equityIrr: null },
 			warnings: ['Equity IRR is not available: cash flows never change sign (only inflows or only outflows), so no rate makes the NPV zero.']
 		};
-		expect(missingValueWords(noIrr).equityIrr).toBe('no IRR: cash flows never change sign (only inflows or only outflows), so no rate makes the NPV zero');
+		expect(missingValueWords(noIrr).equityIrr).toBe('no equity IRR: cash flows never change sign (only inflows or only outflows), so no rate makes the NPV zero');
 	});
 
 	it('borrows the reason of the metric a silent one goes missing with, and says something fixed when none was given', () => {
@@ -63,16 +63,16 @@ describe('missingValueWords', () => {
 			warnings: ['Minimum DSCR is not available: there is no debt service.']
 		};
 		const words = missingValueWords(noDebt);
-		expect(words.minDscr).toBe('no DSCR: there is no debt service');
-		expect(words.avgDscr).toBe('no DSCR: there is no debt service');
-		expect(words.yearsInLockUp).toBe('no lock-up test: the covenants set no lock-up DSCR');
+		expect(words.minDscr).toBe('no minimum DSCR: there is no debt service');
+		expect(words.avgDscr).toBe('no average DSCR: there is no debt service');
+		expect(words.yearsInLockUp).toBe('no years in lock-up: the covenants set no lock-up DSCR');
 		expect(words.llcr).toBe('no LLCR: the engine gave no value (see what it noted)');
 	});
 
 	it('reads the reasons an engine run writes: an equity-funded case has no DSCR for want of debt service', () => {
 		const equity = { ...tidalDocument, finance: { ...tidalDocument.finance, debt: { sizing: 'none' as const } } };
 		const words = compareScenarios([entry('equity', true, evaluateScenario(equity))], null).scenarios[0].missingValues;
-		expect(words.minDscr).toBe('no DSCR: there is no debt service');
+		expect(words.minDscr).toBe('no minimum DSCR: there is no debt service');
 		expect(words.llcr).toBe('no LLCR: there is no debt');
 		expect(Object.values(words).every((w) => !w.includes('–'))).toBe(true);
 	});

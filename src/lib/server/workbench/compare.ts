@@ -52,35 +52,26 @@ export function metricDifference(value: string | null, base: string | null): Met
 	return { absolute: decimalString(absolute), relative: b.isZero() ? null : decimalString(absolute.div(b.abs())) };
 }
 
-/** What a missing metric is called before the reason: "no IRR: …". */
-const MISSING_HEAD: Record<MetricKey, string> = {
-	netAepMWh: 'no energy figure',
-	p90AepMWh: 'no energy figure',
-	capacityFactor: 'no capacity factor',
-	lcoeReal: 'no LCOE',
-	lcoeNominal: 'no LCOE',
-	lcoeFcr: 'no LCOE',
-	projectIrrPreTax: 'no IRR',
-	projectIrrPostTax: 'no IRR',
-	equityIrr: 'no IRR',
-	npv: 'no NPV',
-	paybackYears: 'no payback',
-	minDscr: 'no DSCR',
-	avgDscr: 'no DSCR',
-	llcr: 'no LLCR',
-	yearsInLockUp: 'no lock-up test',
-	debtAmount: 'no debt figure',
-	breakevenTariff: 'no breakeven tariff'
-};
+/** What a missing metric is called before the reason: "no <label in lower case>: …". */
+function missingHead(key: MetricKey): string {
+	const label = METRICS[key].label;
+	return `no ${/^[A-Z]{2}/.test(label) ? label : label.charAt(0).toLowerCase() + label.slice(1)}`;
+}
 
-/** Metrics the engine leaves without a note of their own: they are missing for the same reason as the one named. */
-const MISSING_LIKE: Partial<Record<MetricKey, MetricKey>> = { lcoeNominal: 'lcoeReal', lcoeFcr: 'lcoeReal', avgDscr: 'minDscr' };
+/** Metrics the engine leaves without a note of their own, each with the metric whose reason they share. */
+const MISSING_LIKE: readonly (readonly [MetricKey, MetricKey])[] = [
+	['lcoeNominal', 'lcoeReal'],
+	['lcoeFcr', 'lcoeReal'],
+	['avgDscr', 'minDscr']
+];
 
 /** Reasons where the engine writes none: a lock-up count needs a lock-up test among the covenants. */
-const FIXED_REASON: Partial<Record<MetricKey, string>> = { yearsInLockUp: 'the covenants set no lock-up DSCR' };
+function fixedReason(key: MetricKey): string | null {
+	return key === 'yearsInLockUp' ? 'the covenants set no lock-up DSCR' : null;
+}
 const UNKNOWN_REASON = 'the engine gave no value (see what it noted)';
 
-/** The reason the engine wrote for a metric ("Equity IRR is not available: <reason>."), if the stored result has it. */
+/** The reason the engine wrote for a metric ("<label> is not available: <reason>."), if the stored result has it. */
 function engineReason(key: MetricKey, warnings: readonly string[]): string | null {
 	const prefix = `${METRICS[key].label} is not available: `;
 	const found = warnings.find((w) => w.startsWith(prefix));
@@ -96,9 +87,9 @@ export function missingValueWords(result: Pick<EngineResult, 'metrics' | 'warnin
 	const words: Partial<Record<MetricKey, string>> = {};
 	for (const key of METRIC_KEYS) {
 		if (result.metrics[key] !== null && result.metrics[key] !== undefined) continue;
-		const like = MISSING_LIKE[key];
-		const reason = engineReason(key, result.warnings) ?? (like ? engineReason(like, result.warnings) : null) ?? FIXED_REASON[key] ?? UNKNOWN_REASON;
-		words[key] = `${MISSING_HEAD[key]}: ${reason}`;
+		const like = MISSING_LIKE.find(([metric]) => metric === key)?.[1];
+		const reason = engineReason(key, result.warnings) ?? (like ? engineReason(like, result.warnings) : null) ?? fixedReason(key) ?? UNKNOWN_REASON;
+		words[key] = `${missingHead(key)}: ${reason}`;
 	}
 	return words;
 }
