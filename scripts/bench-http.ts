@@ -19,7 +19,7 @@ import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { mkdirSync, rmSync, symlinkSync, writeFileSync, existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { projectRoot } from '../docker-local/postgres';
-import { demoUsers } from '../seeds/02_demo_users';
+import { signIn, waitFor } from './bench-client';
 
 const seconds = Number(process.argv[process.argv.indexOf('--seconds') + 1]) || 20;
 const connections = 50;
@@ -28,19 +28,6 @@ const barePort = 3201;
 const app = `http://127.0.0.1:${appPort}`;
 const bare = `http://127.0.0.1:${barePort}`;
 const children: ChildProcess[] = [];
-
-async function waitFor(url: string, timeoutMs = 300_000) {
-	const until = Date.now() + timeoutMs;
-	while (Date.now() < until) {
-		try {
-			if ((await fetch(url)).ok) return;
-		} catch {
-			// not up yet
-		}
-		await new Promise((r) => setTimeout(r, 500));
-	}
-	throw new Error(`${url} did not answer within ${timeoutMs / 1000} s`);
-}
 
 function startApp() {
 	const child = spawn('npx', ['tsx', 'scripts/start.ts', '--fresh'], {
@@ -82,19 +69,6 @@ function buildAndStartBare() {
 	children.push(child);
 }
 
-async function signIn(): Promise<string> {
-	const user = demoUsers.analyst;
-	const response = await fetch(`${app}/signin`, {
-		method: 'POST',
-		redirect: 'manual',
-		headers: { origin: app, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' },
-		body: new URLSearchParams({ email: user.email, password: user.password, next: '/app' })
-	});
-	const cookie = response.headers.get('set-cookie')?.split(';')[0];
-	if (response.status !== 303 || !cookie) throw new Error(`sign-in failed (${response.status})`);
-	return cookie;
-}
-
 async function json<T>(path: string, cookie: string): Promise<T> {
 	const response = await fetch(`${app}${path}`, { headers: { cookie, accept: 'application/json' } });
 	if (!response.ok) throw new Error(`${path}: ${response.status}`);
@@ -121,7 +95,7 @@ async function main() {
 	buildAndStartBare();
 	await Promise.all([waitFor(`${app}/api/v1/health`), waitFor(bare)]);
 
-	const cookie = await signIn();
+	const cookie = await signIn(app);
 	const { workspaces } = await json<{ workspaces: { id: string }[] }>('/api/v1/workspaces', cookie);
 	const workspaceId = workspaces[0].id;
 	const { projects } = await json<{ projects: { id: string }[] }>(`/api/v1/workspaces/${workspaceId}/projects`, cookie);

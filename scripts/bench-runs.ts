@@ -17,7 +17,7 @@ import autocannon from 'autocannon';
 import { spawn, type ChildProcess } from 'node:child_process';
 import { availableParallelism, loadavg } from 'node:os';
 import { projectRoot } from '../docker-local/postgres';
-import { demoUsers } from '../seeds/02_demo_users';
+import { signIn, waitFor } from './bench-client';
 import { parseScenario } from '../src/lib/schemas/scenario';
 import { defaultRunInput } from '../src/lib/server/probabilistic/defaults';
 import { DRIVER_IDS, DRIVERS } from '../src/lib/server/engine/sensitivity';
@@ -27,32 +27,6 @@ const draws = Number(arg('--draws') ?? 10_000);
 const appPort = 3210;
 const app = `http://127.0.0.1:${appPort}`;
 let starter: ChildProcess | undefined;
-
-async function waitFor(url: string, timeoutMs = 300_000) {
-	const until = Date.now() + timeoutMs;
-	while (Date.now() < until) {
-		try {
-			if ((await fetch(url)).ok) return;
-		} catch {
-			// not up yet
-		}
-		await new Promise((r) => setTimeout(r, 500));
-	}
-	throw new Error(`${url} did not answer within ${timeoutMs / 1000} s`);
-}
-
-async function signIn(): Promise<string> {
-	const user = demoUsers.analyst;
-	const response = await fetch(`${app}/signin`, {
-		method: 'POST',
-		redirect: 'manual',
-		headers: { origin: app, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' },
-		body: new URLSearchParams({ email: user.email, password: user.password, next: '/app' })
-	});
-	const cookie = response.headers.get('set-cookie')?.split(';')[0];
-	if (response.status !== 303 || !cookie) throw new Error(`sign-in failed (${response.status})`);
-	return cookie;
-}
 
 async function api<T>(method: string, path: string, cookie: string, body?: unknown): Promise<T> {
 	const response = await fetch(`${app}${path}`, {
@@ -88,7 +62,7 @@ async function main() {
 		detached: true
 	});
 	await waitFor(`${app}/api/v1/health`);
-	const cookie = await signIn();
+	const cookie = await signIn(app);
 
 	// A 25-year scenario of a paying workspace the analyst works in.
 	const { workspaces } = await api<{ workspaces: { id: string; name: string }[] }>('GET', '/api/v1/workspaces', cookie);

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { DRIVER_IDS } from '../server/engine/sensitivity';
-import { distributionSchema, PROBABILISTIC_DRIVER_IDS, runInputSchema } from './probabilistic';
+import { distributionSchema, runInputSchema } from './probabilistic';
 
 /** The issues of a refused parse as "path: message" lines. */
 function refusals(schema: { safeParse: (x: unknown) => { success: boolean; error?: { issues: { path: PropertyKey[]; message: string }[] } } }, input: unknown): string[] {
@@ -11,12 +10,6 @@ function refusals(schema: { safeParse: (x: unknown) => { success: boolean; error
 
 const triangular = { shape: 'triangular', min: 0.8, mode: 1, max: 1.2 };
 const drawn = (...drivers: string[]) => drivers.map((driver) => ({ driver, distribution: triangular }));
-
-describe('PROBABILISTIC_DRIVER_IDS', () => {
-	it('is the sensitivity drivers list, in its order', () => {
-		expect([...PROBABILISTIC_DRIVER_IDS]).toEqual([...DRIVER_IDS]);
-	});
-});
 
 describe('distributionSchema', () => {
 	it('accepts each shape', () => {

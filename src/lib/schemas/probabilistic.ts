@@ -11,25 +11,11 @@
  */
 import { z } from 'zod';
 import { correlatedIds, correlationFactor } from '../probabilistic/correlation';
+import { DRIVER_IDS, type DriverId } from '../sensitivity-drivers';
 
-/** The sensitivity drivers' ids (DRIVER_IDS in sensitivity.ts; a test keeps the two lists equal). */
-export const PROBABILISTIC_DRIVER_IDS = [
-	'capex',
-	'opex',
-	'resource',
-	'availability',
-	'losses',
-	'tariff',
-	'discountRate',
-	'interestRate',
-	'gearing',
-	'life',
-	'degradation',
-	'inflation',
-	'taxRate',
-	'deviceCount'
-] as const;
-export type ProbabilisticDriverId = (typeof PROBABILISTIC_DRIVER_IDS)[number];
+/** The sensitivity drivers' ids: one list for the engine and the runs (src/lib/sensitivity-drivers.ts). */
+export const PROBABILISTIC_DRIVER_IDS = DRIVER_IDS;
+export type ProbabilisticDriverId = DriverId;
 
 export const RUN_LIMITS = { drivers: 16, minDraws: 100, maxDraws: 50_000, maxSeed: 2 ** 31 - 1 } as const;
 

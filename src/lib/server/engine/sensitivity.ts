@@ -10,23 +10,8 @@ import { decimalString, evaluateMetric, type DecimalString } from './evaluate';
 import { engineValueUnit, METRICS, type MetricKey } from '../../metrics/catalogue';
 import { SCENARIO_LIMITS } from '../../schemas/scenario-limits';
 
-export const DRIVER_IDS = [
-	'capex',
-	'opex',
-	'resource',
-	'availability',
-	'losses',
-	'tariff',
-	'discountRate',
-	'interestRate',
-	'gearing',
-	'life',
-	'degradation',
-	'inflation',
-	'taxRate',
-	'deviceCount'
-] as const;
-export type DriverId = (typeof DRIVER_IDS)[number];
+import { DRIVER_IDS, type DriverId } from '../../sensitivity-drivers';
+export { DRIVER_IDS, type DriverId };
 
 /** low and high are the driver's own values: multipliers (1 = base) or absolute values, per DRIVERS[id].kind. */
 export type DriverRange = { driver: DriverId; low: number; high: number };
