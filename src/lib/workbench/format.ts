@@ -48,6 +48,19 @@ export function formatDateTime(iso: string | Date): string {
 	return dateTimeFormat.format(date);
 }
 
+const dateTimeSecondsFormat = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'medium' });
+const dateFormat = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium' });
+
+/** With seconds: two runs started in the same minute still read apart. */
+export function formatDateTimeSeconds(iso: string | Date): string {
+	return dateTimeSecondsFormat.format(typeof iso === 'string' ? new Date(iso) : iso);
+}
+
+/** A day: "9 Dec 2026", the same on the server and in every browser (never 12/9/2026). */
+export function formatDate(iso: string | Date): string {
+	return dateFormat.format(typeof iso === 'string' ? new Date(iso) : iso);
+}
+
 export function formatBytes(bytes: number): string {
 	if (bytes >= 1024 * 1024) return `${formatNumber(bytes / (1024 * 1024), 1)} MB`;
 	if (bytes >= 1024) return `${formatNumber(bytes / 1024, 1)} kB`;
