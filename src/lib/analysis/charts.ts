@@ -2,7 +2,7 @@
  * Chart.js configurations of the analysis pages, built from the API's
  * answers. Decimal strings become floats here, for drawing only.
  */
-import type { ChartConfiguration, Plugin, TooltipItem } from 'chart.js';
+import type { Chart, ChartConfiguration, Plugin, TooltipItem } from 'chart.js';
 import { chartColours, seriesColours } from '../components/charts/palette';
 import { METRICS, metricUnit } from '../metrics/catalogue';
 import { chartValue } from '../metrics/format';
@@ -58,29 +58,34 @@ export interface BaseLineOptions {
 	label: string;
 }
 
+/** A dashed vertical line at the x-axis value across the chart area, its label `raise` pixels above the top. */
+export function drawMarkerLine(chart: Chart, value: number, colour: string, label: string, raise = 4): void {
+	const x = chart.scales.x.getPixelForValue(value);
+	const { top, bottom } = chart.chartArea;
+	const ctx = chart.ctx;
+	ctx.save();
+	ctx.strokeStyle = colour;
+	ctx.lineWidth = 1.5;
+	ctx.setLineDash([5, 4]);
+	ctx.beginPath();
+	ctx.moveTo(x, top);
+	ctx.lineTo(x, bottom);
+	ctx.stroke();
+	ctx.setLineDash([]);
+	ctx.fillStyle = colour;
+	ctx.font = '12px "IBM Plex Sans", system-ui, sans-serif';
+	ctx.textAlign = 'center';
+	ctx.textBaseline = 'bottom';
+	ctx.fillText(label, x, top - raise);
+	ctx.restore();
+}
+
 /** Draws a dashed vertical line at the base value across the chart area, labelled at the top. */
 export const baseLinePlugin: Plugin<'bar', BaseLineOptions> = {
 	id: 'baseLine',
 	afterDatasetsDraw(chart, _args, options) {
 		if (options.value === null || options.value === undefined) return;
-		const x = chart.scales.x.getPixelForValue(options.value);
-		const { top, bottom } = chart.chartArea;
-		const ctx = chart.ctx;
-		ctx.save();
-		ctx.strokeStyle = chartColours.abyss;
-		ctx.lineWidth = 1.5;
-		ctx.setLineDash([5, 4]);
-		ctx.beginPath();
-		ctx.moveTo(x, top);
-		ctx.lineTo(x, bottom);
-		ctx.stroke();
-		ctx.setLineDash([]);
-		ctx.fillStyle = chartColours.abyss;
-		ctx.font = '12px "IBM Plex Sans", system-ui, sans-serif';
-		ctx.textAlign = 'center';
-		ctx.textBaseline = 'bottom';
-		ctx.fillText(options.label, x, top - 4);
-		ctx.restore();
+		drawMarkerLine(chart, options.value, chartColours.abyss, options.label);
 	}
 };
 

@@ -6,6 +6,7 @@
 import type { ChartConfiguration, Plugin, TooltipItem } from 'chart.js';
 import { chartColours } from '../components/charts/palette';
 import { edgeText, type RunHistogramView } from '../probabilistic/run-report';
+import { drawMarkerLine } from './charts';
 
 const axisTitle = (text: string) => ({ display: true, text, color: chartColours.abyss });
 const grid = { color: 'rgba(29, 67, 87, 0.08)' };
@@ -23,26 +24,8 @@ const LABEL_STEP = 14;
 export const percentileLinesPlugin: Plugin<'bar', PercentileLinesOptions> = {
 	id: 'percentileLines',
 	afterDatasetsDraw(chart, _args, options) {
-		const { top, bottom } = chart.chartArea;
-		const ctx = chart.ctx;
-		(options.lines ?? []).forEach((line, row) => {
-			const x = chart.scales.x.getPixelForValue(line.value);
-			ctx.save();
-			ctx.strokeStyle = line.colour;
-			ctx.lineWidth = 1.5;
-			ctx.setLineDash([5, 4]);
-			ctx.beginPath();
-			ctx.moveTo(x, top);
-			ctx.lineTo(x, bottom);
-			ctx.stroke();
-			ctx.setLineDash([]);
-			ctx.fillStyle = line.colour;
-			ctx.font = '12px "IBM Plex Sans", system-ui, sans-serif';
-			ctx.textAlign = 'center';
-			ctx.textBaseline = 'bottom';
-			ctx.fillText(line.label, x, top - 4 - (options.lines.length - 1 - row) * LABEL_STEP);
-			ctx.restore();
-		});
+		const lines = options.lines ?? [];
+		lines.forEach((line, row) => drawMarkerLine(chart, line.value, line.colour, line.label, 4 + (lines.length - 1 - row) * LABEL_STEP));
 	}
 };
 
