@@ -11,6 +11,8 @@ interface Outcome {
 	passed: number;
 	failed: number;
 	exitCode: number;
+	/** Lines naming the failed tests, repeated in the summary so a log's tail shows them. */
+	failures: string[];
 }
 
 const chromiumPath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
@@ -44,7 +46,9 @@ function stripAnsi(text: string) {
 	return text.replace(/\x1b\[[0-9;]*m/g, '');
 }
 
-function runStep(name: string, command: string, args: string[], count: (output: string) => { passed: number; failed: number }) {
+type Count = (output: string) => { passed: number; failed: number; failures: string[] };
+
+function runStep(name: string, command: string, args: string[], count: Count) {
 	return new Promise<Outcome>((resolve) => {
 		console.log(`\n[test] ── ${name} ──`);
 		const child = spawn(command, args, { stdio: ['ignore', 'pipe', 'pipe'], env: { ...process.env, FORCE_COLOR: '0' } });
@@ -66,18 +70,24 @@ function numberAfter(text: string, pattern: RegExp): number {
 	return match ? Number(match[1]) : 0;
 }
 
-const countSvelteCheck = (out: string) => {
+function linesMatching(text: string, pattern: RegExp): string[] {
+	return [...new Set(text.split('\n').filter((line) => pattern.test(line)).map((line) => line.trim()))];
+}
+
+const countSvelteCheck: Count = (out) => {
 	const errors = numberAfter(out, /found (\d+) errors?/);
 	const warnings = numberAfter(out, /(\d+) warnings?/);
-	return { passed: errors + warnings === 0 ? 1 : 0, failed: errors + warnings === 0 ? 0 : 1 };
+	const clean = errors + warnings === 0;
+	return { passed: clean ? 1 : 0, failed: clean ? 0 : 1, failures: linesMatching(out, /^(Error|Warn):|\b(Error|Warning)\b.*\.(ts|svelte):\d+/) };
 };
-const countVitest = (out: string) => {
+const countVitest: Count = (out) => {
 	const line = out.split('\n').find((l) => /^\s*Tests\s/.test(l)) ?? '';
-	return { passed: numberAfter(line, /(\d+) passed/), failed: numberAfter(line, /(\d+) failed/) };
+	return { passed: numberAfter(line, /(\d+) passed/), failed: numberAfter(line, /(\d+) failed/), failures: linesMatching(out, /^\s*FAIL\s/) };
 };
-const countPlaywright = (out: string) => ({
+const countPlaywright: Count = (out) => ({
 	passed: numberAfter(out, /^\s*(\d+) passed/m),
-	failed: numberAfter(out, /^\s*(\d+) failed/m) + numberAfter(out, /^\s*(\d+) flaky/m)
+	failed: numberAfter(out, /^\s*(\d+) failed/m) + numberAfter(out, /^\s*(\d+) flaky/m),
+	failures: linesMatching(out, /^\s*[✘×]\s/)
 });
 
 async function main() {
@@ -91,6 +101,7 @@ async function main() {
 	console.log('\n[test] ── summary ──');
 	for (const o of outcomes) {
 		console.log(`${o.name}: ${o.passed} passed, ${o.failed} failed${o.exitCode !== 0 ? ` (exit ${o.exitCode})` : ''}`);
+		for (const failure of o.failures.slice(0, 20)) console.log(`  ${failure}`);
 	}
 	const passed = outcomes.reduce((n, o) => n + o.passed, 0);
 	const failed = outcomes.reduce((n, o) => n + o.failed, 0);
