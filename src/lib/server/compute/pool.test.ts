@@ -47,23 +47,22 @@ async function anotherPool(options: Parameters<typeof ComputePool.start>[0]) {
 }
 
 /** Runs `work` while a 10 ms interval ticks on this thread; answers the work's wall time and the worst lateness of a tick. */
-async function withTicks(work: () => Promise<unknown> | unknown): Promise<{ tookMs: number; maxLagMs: number }> {
-	let maxLagMs = 0;
-	let last = performance.now();
-	const tick = setInterval(() => {
-		const now = performance.now();
-		maxLagMs = Math.max(maxLagMs, now - last - 10);
-		last = now;
-	}, 10);
+/**
+ * Runs `work` with a 10 ms interval timer going, and counts the timer's
+ * callbacks that ran before the work ended: none can while synchronous work
+ * holds this thread, dozens do while the work runs on another thread. A count
+ * rather than a lag in milliseconds, so a busy machine does not change the verdict.
+ */
+async function withTicks(work: () => Promise<unknown> | unknown): Promise<{ tookMs: number; ticksDuring: number }> {
+	let ticks = 0;
+	const tick = setInterval(() => ticks++, 10);
 	const started = performance.now();
 	try {
 		await work();
-		// One more tick after the work, so a block at its very end is measured too.
-		await new Promise((resolve) => setTimeout(resolve, 25));
+		return { tookMs: performance.now() - started, ticksDuring: ticks };
 	} finally {
 		clearInterval(tick);
 	}
-	return { tookMs: performance.now() - started, maxLagMs };
 }
 
 describe('ComputePool.run', () => {
@@ -156,14 +155,16 @@ describe('ComputePool.run', () => {
 		expect(answered[0]).toEqual(evaluateScenario(examples.wave));
 	});
 
-	it('leaves this thread free while a heavy job runs: a 10 ms tick is never 100 ms late', async () => {
+	it('leaves this thread free while a heavy job runs: the timers of this thread keep firing', async () => {
 		await pool.run('evaluate', { document: examples.tidal }); // the thread is up and its code loaded
 		const pooled = await withTicks(() => pool.run('spider', heavySpider));
-		// The same job here holds the tick for as long as it runs: the measurement can tell the difference.
+		// The same job here holds the thread for as long as it runs: the measurement can tell the difference.
 		const here = await withTicks(() => spider(heavySpider.document, heavySpider.drivers, heavySpider.metric, heavySpider.changes));
-		expect(here.maxLagMs).toBeGreaterThan(500);
-		expect(pooled.tookMs).toBeGreaterThan(500);
-		expect(pooled.maxLagMs).toBeLessThan(100);
+		expect(here.tookMs).toBeGreaterThan(300);
+		expect(here.ticksDuring).toBe(0);
+		expect(pooled.tookMs).toBeGreaterThan(300);
+		// About tookMs / 10 on a quiet machine; a fifth of that even when the cores are shared.
+		expect(pooled.ticksDuring).toBeGreaterThan(pooled.tookMs / 50);
 	});
 });
 
