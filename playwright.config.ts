@@ -22,6 +22,8 @@ export default defineConfig({
 	reporter: [['list']],
 	use: {
 		baseURL,
+		// The house style (9 Dec 2026, 1,234.5): the app follows the browser's languages, Chromium's default is en-US.
+		locale: 'en-GB',
 		trace: 'retain-on-failure',
 		screenshot: 'only-on-failure',
 		launchOptions: {

@@ -14,6 +14,7 @@ import { devInboxEnabled } from '$lib/server/mail/dev-inbox';
 import { afterResponse } from '$lib/server/after-response';
 import { GUEST_COOKIE, deleteGuestCookie, validateGuestSession } from '$lib/server/rooms/guest-sessions';
 import { isBillingPage, withFormActionOrigins } from '$lib/server/csp-form-action';
+import { scopeLocale } from '$lib/server/request-locale';
 
 /** Stops the start when a setting is missing or malformed, naming each one. */
 export const init: ServerInit = () => {
@@ -152,7 +153,7 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(securityHeaders, apiFailuresAsJson, authenticate, refuseCrossSite, guardAreas);
+export const handle = sequence(scopeLocale, securityHeaders, apiFailuresAsJson, authenticate, refuseCrossSite, guardAreas);
 
 /**
  * Log the real failure on the server; show the user a safe message with an id

@@ -34,7 +34,8 @@ export const auditEventWords: Record<string, string> = {
 	'scenario-exported': 'Exported a scenario',
 	'project-renamed': 'Renamed a project',
 	'project-archived': 'Archived a project',
-	'project-restored': 'Restored a project'
+	'project-restored': 'Restored a project',
+	'workspace-settings-changed': 'Changed a workspace setting'
 };
 
 /** The kinds of event the log's filter offers, in words. */
@@ -42,10 +43,23 @@ export const auditGroupWords: Record<string, string> = {
 	accounts: 'Sign-ins and passwords',
 	members: 'Members and invitations',
 	tokens: 'API tokens',
-	billing: 'Plan and billing',
+	billing: 'Plan, billing and settings',
 	work: 'Projects and scenarios',
 	exports: 'Exports'
 };
+
+const settingWords: Record<string, string> = { numberLocale: 'number and date style' };
+
+/** A stored locale tag in words ("German (Germany)"), or the readers' own. */
+function localeWords(value: unknown): string {
+	const tag = text(value);
+	if (tag === 'reader') return "each reader's own";
+	try {
+		return new Intl.DisplayNames(['en'], { type: 'language' }).of(tag) ?? tag;
+	} catch {
+		return tag;
+	}
+}
 
 const accessWords: Record<string, string> = { read: 'read only', 'read-write': 'read and write' };
 
@@ -94,6 +108,8 @@ export function describeAuditTarget(event: string, detail: Record<string, unknow
 		case 'billing-changed':
 		case 'billing-synced':
 			return 'the plan';
+		case 'workspace-settings-changed':
+			return settingWords[text(detail.setting)] ?? text(detail.setting);
 	}
 	return '';
 }
@@ -152,6 +168,8 @@ export function describeAuditDetail(event: string, detail: Record<string, unknow
 			return `as ${text(detail.role)}`;
 		case 'invitation-accepted':
 			return `as ${text(detail.role)}`;
+		case 'workspace-settings-changed':
+			return `from ${localeWords(detail.from)} to ${localeWords(detail.to)}`;
 		case 'billing-changed':
 			return detail.change === 'seats' ? `seats set to ${text(detail.seats)}` : detail.change === 'resume' ? 'plan resumed' : 'plan to end at the close of the period';
 	}

@@ -207,6 +207,8 @@ const matrix: Row[] = [
 	{ route: '/app/w/[workspaceId]', method: 'POST', action: 'example', body: { form: { technology: 'steam' } }, expect: action('analyst', 400) },
 	{ route: '/app/w/[workspaceId]/audit', method: 'GET', expect: page('owner') },
 	{ route: '/app/w/[workspaceId]/members', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/settings', method: 'GET', expect: page('viewer') },
+	{ route: '/app/w/[workspaceId]/settings', method: 'POST', action: 'numberLocale', body: { form: { numberLocale: 'xx-YY' } }, expect: action('owner', 400) },
 	// Billing is the owners' (workspace A pays for the Team plan in the demo data); bad fields answer 400 after the check.
 	{ route: '/app/w/[workspaceId]/billing', method: 'GET', expect: page('owner') },
 	{ route: '/app/w/[workspaceId]/billing', method: 'POST', action: 'upgrade', body: { form: { plan: 'gold', seats: 'many' } }, expect: action('owner', 400) },

@@ -8,6 +8,8 @@
  */
 import DecimalJs from 'decimal.js';
 import { figureDefinition, METRICS, metricUnit, type FigureKey, type MetricKey } from './catalogue';
+import { activeLocale } from '$lib/locale/active';
+import { numberMarks } from '$lib/locale/locales';
 
 /** Enough digits that scaling an engine value by 100 never rounds it. */
 const Decimal = DecimalJs.clone({ precision: 40, rounding: DecimalJs.ROUND_HALF_EVEN });
@@ -16,13 +18,14 @@ type Decimal = InstanceType<typeof Decimal>;
 /** How a missing value reads (the engine could not compute it; its warnings say why). */
 export const NO_VALUE = '–';
 
-/** "1234567.891" -> "1,234,567.89" at `places` decimals, half to even, with a real minus sign. */
+/** "1234567.891" -> "1,234,567.89" at `places` decimals, half to even, with a real minus sign, in the active locale's marks. */
 export function groupDigits(value: DecimalJs.Value, places: number): string {
+	const { group, decimal } = numberMarks(activeLocale());
 	const rounded = new Decimal(value).toDecimalPlaces(places, Decimal.ROUND_HALF_EVEN);
 	const [whole, fraction] = rounded.abs().toFixed(places).split('.');
-	const grouped = whole.replace(/\B(?=(\d{3})+(?!\d))/g, ',');
+	const grouped = whole.replace(/\B(?=(\d{3})+(?!\d))/g, group);
 	const sign = rounded.isNegative() && !rounded.isZero() ? '−' : '';
-	return sign + grouped + (fraction ? `.${fraction}` : '');
+	return sign + grouped + (fraction ? `${decimal}${fraction}` : '');
 }
 
 /** An engine value in the metric's display unit, exactly (fractions times 100 for per cent figures). */
@@ -115,7 +118,7 @@ export function chartValue(key: FigureKey, value: string | null): number | null 
 /** A chart number (from chartValue) as text with its unit, for tooltips. */
 export function formatChartValue(key: FigureKey, value: number, currency: string): string {
 	const places = figureDefinition(key).places;
-	const text = value.toLocaleString('en-GB', { minimumFractionDigits: places, maximumFractionDigits: places }).replace('-', '−');
+	const text = value.toLocaleString(activeLocale(), { minimumFractionDigits: places, maximumFractionDigits: places }).replace('-', '−');
 	return `${text} ${metricUnit(key, currency)}`;
 }
 

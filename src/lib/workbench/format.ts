@@ -1,15 +1,19 @@
 /**
  * Display formatting of the engine's decimal strings. The engine's exact
- * values stay in the API answer and the exports; these are for reading.
+ * values stay in the API answer and the exports; these are for reading, in
+ * the active locale (src/lib/locale/active.svelte.ts).
  */
+import { activeLocale } from '$lib/locale/active';
 
-const numberFormats = new Map<number, Intl.NumberFormat>();
-/** A grouping formatter per number of digits, built once (building one is far dearer than using it). */
+const numberFormats = new Map<string, Intl.NumberFormat>();
+/** A grouping formatter per locale and number of digits, built once (building one is far dearer than using it). */
 function grouped(digits: number): Intl.NumberFormat {
-	let format = numberFormats.get(digits);
+	const locale = activeLocale();
+	const key = `${locale}|${digits}`;
+	let format = numberFormats.get(key);
 	if (!format) {
-		format = new Intl.NumberFormat('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
-		numberFormats.set(digits, format);
+		format = new Intl.NumberFormat(locale, { minimumFractionDigits: digits, maximumFractionDigits: digits });
+		numberFormats.set(key, format);
 	}
 	return format;
 }
@@ -39,26 +43,36 @@ export function chartNumber(value: string | null | undefined): number | null {
 	return toNumber(value);
 }
 
-// One formatter for every date: `toLocaleString` with options builds a new one per call, and that
-// cost showed as the largest single item in a profile of the project page.
-const dateTimeFormat = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
-
-export function formatDateTime(iso: string | Date): string {
-	const date = typeof iso === 'string' ? new Date(iso) : iso;
-	return dateTimeFormat.format(date);
+// One formatter per locale and style: `toLocaleString` with options builds a new one per call, and
+// that cost showed as the largest single item in a profile of the project page.
+const dateFormats = new Map<string, Intl.DateTimeFormat>();
+function dateFormat(style: 'date' | 'minutes' | 'seconds'): Intl.DateTimeFormat {
+	const locale = activeLocale();
+	const key = `${locale}|${style}`;
+	let format = dateFormats.get(key);
+	if (!format) {
+		const timeStyle = style === 'date' ? undefined : style === 'minutes' ? 'short' : 'medium';
+		format = new Intl.DateTimeFormat(locale, { dateStyle: 'medium', timeStyle });
+		dateFormats.set(key, format);
+	}
+	return format;
 }
 
-const dateTimeSecondsFormat = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'medium' });
-const dateFormat = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium' });
+const asDate = (iso: string | Date) => (typeof iso === 'string' ? new Date(iso) : iso);
+
+/** "9 Dec 2026, 14:05" in the house style; the same on the server and in the browser for one locale. */
+export function formatDateTime(iso: string | Date): string {
+	return dateFormat('minutes').format(asDate(iso));
+}
 
 /** With seconds: two runs started in the same minute still read apart. */
 export function formatDateTimeSeconds(iso: string | Date): string {
-	return dateTimeSecondsFormat.format(typeof iso === 'string' ? new Date(iso) : iso);
+	return dateFormat('seconds').format(asDate(iso));
 }
 
-/** A day: "9 Dec 2026", the same on the server and in every browser (never 12/9/2026). */
+/** A day: "9 Dec 2026" in the house style, never an ambiguous 12/9/2026. */
 export function formatDate(iso: string | Date): string {
-	return dateFormat.format(typeof iso === 'string' ? new Date(iso) : iso);
+	return dateFormat('date').format(asDate(iso));
 }
 
 export function formatBytes(bytes: number): string {

@@ -3,8 +3,11 @@
  * (0.87 shows and is typed as 87, beside "%"), thousands grouped
  * (12,000,000), and arrow keys that step by an amount that fits the field
  * (0.1 of a per cent, a whole device, a hundredth of a money amount's
- * magnitude) rather than the browser's 1. Safe to import in the browser.
+ * magnitude) rather than the browser's 1, in the active locale's marks.
+ * Safe to import in the browser.
  */
+import { activeLocale } from '$lib/locale/active';
+import { numberMarks, type NumberLocale } from '$lib/locale/locales';
 
 /** Display units per stored unit: a fraction unit ("fraction/yr (nominal)") shows as per cent ("%/yr (nominal)"), times 100. */
 export function entryUnit(unit: string): { unit: string; scale: number } {
@@ -17,10 +20,11 @@ export function tidy(x: number): number {
 	return x === 0 ? 0 : Number(x.toPrecision(12));
 }
 
-const formats = new Map<number, Intl.NumberFormat>();
-function grouping(places: number): Intl.NumberFormat {
-	let format = formats.get(places);
-	if (!format) formats.set(places, (format = new Intl.NumberFormat('en-GB', { maximumFractionDigits: places, useGrouping: true })));
+const formats = new Map<string, Intl.NumberFormat>();
+function grouping(locale: NumberLocale, places: number): Intl.NumberFormat {
+	const key = `${locale}|${places}`;
+	let format = formats.get(key);
+	if (!format) formats.set(key, (format = new Intl.NumberFormat(locale, { maximumFractionDigits: places, useGrouping: true })));
 	return format;
 }
 
@@ -32,18 +36,26 @@ export const RESTING_PLACES = 4;
  * at most `places` decimals (all of them, to twelve significant digits, while
  * the field is being typed in); empty for none.
  */
-export function formatEntry(value: number | undefined | null, scale: number, places = 10): string {
+export function formatEntry(value: number | undefined | null, scale: number, places = 10, locale: NumberLocale = activeLocale()): string {
 	if (value === undefined || value === null || !Number.isFinite(value)) return '';
-	return grouping(places).format(tidy(value * scale)).replace('-', '−');
+	return grouping(locale, places).format(tidy(value * scale)).replace('-', '−');
 }
 
+const escapeForPattern = (mark: string) => mark.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+
 /**
- * Typed text to a stored value: spaces and thousands commas dropped, a true
- * or ASCII minus, a point for decimals. Undefined for an empty field, NaN for
- * text that is not a number.
+ * Typed text to a stored value, read in the locale's marks: spaces and
+ * group marks dropped (12,000,000 or 12.000.000), the decimal mark as the
+ * decimal point (0.87 or 0,87), a true or ASCII minus. Undefined for an
+ * empty field, NaN for text that is not a number.
  */
-export function parseEntry(text: string, scale: number): number | undefined {
-	const cleaned = text.replace(/[\s\u00a0\u202f,]/g, '').replace(/[−–]/g, '-');
+export function parseEntry(text: string, scale: number, locale: NumberLocale = activeLocale()): number | undefined {
+	const { group, decimal } = numberMarks(locale);
+	const cleaned = text
+		.replace(/[\s\u00a0\u202f]/g, '')
+		.replace(new RegExp(escapeForPattern(group.trim() || ' '), 'g'), '')
+		.replace(decimal, '.')
+		.replace(/[−–]/g, '-');
 	if (cleaned === '') return undefined;
 	if (!/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(cleaned)) return NaN;
 	return tidy(Number(cleaned) / scale);

@@ -41,7 +41,8 @@ export type AuditEventName =
 	| 'scenario-exported'
 	| 'project-renamed'
 	| 'project-archived'
-	| 'project-restored';
+	| 'project-restored'
+	| 'workspace-settings-changed';
 
 export interface AuditInput {
 	event: AuditEventName;
@@ -68,7 +69,7 @@ export const auditEventGroups = {
 	accounts: ['sign-in', 'sign-in-failed', 'sign-in-blocked', 'sign-out', 'sign-out-everywhere', 'sign-up', 'sign-up-existing-address', 'email-verified', 'password-reset-requested', 'password-reset', 'password-changed'],
 	members: ['role-changed', 'member-removed', 'member-left', 'invitation-sent', 'invitation-revoked', 'invitation-accepted'],
 	tokens: ['api-token-created', 'api-token-revoked', 'api-token-used', 'api-token-refused'],
-	billing: ['billing-changed', 'billing-synced'],
+	billing: ['billing-changed', 'billing-synced', 'workspace-settings-changed'],
 	work: ['scenario-saved', 'scenario-restored', 'upload-applied', 'scenario-deleted', 'project-renamed', 'project-archived', 'project-restored'],
 	exports: ['scenario-exported']
 } as const satisfies Record<string, readonly AuditEventName[]>;

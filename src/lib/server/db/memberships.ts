@@ -4,6 +4,12 @@ import { forgetCachedSessions } from '../auth/session-cache';
 import type { WorkspaceRole } from '../auth/roles';
 import { SEAT_ROLES, requireFreeSeat } from '../billing/gates';
 import type { PlanStatus } from '../../billing/plans';
+import { numberLocaleSchema, type NumberLocale } from '../../locale/locales';
+
+/** Sets how a workspace's pages write numbers and dates (null: each reader's own). */
+export async function setWorkspaceNumberLocale(workspaceId: string, locale: NumberLocale | null, knex: Knex = db()): Promise<void> {
+	await knex('workspaces').where({ id: workspaceId }).update({ number_locale: locale });
+}
 
 export interface WorkspaceMembership {
 	workspaceId: string;
@@ -15,6 +21,43 @@ export interface WorkspaceMembership {
 	/** ISO time a renewal first failed, while past due. */
 	pastDueSince: string | null;
 	role: WorkspaceRole;
+	/** How the workspace's pages write numbers and dates; null: each reader's own browser languages. */
+	numberLocale: NumberLocale | null;
+}
+
+const membershipColumns = [
+	'memberships.workspace_id',
+	'workspaces.name',
+	'workspaces.slug',
+	'workspaces.plan',
+	'workspaces.plan_status',
+	'workspaces.past_due_since',
+	'workspaces.number_locale',
+	'memberships.role'
+];
+
+interface MembershipColumns {
+	workspace_id: string;
+	name: string;
+	slug: string;
+	plan: string;
+	plan_status: PlanStatus;
+	past_due_since: Date | string | null;
+	number_locale: string | null;
+	role: WorkspaceRole;
+}
+
+function membershipOf(row: MembershipColumns): WorkspaceMembership {
+	return {
+		workspaceId: row.workspace_id,
+		workspaceName: row.name,
+		workspaceSlug: row.slug,
+		plan: row.plan,
+		planStatus: row.plan_status,
+		pastDueSince: isoOrNull(row.past_due_since),
+		role: row.role,
+		numberLocale: numberLocaleSchema.safeParse(row.number_locale).data ?? null
+	};
 }
 
 function isoOrNull(value: Date | string | null): string | null {
@@ -28,27 +71,19 @@ export async function getMembership(
 ): Promise<WorkspaceMembership | undefined> {
 	const row = await knex('memberships')
 		.join('workspaces', 'workspaces.id', 'memberships.workspace_id')
-		.select('memberships.workspace_id', 'workspaces.name', 'workspaces.slug', 'workspaces.plan', 'workspaces.plan_status', 'workspaces.past_due_since', 'memberships.role')
+		.select(membershipColumns)
 		.where({ 'memberships.workspace_id': workspaceId, 'memberships.user_id': userId })
 		.first();
-	return row && { workspaceId: row.workspace_id, workspaceName: row.name, workspaceSlug: row.slug, plan: row.plan, planStatus: row.plan_status, pastDueSince: isoOrNull(row.past_due_since), role: row.role };
+	return row && membershipOf(row);
 }
 
 export async function listWorkspacesForUser(userId: string, knex: Knex = db()): Promise<WorkspaceMembership[]> {
 	const rows = await knex('memberships')
 		.join('workspaces', 'workspaces.id', 'memberships.workspace_id')
-		.select('memberships.workspace_id', 'workspaces.name', 'workspaces.slug', 'workspaces.plan', 'workspaces.plan_status', 'workspaces.past_due_since', 'memberships.role')
+		.select(membershipColumns)
 		.where({ 'memberships.user_id': userId })
 		.orderBy('workspaces.name');
-	return rows.map((row) => ({
-		workspaceId: row.workspace_id,
-		workspaceName: row.name,
-		workspaceSlug: row.slug,
-		plan: row.plan,
-		planStatus: row.plan_status,
-		pastDueSince: isoOrNull(row.past_due_since),
-		role: row.role
-	}));
+	return rows.map(membershipOf);
 }
 
 export interface MemberRow {
