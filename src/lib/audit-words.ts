@@ -55,7 +55,7 @@ function localeWords(value: unknown): string {
 	const tag = text(value);
 	if (tag === 'reader') return "each reader's own";
 	try {
-		return new Intl.DisplayNames(['en'], { type: 'language' }).of(tag) ?? tag;
+		return new Intl.DisplayNames(['en'], { type: 'language', languageDisplay: 'standard' }).of(tag) ?? tag;
 	} catch {
 		return tag;
 	}

@@ -18,7 +18,7 @@ test('an owner chooses a decimal-comma style; the editor writes and reads figure
 
 	await page.getByRole('link', { name: 'Settings' }).click();
 	await expect(page.getByRole('heading', { level: 1 })).toHaveText('Settings of Tolvik Tide Works');
-	await page.getByLabel(/^German \(Germany\)/).check();
+	await page.getByRole('radio', { name: /^German \(Germany\)/ }).check();
 	await page.getByRole('button', { name: 'Save the style' }).click();
 	await expect(page.getByRole('status')).toContainText('The number and date style is saved');
 
@@ -31,7 +31,7 @@ test('an owner chooses a decimal-comma style; the editor writes and reads figure
 	await availability.blur();
 	await expect(availability).toHaveValue('87,5');
 	// Key results in the same marks: a decimal comma, never a decimal point.
-	await expect(page.locator('[data-metric="lcoeReal"] dd').first()).toHaveText(/^\d{1,3}(\.\d{3})*,\d\d$/, { timeout: 20_000 });
+	await expect(page.locator('[data-metric="lcoeReal"] dd').first()).toHaveText(/^\d{1,3}(\.\d{3})*,\d\d$/, { timeout: 45_000 });
 
 	await openPage(page, `/app/w/${workspaceId}/audit`);
 	await expect(page.getByRole('row', { name: /Changed a workspace setting/ })).toContainText("from each reader's own to German (Germany)");
@@ -46,6 +46,6 @@ test.describe('a German browser in a workspace without a style of its own', () =
 		await page.locator('body[data-hydrated="true"]').waitFor();
 		await page.getByRole('region', { name: 'Start from an example' }).getByRole('button', { name: /Wave/ }).click();
 		await page.getByRole('link', { name: 'Base case', exact: true }).click();
-		await expect(page.locator('[data-metric="lcoeReal"] dd').first()).toHaveText(/^\d{1,3}(\.\d{3})*,\d\d$/, { timeout: 20_000 });
+		await expect(page.locator('[data-metric="lcoeReal"] dd').first()).toHaveText(/^\d{1,3}(\.\d{3})*,\d\d$/, { timeout: 45_000 });
 	});
 });

@@ -49,7 +49,7 @@ export function numberMarks(locale: NumberLocale): { group: string; decimal: str
 	return found;
 }
 
-const languageNames = new Intl.DisplayNames(['en'], { type: 'language' });
+const languageNames = new Intl.DisplayNames(['en'], { type: 'language', languageDisplay: 'standard' });
 
 /** "German (Germany): 1.234.567,89 · 9 Dec 2026 written 09.12.2026" style choice label. */
 export function localeChoiceLabel(locale: NumberLocale): string {
