@@ -9,6 +9,7 @@ import { numberLocaleSchema, type NumberLocale } from '../../locale/locales';
 /** Sets how a workspace's pages write numbers and dates (null: each reader's own). */
 export async function setWorkspaceNumberLocale(workspaceId: string, locale: NumberLocale | null, knex: Knex = db()): Promise<void> {
 	await knex('workspaces').where({ id: workspaceId }).update({ number_locale: locale });
+	forgetCachedSessions();
 }
 
 export interface WorkspaceMembership {
