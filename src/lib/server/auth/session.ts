@@ -79,7 +79,7 @@ export async function validateSessionToken(token: string, knex: Knex = db(), now
 			'users.name',
 			'users.email_verified_at',
 			knex.raw(
-				`(select coalesce(json_agg(json_build_object('workspaceId', m.workspace_id, 'workspaceName', w.name, 'workspaceSlug', w.slug, 'plan', w.plan, 'planStatus', w.plan_status, 'pastDueSince', w.past_due_since, 'role', m.role) order by w.name), '[]'::json)
+				`(select coalesce(json_agg(json_build_object('workspaceId', m.workspace_id, 'workspaceName', w.name, 'workspaceSlug', w.slug, 'plan', w.plan, 'planStatus', w.plan_status, 'pastDueSince', w.past_due_since, 'numberLocale', w.number_locale, 'role', m.role) order by w.name), '[]'::json)
 				from memberships m join workspaces w on w.id = m.workspace_id where m.user_id = sessions.user_id) as memberships`
 			)
 		)
