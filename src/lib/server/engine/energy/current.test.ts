@@ -1,7 +1,16 @@
 import { describe, expect, it } from 'vitest';
 import { dec } from '../decimal';
 import { BETZ_LIMIT } from '../../../schemas/scenario';
-import { flowDeviceRatedPowerKW, kineticPowerDensityWPerM2, powerCurveKW, rotorPowerFunction, rotorPowerKW, sweptAreaM2 } from './current';
+import {
+	flowDeviceRatedPowerKW,
+	kineticPowerDensityWPerM2,
+	powerCurveDips,
+	powerCurveDipWarning,
+	powerCurveKW,
+	rotorPowerFunction,
+	rotorPowerKW,
+	sweptAreaM2
+} from './current';
 
 const rotor = {
 	kind: 'rotor' as const,
@@ -77,5 +86,45 @@ describe('powerCurveKW', () => {
 		expect(powerCurveKW(points, 0.2).toString()).toBe('0');
 		expect(powerCurveKW(points, 3.6).toString()).toBe('0');
 		expect(flowDeviceRatedPowerKW({ kind: 'power-curve', points }).toString()).toBe('1000');
+	});
+});
+
+describe('powerCurveDips and powerCurveDipWarning', () => {
+	const curve = (pairs: [number, number][]) => pairs.map(([speedMPerS, powerKW]) => ({ speedMPerS, powerKW }));
+
+	it('finds a fall followed by a rise below rated power and names its speeds', () => {
+		// Read off by hand: 300 kW at 1.5 m/s falls to 250 kW at 1.75 m/s, rises to 600 kW at 2 m/s, rated 1000 kW at 2.5 m/s.
+		const points = curve([[0.5, 0], [1.5, 300], [1.75, 250], [2, 600], [2.5, 1000], [3.5, 1000]]);
+		expect(powerCurveDips(points)).toEqual([
+			{ peak: { speedMPerS: 1.5, powerKW: 300 }, low: { speedMPerS: 1.75, powerKW: 250 }, rise: { speedMPerS: 2, powerKW: 600 } }
+		]);
+		const warning = powerCurveDipWarning(points);
+		expect(warning).toContain('from 300 kW at 1.5 m/s down to 250 kW at 1.75 m/s, rising again by 2 m/s');
+	});
+
+	it('follows a dip over several points to its lowest, and lists each dip', () => {
+		// By hand: 400 at 1.2 -> 380 at 1.4 -> 360 at 1.6 (lowest), rises at 1.8; then 700 at 2 -> 650 at 2.2, rises at 2.4.
+		const points = curve([[0.6, 0], [1, 200], [1.2, 400], [1.4, 380], [1.6, 360], [1.8, 500], [2, 700], [2.2, 650], [2.4, 900], [2.6, 1000]]);
+		const dips = powerCurveDips(points);
+		expect(dips.map((d) => [d.peak.speedMPerS, d.low.speedMPerS, d.rise.speedMPerS])).toEqual([
+			[1.2, 1.6, 1.8],
+			[2, 2.2, 2.4]
+		]);
+		expect(powerCurveDipWarning(points)).toMatch(/at 1\.2 m\/s down to 360 kW at 1\.6 m\/s.*; from 700 kW at 2 m\/s down to 650 kW at 2\.2 m\/s/);
+	});
+
+	it('says nothing for a steady rise, a flat stretch, or a fall above rated power', () => {
+		// Steady and flat: the shape IEC TS 62600-200 curves take; the fall after 2.5 m/s is above rated (easing towards cut-out).
+		expect(powerCurveDipWarning(curve([[0.5, 0], [1.5, 300], [2, 300], [2.5, 1000], [3, 950], [3.5, 1000], [4, 0]]))).toBeNull();
+		// A measured curve from the examples: monotonic to 1000 kW at 2.2 m/s.
+		expect(powerCurveDipWarning(curve([[0.4, 0], [0.6, 20], [0.8, 60], [1, 125], [2.2, 1000], [3, 1000]]))).toBeNull();
+		expect(powerCurveDipWarning(curve([[0.5, 0], [1, 0]]))).toBeNull();
+	});
+
+	it('stops at the given rated power, which can come before the curve maximum', () => {
+		// Rated 800 kW given: it is reached at 2 m/s, so the wobble at 2.2 to 2.4 m/s lies above rated.
+		const points = curve([[0.5, 0], [2, 800], [2.2, 850], [2.3, 820], [2.4, 900]]);
+		expect(powerCurveDips(points, 800)).toEqual([]);
+		expect(powerCurveDips(points)).toHaveLength(1);
 	});
 });

@@ -90,6 +90,66 @@ export function powerCurveKW(points: PowerCurveSpec['points'], speedMPerS: Decim
 	return dec(last.powerKW);
 }
 
+/** A fall in a power curve on its way up to rated power: from `peak` down to `low`, rising again at `rise`. */
+export type PowerCurveDip = {
+	peak: { speedMPerS: number; powerKW: number };
+	low: { speedMPerS: number; powerKW: number };
+	rise: { speedMPerS: number; powerKW: number };
+};
+
+/**
+ * The dips of a power curve between cut-in and rated power: wherever the
+ * power falls from one point to the next and then rises again.
+ *
+ *     cut-in = first point with P > 0;  rated = first point with P >= min(P_rated, max P)
+ *     dip    = P_i > P_{i+1} >= ... >= P_low < P_{low+1}, all within [cut-in, rated]
+ *
+ * Flat stretches are not dips, nor is anything above rated power (a curve may
+ * ease off towards cut-out). Source: IEC TS 62600-200 presents power against
+ * flow speed rising from cut-in to rated; a rotor's power, 1/2 rho A Cp v^3, only
+ * rises below rated, so a fall and rise there is a measurement or typing fault
+ * (common practice to question it). Example: 0, 300, 250, 1000 kW at 0.5, 1.5,
+ * 1.75, 2.5 m/s dips from 300 kW at 1.5 m/s to 250 kW at 1.75 m/s.
+ */
+export function powerCurveDips(points: PowerCurveSpec['points'], ratedPowerKW?: number): PowerCurveDip[] {
+	const start = points.findIndex((p) => p.powerKW > 0);
+	if (start < 0) return [];
+	const highest = Math.max(...points.map((p) => p.powerKW));
+	const rated = Math.min(ratedPowerKW ?? highest, highest);
+	const end = points.findIndex((p, i) => i >= start && p.powerKW >= rated);
+	const dips: PowerCurveDip[] = [];
+	let peak = -1;
+	let low = -1;
+	for (let i = start + 1; i <= end; i++) {
+		const [before, here] = [points[i - 1], points[i]];
+		if (here.powerKW < before.powerKW) {
+			if (peak < 0) peak = i - 1;
+			if (low < 0 || here.powerKW < points[low].powerKW) low = i;
+		} else if (peak >= 0 && here.powerKW > points[low].powerKW) {
+			dips.push({ peak: { ...points[peak] }, low: { ...points[low] }, rise: { ...here } });
+			peak = -1;
+			low = -1;
+		}
+	}
+	return dips;
+}
+
+const speedWords = (x: number) => String(Number(x.toPrecision(6)));
+
+/**
+ * The warning for a power curve that dips on its way to rated power, naming
+ * the speeds of each dip; null when it rises steadily (see powerCurveDips).
+ */
+export function powerCurveDipWarning(points: PowerCurveSpec['points'], ratedPowerKW?: number): string | null {
+	const dips = powerCurveDips(points, ratedPowerKW);
+	if (dips.length === 0) return null;
+	const each = dips.map(
+		(d) =>
+			`from ${speedWords(d.peak.powerKW)} kW at ${speedWords(d.peak.speedMPerS)} m/s down to ${speedWords(d.low.powerKW)} kW at ${speedWords(d.low.speedMPerS)} m/s, rising again by ${speedWords(d.rise.speedMPerS)} m/s`
+	);
+	return `The power curve falls and rises again between cut-in and rated power (${each.join('; ')}). A device's power normally rises steadily up to rated: check these points.`;
+}
+
 /** Rated power per device (kW): given, or the curve's maximum. */
 export function flowDeviceRatedPowerKW(device: RotorSpec | PowerCurveSpec): Decimal {
 	if (device.ratedPowerKW !== undefined) return dec(device.ratedPowerKW);

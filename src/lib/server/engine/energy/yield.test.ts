@@ -133,6 +133,25 @@ describe('estimateEnergy: exceedance horizons', () => {
 	});
 });
 
+describe('estimateEnergy on a power curve that dips', () => {
+	it('warns once, naming the speeds of the dip, and not for the same curve without it', () => {
+		// Hand-made curve: 300 kW at 1.5 m/s falls to 250 kW at 1.75 m/s before rising to 1000 kW (see current.ts powerCurveDips).
+		const points = [
+			{ speedMPerS: 0.5, powerKW: 0 },
+			{ speedMPerS: 1.5, powerKW: 300 },
+			{ speedMPerS: 1.75, powerKW: 250 },
+			{ speedMPerS: 2.5, powerKW: 1000 },
+			{ speedMPerS: 3.5, powerKW: 1000 }
+		];
+		const dipping = estimateEnergy(atbCase({ device: { kind: 'power-curve', points } }));
+		const dipWarnings = dipping.warnings.filter((w) => w.startsWith('The power curve falls and rises again'));
+		expect(dipWarnings).toHaveLength(1);
+		expect(dipWarnings[0]).toContain('at 1.5 m/s down to 250 kW at 1.75 m/s');
+		const steady = estimateEnergy(atbCase({ device: { kind: 'power-curve', points: points.map((p) => (p.speedMPerS === 1.75 ? { ...p, powerKW: 400 } : p)) } }));
+		expect(steady.warnings.some((w) => w.includes('falls and rises again'))).toBe(false);
+	});
+});
+
 describe('energyFactor', () => {
 	it('gives the share of P50 for a level and a horizon, as the reported levels do', () => {
 		const e = estimateEnergy(

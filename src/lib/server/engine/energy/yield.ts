@@ -6,7 +6,7 @@
 import { dec, Decimal, ZERO } from '../decimal';
 import type { Scenario } from '../../../schemas/scenario';
 import { energyPeriodFromPeakPeriod, normaliseOccurrences, rayleighBins, weibullBins, type FlowBin, type SeaStateBin } from './distributions';
-import { flowDeviceRatedPowerKW, powerCurveKW, rotorPowerFunction } from './current';
+import { flowDeviceRatedPowerKW, powerCurveDipWarning, powerCurveKW, rotorPowerFunction } from './current';
 import { captureWidthPowerKW, matrixCoverageWarning, powerMatrixCoverage, powerMatrixFunction, powerMatrixRatedPowerKW, waveFluxFunction } from './wave';
 import { netLossFactor } from './losses';
 import {
@@ -121,6 +121,8 @@ function binsWithPower(scenario: Scenario, warnings: string[]): { bins: EnergyBi
 		const bins = flowBins(scenario, warnings).map((b) =>
 			withEnergy({ speedMPerS: b.speedMPerS, probability: b.probability, devicePowerKW: power(b.speedMPerS) })
 		);
+		const dip = device.kind === 'power-curve' ? powerCurveDipWarning(device.points, device.ratedPowerKW) : null;
+		if (dip) warnings.push(dip);
 		return { bins, ratedKW: flowDeviceRatedPowerKW(device) };
 	}
 	const teAxis =
