@@ -137,9 +137,10 @@ test('an analyst creates a project, uploads a time series into a new scenario, e
 	});
 	expect(theirs.status()).toBe(200);
 	await page.getByRole('button', { name: 'Save', exact: true }).click();
-	await expect(page.getByRole('alert').filter({ hasText: 'Someone else saved this scenario first' })).toBeVisible();
+	await expect(page.getByRole('region', { name: 'Someone else saved this scenario while you were editing' })).toContainText('Saved from another window');
 	await shot(page, '5-stale-save');
-	await page.getByRole('button', { name: /Load revision 2/ }).click();
+	page.once('dialog', (dialog) => void dialog.accept());
+	await page.getByRole('button', { name: 'Discard my edits and load revision 2' }).click();
 	await expect(page.getByRole('textbox', { name: 'Notes', exact: true })).toHaveValue('Saved from another window');
 	await expect(page.getByLabel('Availability', { exact: true })).toHaveValue('93');
 
