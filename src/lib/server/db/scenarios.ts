@@ -61,8 +61,8 @@ export class StaleRevisionError extends Error {
 		const who = updatedByName ? ` by ${updatedByName}` : '';
 		super(
 			`This scenario has changed since you opened it: you were editing revision ${expectedRevision}, ` +
-				`but revision ${currentRevision} was saved${who} at ${updatedAt.toISOString()}. ` +
-				'Nothing was saved. Reload the scenario to see the latest version, then make your change again.'
+				`but revision ${currentRevision} was saved${who} at ${updatedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC. ` +
+				`Nothing was saved: apply your change to revision ${currentRevision} and save it against that revision.`
 		);
 		this.name = 'StaleRevisionError';
 	}
