@@ -94,6 +94,27 @@ export const baseLinePlugin: Plugin<'bar', BaseLineOptions> = {
  * base output to the output at the driver's low input, and one to the output
  * at its high input, in the same band, with the base value as a line.
  */
+/**
+ * A long category label as lines of at most `width` characters, broken at
+ * spaces, so a narrow chart keeps every word ("Array, electrical and other
+ * losses" on two lines) instead of cutting its start off.
+ */
+export function wrapLabel(text: string, width = 22): string | string[] {
+	if (text.length <= width) return text;
+	const lines: string[] = [];
+	for (const word of text.split(/\s+/)) {
+		const last = lines.at(-1);
+		if (last !== undefined && last.length + 1 + word.length <= width) lines[lines.length - 1] = `${last} ${word}`;
+		else lines.push(word);
+	}
+	return lines;
+}
+
+/** A legend entry cut to `width` characters with an ellipsis (legends do not wrap); tooltips keep the whole name. */
+export function legendLabel(text: string, width = 30): string {
+	return text.length <= width ? text : `${text.slice(0, width - 1).trimEnd()}…`;
+}
+
 export function tornadoChart(
 	rows: readonly TornadoBar[],
 	base: number | null,
@@ -114,7 +135,7 @@ export function tornadoChart(
 	return {
 		type: 'bar',
 		data: {
-			labels: rows.map((r) => r.label),
+			labels: rows.map((r) => wrapLabel(r.label)),
 			datasets: [
 				dataset('At the low input', rows.map((r) => r.low), chartColours.abyssLight, chartColours.abyss),
 				dataset('At the high input', rows.map((r) => r.high), chartColours.copperLight, chartColours.copper)
@@ -164,7 +185,7 @@ export function spiderChart(series: readonly SpiderLine[], axisLabel: string, fo
 		data: {
 			labels: changes.map(changeLabel),
 			datasets: series.map((s, i) => ({
-				label: s.label,
+				label: legendLabel(s.label),
 				data: s.points.map((p) => p.value),
 				borderColor: seriesColours[i % seriesColours.length],
 				backgroundColor: seriesColours[i % seriesColours.length],
@@ -177,7 +198,9 @@ export function spiderChart(series: readonly SpiderLine[], axisLabel: string, fo
 		options: {
 			plugins: {
 				legend: { position: 'bottom' },
-				tooltip: { callbacks: { label: (item) => `${item.dataset.label}: ${item.raw === null ? 'not defined' : format(item.raw as number)}` } }
+				tooltip: {
+					callbacks: { label: (item) => `${series[item.datasetIndex]?.label ?? item.dataset.label}: ${item.raw === null ? 'not defined' : format(item.raw as number)}` }
+				}
 			},
 			scales: {
 				x: { grid, title: axisTitle('Change of each driver from its base value') },
