@@ -274,8 +274,8 @@ describe('validateSessionToken memberships', () => {
 		database.knex.off('query', count);
 		expect(queries).toBe(1);
 		expect(validated.memberships).toEqual([
-			{ workspaceId: b.id, workspaceName: 'Alder Tidal', workspaceSlug: `alder-${userCount}`, plan: 'free', planStatus: 'active', pastDueSince: null, role: 'owner' },
-			{ workspaceId: a.id, workspaceName: 'Brine Works', workspaceSlug: `brine-${userCount}`, plan: 'free', planStatus: 'active', pastDueSince: null, role: 'viewer' }
+			{ workspaceId: b.id, workspaceName: 'Alder Tidal', workspaceSlug: `alder-${userCount}`, plan: 'free', planStatus: 'active', pastDueSince: null, numberLocale: null, role: 'owner' },
+			{ workspaceId: a.id, workspaceName: 'Brine Works', workspaceSlug: `brine-${userCount}`, plan: 'free', planStatus: 'active', pastDueSince: null, numberLocale: null, role: 'viewer' }
 		]);
 		const loner = await newUser();
 		expect((await validateSessionToken((await newSession(loner.id)).token, database.knex)).memberships).toEqual([]);
