@@ -55,6 +55,17 @@ describe('describeAuditDetail', () => {
 		expect(describeAuditDetail('scenario-exported', { format: 'xlsx', revision: 2 })).toBe('Spreadsheet (XLSX) of revision 2');
 	});
 
+	it("says what a project's new currency did to the money of its scenarios", () => {
+		expect(describeAuditDetail('project-currency-changed', { from: 'EUR', to: 'USD', amounts: 'converted', rate: '1.0825', scenarios: 2 })).toBe(
+			'from EUR to USD, the money of 2 scenarios converted at 1.0825 USD per EUR'
+		);
+		expect(describeAuditDetail('project-currency-changed', { from: 'EUR', to: 'GBP', amounts: 'kept', scenarios: 1, token: 'CI' })).toBe(
+			'from EUR to GBP, the money of one scenario kept as it was (not converted) with token "CI"'
+		);
+		expect(describeAuditDetail('project-currency-changed', { from: 'EUR', to: 'NOK', amounts: 'none', scenarios: 0 })).toBe('from EUR to NOK; no scenario held money in EUR');
+		expect(describeAuditTarget('project-currency-changed', { project: 'Skerry Sound', from: 'EUR', to: 'USD' })).toBe('project Skerry Sound');
+	});
+
 	it('reads what a sync from Stripe changed', () => {
 		expect(describeAuditDetail('billing-synced', { source: 'stripe', seatsFrom: 3, seatsTo: 5 })).toBe('seats 3 → 5');
 		expect(describeAuditDetail('billing-synced', { source: 'stripe', planFrom: 'free', planTo: 'team', seatsFrom: null, seatsTo: 3 })).toBe('plan free → team, 3 seats');

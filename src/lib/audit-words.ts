@@ -33,6 +33,7 @@ export const auditEventWords: Record<string, string> = {
 	'upload-applied': 'Applied an upload',
 	'scenario-exported': 'Exported a scenario',
 	'project-renamed': 'Renamed a project',
+	'project-currency-changed': "Changed a project's currency",
 	'project-archived': 'Archived a project',
 	'project-restored': 'Restored a project',
 	'workspace-settings-changed': 'Changed a workspace setting'
@@ -102,6 +103,7 @@ export function describeAuditTarget(event: string, detail: Record<string, unknow
 		case 'scenario-exported':
 			return scenarioWords(detail);
 		case 'project-renamed':
+		case 'project-currency-changed':
 		case 'project-archived':
 		case 'project-restored':
 			return `project ${text(detail.project)}`;
@@ -121,6 +123,16 @@ function billingSyncWords(detail: Record<string, unknown>): string {
 	if (detail.seatsTo !== undefined) parts.push(detail.seatsFrom === null ? `${text(detail.seatsTo)} seats` : `seats ${text(detail.seatsFrom)} → ${text(detail.seatsTo)}`);
 	if (detail.cancelAtPeriodEnd !== undefined) parts.push(detail.cancelAtPeriodEnd ? 'to end at the close of the period' : 'to renew as before');
 	return parts.join(', ');
+}
+
+/** "from EUR to USD, the money of 2 scenarios converted at 1.0825 USD per EUR". */
+function currencyChangeWords(detail: Record<string, unknown>): string {
+	const from = text(detail.from);
+	const to = text(detail.to);
+	const count = Number(detail.scenarios) === 1 ? 'one scenario' : `${text(detail.scenarios)} scenarios`;
+	if (detail.amounts === 'converted') return `from ${from} to ${to}, the money of ${count} converted at ${text(detail.rate)} ${to} per ${from}`;
+	if (detail.amounts === 'kept') return `from ${from} to ${to}, the money of ${count} kept as it was (not converted)`;
+	return `from ${from} to ${to}; no scenario held money in ${from}`;
 }
 
 /** "with token "Nightly export"" when a script did it with a token, else ''. */
@@ -147,6 +159,8 @@ export function describeAuditDetail(event: string, detail: Record<string, unknow
 		}
 		case 'project-renamed':
 			return `was ${text(detail.from)}${viaToken(detail)}`;
+		case 'project-currency-changed':
+			return `${currencyChangeWords(detail)}${viaToken(detail)}`;
 		case 'project-archived':
 		case 'project-restored':
 			return viaToken(detail).trim();

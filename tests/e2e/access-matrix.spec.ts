@@ -219,9 +219,10 @@ const matrix: Row[] = [
 	{ route: '/app/w/[workspaceId]/billing', method: 'POST', action: 'portal', expect: action('owner', `303 http://127.0.0.1:${stripeStandinPort}/portal/`) },
 	{ route: '/app/w/[workspaceId]/portfolio', method: 'GET', expect: page('viewer') },
 	{ route: '/app/w/[workspaceId]/projects/[projectId]', method: 'GET', expect: page('viewer') },
-	// Renaming is the analysts'; archiving and deleting an archived scenario the owners', and both ask first:
+	// Renaming and a new currency are the analysts' (an empty currency is refused: 400); archiving and deleting an archived scenario the owners', and both ask first:
 	// the owner's body-less archive gets the question (200) and nothing changes.
 	{ route: '/app/w/[workspaceId]/projects/[projectId]', method: 'POST', action: 'rename', body: { form: { name: '' } }, expect: action('analyst', 400) },
+	{ route: '/app/w/[workspaceId]/projects/[projectId]', method: 'POST', action: 'currency', body: { form: { currency: '' } }, expect: action('analyst', 400) },
 	{ route: '/app/w/[workspaceId]/projects/[projectId]', method: 'POST', action: 'archive', expect: action('owner', 200) },
 	{ route: '/app/w/[workspaceId]/projects/[projectId]', method: 'POST', action: 'deleteScenario', body: { form: { scenarioId: 'nobody' } }, expect: action('owner', 400) },
 	{ route: '/app/w/[workspaceId]/projects/[projectId]/compare', method: 'GET', expect: page('viewer') },

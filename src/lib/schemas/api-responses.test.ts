@@ -155,7 +155,7 @@ describe('projectJsonSchema, scenarioJsonSchema, scenarioListItemJsonSchema and 
 			createdBy: person,
 			updatedBy: null
 		};
-		expect(fits(scenarioJsonSchema, scenarioJson({ ...summary, document: examples[0] }))).toEqual([]);
+		expect(fits(scenarioJsonSchema, scenarioJson({ ...summary, document: examples[0], placeholderPaths: ['capex.lines[0].amount'] }))).toEqual([]);
 		const keyFigures: KeyFigures = { currency: 'EUR', values: { lcoeReal: '212.5', equityIrr: null, minDscr: '1.35', netAepMWh: '40150' } };
 		expect(fits(scenarioListItemJsonSchema, { ...scenarioSummaryJson(summary), keyFigures })).toEqual([]);
 		expect(fits(scenarioListItemJsonSchema, { ...scenarioSummaryJson(summary), keyFigures: null })).toEqual([]);

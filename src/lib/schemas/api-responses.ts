@@ -91,7 +91,12 @@ export const scenarioListJsonSchema = z.object({
 export const scenarioJsonSchema = scenarioSummaryJsonSchema.extend({
 	document: scenarioSchema.describe('The scenario document in the current format (an older stored one is upgraded in the answer, not in storage)'),
 	upgradedFrom: z.number().int().nullable().describe('The format version the stored document was upgraded from for this answer; null when stored in the current format'),
-	upgradeNotes: z.array(z.string()).describe('What the upgrade changed, field by field; empty when nothing was upgraded')
+	upgradeNotes: z.array(z.string()).describe('What the upgrade changed, field by field; empty when nothing was upgraded'),
+	placeholderPaths: z
+		.array(z.string())
+		.describe(
+			"Values of the document that are still the placeholders of the example (or blank defaults) the scenario started from, as paths such as capex.lines[0].amount; the editor marks them until they are edited. Read only: a save can only narrow it"
+		)
 });
 
 export const revisionJsonSchema = z.object({

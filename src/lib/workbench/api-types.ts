@@ -50,6 +50,8 @@ export interface ScenarioJson extends ScenarioSummaryJson {
 	upgradedFrom: number | null;
 	/** What the upgrade moved, one line each. */
 	upgradeNotes: string[];
+	/** Values still a template's placeholders (`capex.lines[0].amount`), marked in the editor until edited. */
+	placeholderPaths: string[];
 }
 
 export interface RevisionJson {

@@ -334,7 +334,8 @@ export const apiOperations: ApiOperation[] = [
 		path: '/api/v1/projects/{projectId}',
 		tag: 'Projects',
 		summary: "Change a project's name, site or currency",
-		description: 'Send only the fields to change; the technology cannot change.',
+		description:
+			'Send only the fields to change; the technology cannot change. Changing the currency never relabels money unasked: when scenarios of the project hold money in its currency, send amounts: "keep" (every figure stays and is read in the new currency) or a conversionRate (new currency per old; every money amount of those scenarios is multiplied by it, in decimal arithmetic), else the answer is 422 naming amounts and nothing changes. Either way each such scenario, archived ones too, is saved as a new revision that says what happened, and the change is in the audit log.',
 		minimumRole: 'analyst',
 		apiToken: 'read-write',
 		requestBody: jsonBody(updateProjectBody, true),
@@ -470,7 +471,7 @@ export const apiOperations: ApiOperation[] = [
 		tag: 'Scenarios',
 		summary: 'Save a new revision of a scenario',
 		description:
-			'Send the revision you were editing with the name, notes and/or document. When someone saved since, the answer is 409 with currentRevision and nothing is written.',
+			'Send the revision you were editing with the name, notes, document and/or placeholderPaths. When someone saved since, the answer is 409 with currentRevision and nothing is written. A save that only narrows placeholderPaths (the values were checked and stand) writes no new revision.',
 		minimumRole: 'analyst',
 		apiToken: 'read-write',
 		requestBody: jsonBody(withScenarioDocument(updateScenarioBody, 'The whole scenario document as it should be saved.'), true),

@@ -2,9 +2,9 @@
  * The workspace's audit log: who did what to whom. Account and security
  * events (sign-ins, roles, tokens, billing) and the work done in the
  * workbench (scenario saves and restores, uploads applied, exports, projects
- * renamed or archived, scenarios deleted) go into one table; `detail` keeps
- * the names of what was acted on as they were then, so the log still reads
- * after a rename or a deletion.
+ * renamed, given another currency or archived, scenarios deleted) go into
+ * one table; `detail` keeps the names of what was acted on as they were
+ * then, so the log still reads after a rename or a deletion.
  */
 import type { Knex } from 'knex';
 import { db } from './knex';
@@ -40,6 +40,7 @@ export type AuditEventName =
 	| 'upload-applied'
 	| 'scenario-exported'
 	| 'project-renamed'
+	| 'project-currency-changed'
 	| 'project-archived'
 	| 'project-restored'
 	| 'workspace-settings-changed';
@@ -70,7 +71,7 @@ export const auditEventGroups = {
 	members: ['role-changed', 'member-removed', 'member-left', 'invitation-sent', 'invitation-revoked', 'invitation-accepted'],
 	tokens: ['api-token-created', 'api-token-revoked', 'api-token-used', 'api-token-refused'],
 	billing: ['billing-changed', 'billing-synced', 'workspace-settings-changed'],
-	work: ['scenario-saved', 'scenario-restored', 'upload-applied', 'scenario-deleted', 'project-renamed', 'project-archived', 'project-restored'],
+	work: ['scenario-saved', 'scenario-restored', 'upload-applied', 'scenario-deleted', 'project-renamed', 'project-currency-changed', 'project-archived', 'project-restored'],
 	exports: ['scenario-exported']
 } as const satisfies Record<string, readonly AuditEventName[]>;
 export type AuditEventGroup = keyof typeof auditEventGroups;

@@ -15,6 +15,7 @@ import { projectColumns, type ProjectRow } from './projects';
 import { exactTimestamp, keysetPage, type KeysetPage, type KeysetRequest } from './keyset';
 import type { Scenario } from '../../schemas/scenario';
 import { changedSections, describeEdit } from '../workbench/document-changes';
+import { placeholdersAfterSave, samePlaceholders } from '../../workbench/placeholders';
 
 export type ScenarioDocument = Scenario;
 
@@ -40,6 +41,8 @@ export interface ScenarioSummary {
 
 export interface ScenarioRecord extends ScenarioSummary {
 	document: ScenarioDocument;
+	/** Values still a template's placeholders, as document paths (`capex.lines[0].amount`); see workbench/placeholders.ts. */
+	placeholderPaths: string[];
 }
 
 export interface ScenarioRevision {
@@ -130,6 +133,13 @@ function toSummary(row: SummaryDbRow): ScenarioSummary {
 	};
 }
 
+/** The columns a record adds to its summary: the document and its placeholder marks. */
+const recordColumns = ['scenarios.document', 'scenarios.placeholder_paths'] as const;
+
+function toRecord(row: SummaryDbRow & { document: ScenarioDocument; placeholder_paths: string[] | null }): ScenarioRecord {
+	return { ...toSummary(row), document: row.document, placeholderPaths: row.placeholder_paths ?? [] };
+}
+
 function summaries(knex: Knex) {
 	return knex('scenarios')
 		.leftJoin('users as creator', 'creator.id', 'scenarios.created_by')
@@ -180,12 +190,12 @@ export async function listLiveScenariosWithStoredMetrics(
 export async function getScenarioWithProject(id: string, knex: Knex = db()): Promise<{ scenario: ScenarioRecord; project: ProjectRow } | undefined> {
 	const row = await summaries(knex)
 		.join('projects', 'projects.id', 'scenarios.project_id')
-		.select([...summaryColumns, 'scenarios.document', ...projectColumns.map((c) => `projects.${c} as project_${c}`)])
+		.select([...summaryColumns, ...recordColumns, ...projectColumns.map((c) => `projects.${c} as project_${c}`)])
 		.where('scenarios.id', id)
 		.first();
 	if (!row) return undefined;
 	const project = Object.fromEntries(projectColumns.map((c) => [c, row[`project_${c}`]])) as unknown as ProjectRow;
-	return { scenario: { ...toSummary(row), document: row.document }, project };
+	return { scenario: toRecord(row), project };
 }
 
 /** Where a scenario sits in the list: base case or not, name, when it was created (to the microsecond), id. */
@@ -212,20 +222,20 @@ export async function listScenariosPage(
 
 export async function getScenarioById(id: string, knex: Knex = db()): Promise<ScenarioRecord | undefined> {
 	const row = await summaries(knex)
-		.select([...summaryColumns, 'scenarios.document'])
+		.select([...summaryColumns, ...recordColumns])
 		.where('scenarios.id', id)
 		.first();
-	return row && { ...toSummary(row), document: row.document };
+	return row && toRecord(row);
 }
 
 /** The documents of chosen scenarios of one project, in the order asked (unknown ids are left out). */
 export async function getScenariosInProject(projectId: string, ids: readonly string[], knex: Knex = db()): Promise<ScenarioRecord[]> {
 	if (ids.length === 0) return [];
 	const rows = await summaries(knex)
-		.select([...summaryColumns, 'scenarios.document'])
+		.select([...summaryColumns, ...recordColumns])
 		.where('scenarios.project_id', projectId)
 		.whereIn('scenarios.id', ids);
-	const byId = new Map(rows.map((row) => [row.id, { ...toSummary(row), document: row.document }]));
+	const byId = new Map(rows.map((row) => [row.id, toRecord(row)]));
 	return ids.flatMap((id) => byId.get(id) ?? []);
 }
 
@@ -275,6 +285,8 @@ export interface NewScenario {
 	userId: string | null;
 	/** Revision 1's summary; "Created" when omitted. */
 	summary?: string;
+	/** Values still a template's placeholders (workbench/placeholders.ts); none when omitted. */
+	placeholderPaths?: readonly string[];
 }
 
 /** Creates a scenario at revision 1. The first live scenario of a project becomes its base case. */
@@ -289,6 +301,7 @@ export async function createScenario(input: NewScenario, knex: Knex = db()): Pro
 				name: input.name,
 				notes: input.notes ?? '',
 				document: JSON.stringify(document),
+				placeholder_paths: JSON.stringify(input.placeholderPaths ?? []),
 				schema_version: document.schemaVersion,
 				revision: 1,
 				is_base_case: !existingBase,
@@ -320,12 +333,19 @@ export interface ScenarioSave {
 	document?: ScenarioDocument;
 	/** Words for the history instead of the generated "Edited capex and opex". */
 	summary?: string;
+	/** The placeholder marks the editor still shows; the stored ones are narrowed to these (a save never adds a mark). */
+	placeholderPaths?: readonly string[];
+	/** The part of the document an upload replaced (`resource`, `device`): its marks go. */
+	replacedPart?: string;
 }
 
 /**
  * Saves a new revision. Refuses (StaleRevisionError) when the scenario is no
  * longer at `expectedRevision`; answers undefined when it does not exist. A
  * save that changes nothing writes nothing and answers the scenario as it is.
+ * Placeholder marks whose values the save changed are dropped with it; a
+ * save that only drops marks (the user kept the example's values) updates
+ * them without a new revision, since no input changed.
  */
 export async function saveScenario(save: ScenarioSave, knex: Knex = db()): Promise<ScenarioRecord | undefined> {
 	const saved = await knex.transaction(async (trx) => {
@@ -336,6 +356,7 @@ export async function saveScenario(save: ScenarioSave, knex: Knex = db()): Promi
 				'scenarios.name',
 				'scenarios.notes',
 				'scenarios.document',
+				'scenarios.placeholder_paths',
 				'scenarios.revision',
 				'scenarios.archived_at',
 				'scenarios.updated_at',
@@ -355,13 +376,19 @@ export async function saveScenario(save: ScenarioSave, knex: Knex = db()): Promi
 		const notes = save.notes ?? current.notes;
 		const sections = changedSections(current.document, document);
 		if (notes !== current.notes) sections.push('notes');
-		if (sections.length === 0) return true;
+		const marks: string[] = current.placeholder_paths ?? [];
+		const placeholders = placeholdersAfterSave(marks, current.document, document, { requested: save.placeholderPaths, replacedPart: save.replacedPart });
+		if (sections.length === 0) {
+			if (!samePlaceholders(placeholders, marks)) await trx('scenarios').where({ id: save.scenarioId }).update({ placeholder_paths: JSON.stringify(placeholders) });
+			return true;
+		}
 
 		const revision = current.revision + 1;
 		await trx('scenarios').where({ id: save.scenarioId }).update({
 			name,
 			notes,
 			document: JSON.stringify(document),
+			placeholder_paths: JSON.stringify(placeholders),
 			schema_version: document.schemaVersion,
 			revision,
 			updated_by: save.userId,
@@ -381,6 +408,61 @@ export async function saveScenario(save: ScenarioSave, knex: Knex = db()): Promi
 	return saved ? getScenarioById(save.scenarioId, knex) : undefined;
 }
 
+/** Every scenario of a project, archived ones too, with its document as stored, in list order. */
+export async function listScenarioDocumentsOfProject(
+	projectId: string,
+	knex: Knex = db()
+): Promise<{ id: string; name: string; archivedAt: Date | null; document: ScenarioDocument }[]> {
+	const rows = await knex('scenarios')
+		.select('id', 'name', 'archived_at', 'document')
+		.where({ project_id: projectId })
+		.orderByRaw(scenarioListOrder);
+	return rows.map((row) => ({ id: row.id, name: row.name, archivedAt: row.archived_at, document: row.document }));
+}
+
+export interface ScenarioRewrite {
+	document: ScenarioDocument;
+	/** The history's words for the new revision. */
+	summary: string;
+}
+
+/**
+ * Rewrites documents of a project's scenarios, archived ones too, each as a
+ * new revision, inside the caller's transaction, holding the project and its
+ * scenarios so nobody saves in between (an editor open on an older revision
+ * then meets the usual save conflict). `rewrite` answers null for a scenario
+ * it leaves alone. Placeholder marks stay: a converted example figure is
+ * still the example's. Answers the ids rewritten.
+ */
+export async function rewriteProjectScenarios(
+	trx: Knex.Transaction,
+	projectId: string,
+	rewrite: (scenario: { id: string; name: string; document: ScenarioDocument }) => ScenarioRewrite | null,
+	userId: string | null
+): Promise<string[]> {
+	await lockProject(trx, projectId);
+	const rows = await trx('scenarios').select('id', 'name', 'document', 'revision').where({ project_id: projectId }).orderBy('created_at').forUpdate();
+	const rewritten: string[] = [];
+	for (const row of rows) {
+		const change = rewrite({ id: row.id, name: row.name, document: row.document });
+		if (!change) continue;
+		const document = { ...change.document, name: row.name };
+		const sections = changedSections(row.document, document);
+		if (sections.length === 0) continue;
+		const revision = row.revision + 1;
+		await trx('scenarios').where({ id: row.id }).update({
+			document: JSON.stringify(document),
+			schema_version: document.schemaVersion,
+			revision,
+			updated_by: userId,
+			updated_at: trx.fn.now()
+		});
+		await insertRevision(trx, { scenarioId: row.id, revision, name: row.name, document, sections, summary: change.summary, userId });
+		rewritten.push(row.id);
+	}
+	return rewritten;
+}
+
 /** A copy at revision 1 in the same project, never the base case; answers undefined when the source is missing. */
 export async function duplicateScenario(
 	sourceId: string,
@@ -398,6 +480,7 @@ export async function duplicateScenario(
 				name,
 				notes: options.notes ?? source.notes,
 				document: JSON.stringify(document),
+				placeholder_paths: JSON.stringify(source.placeholderPaths),
 				schema_version: document.schemaVersion,
 				revision: 1,
 				is_base_case: false,

@@ -32,7 +32,7 @@ describe('validateBody', () => {
 
 	it('lists the fields of a small body when no key is near', () => {
 		const problem = problemOf(() => validateBody(createScenarioBody, { name: 'Base', extra: 1 }));
-		expect(problem.issues).toEqual([{ path: 'extra', message: '"extra" is not a field here; the fields here are name, notes, document' }]);
+		expect(problem.issues).toEqual([{ path: 'extra', message: '"extra" is not a field here; the fields here are name, notes, document, placeholderPaths' }]);
 	});
 });
 

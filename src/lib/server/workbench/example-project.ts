@@ -10,6 +10,7 @@ import type { Technology } from '../../schemas/workbench';
 import { validateDocument } from './api-route';
 import { exampleProject } from './starter-documents';
 import { storeResultOfSave } from './stored-results';
+import { acceptedPlaceholderPaths, placeholderPathsOf } from '../../workbench/placeholders';
 
 export async function startFromExample(workspaceId: string, technology: Technology, userId: string): Promise<ProjectRow> {
 	const example = exampleProject(technology);
@@ -18,7 +19,15 @@ export async function startFromExample(workspaceId: string, technology: Technolo
 		createProject({ workspaceId, name: example.name, technology, siteName: example.siteName, siteDescription: example.siteDescription, currency: example.currency }, trx)
 	);
 	const document = validateDocument(example.document, project);
-	const scenario = await createScenario({ projectId: project.id, name: 'Base case', notes: 'Started from the example. Every figure is the example’s: replace them with your own.', document, userId });
+	const scenario = await createScenario({
+		projectId: project.id,
+		name: 'Base case',
+		notes: 'Started from the example. Every figure is the example’s: replace them with your own.',
+		document,
+		// The figures the example states are its placeholders; the schema's defaults are not.
+		placeholderPaths: acceptedPlaceholderPaths(document, placeholderPathsOf(example.document)),
+		userId
+	});
 	await storeResultOfSave(scenario, project);
 	return project;
 }

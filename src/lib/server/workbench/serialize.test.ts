@@ -17,7 +17,8 @@ const record = (document: unknown, schemaVersion: number): ScenarioRecord => ({
 	updatedAt: new Date('2026-01-01T00:00:00Z'),
 	createdBy: null,
 	updatedBy: null,
-	document: document as ScenarioRecord['document']
+	document: document as ScenarioRecord['document'],
+	placeholderPaths: []
 });
 
 describe('scenarioJson', () => {

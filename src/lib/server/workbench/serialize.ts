@@ -49,7 +49,7 @@ function documentJson(document: ScenarioRecord['document']) {
 }
 
 export function scenarioJson(s: ScenarioRecord) {
-	return { ...scenarioSummaryJson(s), ...documentJson(s.document) };
+	return { ...scenarioSummaryJson(s), ...documentJson(s.document), placeholderPaths: s.placeholderPaths };
 }
 
 export function uploadSummaryJson(u: UploadSummary) {

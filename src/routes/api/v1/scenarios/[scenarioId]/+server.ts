@@ -30,7 +30,15 @@ export const PUT: RequestHandler = apiRoute(async (event) => {
 	const current = await loadScenario(scenarioId);
 	const name = body.name ?? current.name;
 	const document = body.document === undefined ? undefined : validateDocument(withName(body.document, name), project);
-	const saved = await saveScenario({ scenarioId, expectedRevision: body.revision, name: body.name, notes: body.notes, document, userId: user.id });
+	const saved = await saveScenario({
+		scenarioId,
+		expectedRevision: body.revision,
+		name: body.name,
+		notes: body.notes,
+		document,
+		placeholderPaths: body.placeholderPaths,
+		userId: user.id
+	});
 	if (!saved) throw new ApiProblem(404, 'No such scenario, or it is not yours.');
 	await storeResultOfSave(saved, project);
 	// A save that changed nothing wrote no revision, and is no event.

@@ -7,6 +7,7 @@ import { exactTimestampPattern } from '$lib/server/db/keyset';
 import { ApiProblem, apiRoute, readJsonBody, validateBody, validateDocument, withName } from '$lib/server/workbench/api-route';
 import { projectJson, scenarioJson, scenarioSummaryJson } from '$lib/server/workbench/serialize';
 import { starterDocument } from '$lib/server/workbench/starter-documents';
+import { acceptedPlaceholderPaths, placeholderPathsOf } from '$lib/workbench/placeholders';
 import { nextCursor, readPageRequest } from '$lib/server/workbench/paging';
 import { storeResultOfSave, storedKeyFigures } from '$lib/server/workbench/stored-results';
 import type { RequestHandler } from './$types';
@@ -31,7 +32,11 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 	});
 });
 
-/** A new scenario from the document sent, or from the starter document of the project's technology. */
+/**
+ * A new scenario from the document sent, or from the starter document of the
+ * project's technology, whose figures are then marked as the example's
+ * placeholders (a sent document's marks are the `placeholderPaths` sent).
+ */
 export const POST: RequestHandler = apiRoute(async (event) => {
 	const { project, user } = await authorize(event, event.params, 'analyst');
 	requireLiveProject(project);
@@ -43,7 +48,8 @@ export const POST: RequestHandler = apiRoute(async (event) => {
 		]);
 	}
 	const document = validateDocument(withName(candidate, body.name), project);
-	const scenario = await createScenario({ projectId: project.id, name: body.name, notes: body.notes, document, userId: user.id });
+	const placeholderPaths = acceptedPlaceholderPaths(document, body.document === undefined ? placeholderPathsOf(candidate) : (body.placeholderPaths ?? []));
+	const scenario = await createScenario({ projectId: project.id, name: body.name, notes: body.notes, document, placeholderPaths, userId: user.id });
 	await storeResultOfSave(scenario, project);
 	return json({ scenario: scenarioJson(scenario) }, { status: 201 });
 });

@@ -39,6 +39,8 @@ export const POST: RequestHandler = apiRoute(async (event) => {
 		scenarioId,
 		expectedRevision: body.revision ?? scenario.revision,
 		document,
+		// The upload's data replaces the section: none of its values is the example's any more.
+		replacedPart: applied.section,
 		userId: user.id,
 		summary: `Applied ${uploadKindInfo[upload.kind].label.toLowerCase()} "${upload.fileName}" to ${applied.section}`
 	});

@@ -12,6 +12,9 @@ import { getScenarioById } from '$lib/server/db/scenarios';
 import { readForm } from '$lib/server/forms';
 import { actorOf } from '$lib/server/workbench/audit-trail';
 import { archiveProjectAs, deleteArchivedScenarioAs, updateProjectAs } from '$lib/server/workbench/project-lifecycle';
+import { amountsChoiceOfForm, changeProjectCurrencyAs, currencyChangeDone, currencyQuestion, planCurrencyChange } from '$lib/server/workbench/project-currency';
+import type { AmountsChoice } from '$lib/server/workbench/currency-conversion';
+import { ApiProblem } from '$lib/server/workbench/api-route';
 import { asJson, type ProjectJson, type ScenarioSummaryJson, type UploadSummaryJson } from '$lib/workbench/api-types';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -37,12 +40,21 @@ export const load: PageServerLoad = async (event) => {
 
 const renameForm = z.object({ name: z.string().trim().min(1, 'Give the project a name.').max(200, 'At most 200 characters.') });
 const scenarioTarget = z.object({ scenarioId: z.uuid('Choose a scenario.') });
+const currencyForm = z.object({
+	currency: z
+		.string()
+		.trim()
+		.toUpperCase()
+		.regex(/^[A-Z]{3}$/, 'Give a three-letter currency code, such as EUR, GBP or USD.')
+});
 
 /**
- * Renaming (analysts), archiving and deleting an archived scenario for good
- * (owners), as the API allows; the two that take things out of sight ask
- * first: without `confirmed=yes` the answer is the question, naming what
- * would go, and nothing changes.
+ * Renaming and changing the currency (analysts), archiving and deleting an
+ * archived scenario for good (owners), as the API allows; the two that take
+ * things out of sight ask first: without `confirmed=yes` the answer is the
+ * question, naming what would go, and nothing changes. A new currency for a
+ * project whose scenarios hold money asks too, and the confirming post says
+ * what becomes of that money (kept, or converted at a rate).
  */
 export const actions: Actions = {
 	rename: async (event) => {
@@ -53,6 +65,32 @@ export const actions: Actions = {
 		if (isArchivedProject(access.project)) return fail(409, { action: 'rename', name: parsed.data.name, message: ARCHIVED_PROJECT_MESSAGE });
 		const updated = await updateProjectAs(actorOf(event, access), access.project, { name: parsed.data.name });
 		return { action: 'rename', done: `The project is now called ${updated.name}.` };
+	},
+
+	currency: async (event) => {
+		const access = await authorize(event, event.params, 'analyst');
+		const fields = await readForm(event.request);
+		const parsed = currencyForm.safeParse(fields);
+		if (!parsed.success) return fail(400, { action: 'currency', currency: fields.currency ?? '', message: parsed.error.issues[0].message });
+		if (isArchivedProject(access.project)) return fail(409, { action: 'currency', currency: parsed.data.currency, message: ARCHIVED_PROJECT_MESSAGE });
+		const to = parsed.data.currency;
+		if (to === access.project.currency) return fail(400, { action: 'currency', currency: to, message: `The project's currency is ${to} already.` });
+		try {
+			const plan = await planCurrencyChange(access.project, to);
+			let choice: AmountsChoice | null = null;
+			if (plan.scenarios.length > 0) {
+				const confirmCurrency = currencyQuestion(plan);
+				if (fields.confirmed !== 'yes') return { action: 'currency', confirmCurrency };
+				const answer = amountsChoiceOfForm(fields, plan);
+				if (!answer.ok) return fail(400, { action: 'currency', confirmCurrency, amounts: fields.amounts ?? '', rate: fields.rate ?? '', message: answer.message });
+				choice = answer.choice;
+			}
+			await changeProjectCurrencyAs(actorOf(event, access), access.project, to, choice);
+			return { action: 'currency', done: currencyChangeDone(plan, choice) };
+		} catch (e) {
+			if (e instanceof ApiProblem) return fail(e.status, { action: 'currency', currency: to, message: e.message });
+			throw e;
+		}
 	},
 
 	archive: async (event) => {
