@@ -191,7 +191,7 @@ test.describe('accessibility of every page', () => {
 		});
 	}
 
-	test('a form that opens in place takes the focus, and the keyboard alone opens it', async () => {
+	test('a form that opens in place takes the focus, the keyboard alone opens it, and Cancel gives the focus back', async () => {
 		const page = await contexts.owner.newPage();
 		await settled(page, team(ids));
 		const opener = page.getByRole('button', { name: 'New project' });
@@ -201,6 +201,9 @@ test.describe('accessibility of every page', () => {
 		await expect(form).toBeVisible();
 		await expect(page.getByLabel('Project name')).toBeFocused();
 		expect(await form.evaluate((el) => el.contains(document.activeElement))).toBe(true);
+		await form.getByRole('button', { name: 'Cancel' }).press('Enter');
+		await expect(form).toHaveCount(0);
+		await expect(opener).toBeFocused();
 		await page.close();
 	});
 });
