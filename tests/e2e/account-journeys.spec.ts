@@ -2,6 +2,7 @@ import { openPage } from './helpers/page';
 import { expect, test } from '@playwright/test';
 import { firstLinkIn, latestMailTo } from './helpers/mail';
 import { signInPage } from './helpers/session';
+import { forgetSignUpsFromThisMachine } from './helpers/sign-up-allowance';
 import { demoUsers } from '../../seeds/02_demo_users';
 
 const uniqueEmail = (label: string) => `${label}.${Date.now()}.${Math.floor(Math.random() * 1e6)}@example.org`;
@@ -11,6 +12,7 @@ test('sign up, confirm from the mail, sign in, sign out, forget the password, re
 	const firstPassword = 'brine shrimp lantern 42';
 	const secondPassword = 'copper kettle drift 77';
 
+	await forgetSignUpsFromThisMachine();
 	await openPage(page, '/signup');
 	await page.getByLabel('Your name').fill('Nerys Alder');
 	await page.getByLabel('E-mail').fill(email);
@@ -73,6 +75,7 @@ test('sign up, confirm from the mail, sign in, sign out, forget the password, re
 
 test('sign-up answers an address that already has an account as it answers a new one, and mails its owner instead', async ({ page }) => {
 	const owner = demoUsers.viewer;
+	await forgetSignUpsFromThisMachine();
 	await openPage(page, '/signup');
 	await page.getByLabel('Your name').fill('Someone Else');
 	await page.getByLabel('E-mail').fill(owner.email);

@@ -7,6 +7,7 @@ import { request as playwrightRequest } from '@playwright/test';
 import { demoUsers, type DemoPersona } from '../../../seeds/02_demo_users';
 import { firstLinkIn, latestMailTo } from './mail';
 import { openPage } from './page';
+import { forgetSignUpsFromThisMachine } from './sign-up-allowance';
 
 export type Persona = DemoPersona | 'anonymous';
 
@@ -79,6 +80,7 @@ export async function signedInGuestRequest(
 export async function signUpFreshAccount(page: Page, who: { name: string; workspace: string }): Promise<string> {
 	const email = `${who.name.toLowerCase().replace(/\W+/g, '.')}.${Date.now()}.${Math.floor(Math.random() * 1e6)}@example.org`;
 	const password = 'undertow quay lantern 58';
+	await forgetSignUpsFromThisMachine();
 	await openPage(page, '/signup');
 	await page.getByLabel('Your name').fill(who.name);
 	await page.getByLabel('E-mail').fill(email);
