@@ -3,6 +3,7 @@
  * or to what, and its details as a short sentence rather than raw keys. Safe
  * to import in the browser.
  */
+import { localeName } from './locale/locales';
 export const auditEventWords: Record<string, string> = {
 	'sign-in': 'Signed in',
 	'sign-in-failed': 'Failed sign-in',
@@ -54,12 +55,7 @@ const settingWords: Record<string, string> = { numberLocale: 'number and date st
 /** A stored locale tag in words ("German (Germany)"), or the readers' own. */
 function localeWords(value: unknown): string {
 	const tag = text(value);
-	if (tag === 'reader') return "each reader's own";
-	try {
-		return new Intl.DisplayNames(['en'], { type: 'language', languageDisplay: 'standard' }).of(tag) ?? tag;
-	} catch {
-		return tag;
-	}
+	return tag === 'reader' ? "each reader's own" : localeName(tag);
 }
 
 const accessWords: Record<string, string> = { read: 'read only', 'read-write': 'read and write' };

@@ -51,9 +51,18 @@ export function numberMarks(locale: NumberLocale): { group: string; decimal: str
 
 const languageNames = new Intl.DisplayNames(['en'], { type: 'language', languageDisplay: 'standard' });
 
+/** A locale tag in words: "German (Germany)"; the tag itself when it names no language. */
+export function localeName(tag: string): string {
+	try {
+		return languageNames.of(tag) ?? tag;
+	} catch {
+		return tag;
+	}
+}
+
 /** "German (Germany): 1.234.567,89 · 9 Dec 2026 written 09.12.2026" style choice label. */
 export function localeChoiceLabel(locale: NumberLocale): string {
 	const number = new Intl.NumberFormat(locale, { minimumFractionDigits: 2 }).format(1234567.89);
 	const date = new Intl.DateTimeFormat(locale, { dateStyle: 'medium' }).format(new Date(Date.UTC(2026, 11, 9, 12)));
-	return `${languageNames.of(locale) ?? locale}: ${number} · ${date}`;
+	return `${localeName(locale)}: ${number} · ${date}`;
 }
