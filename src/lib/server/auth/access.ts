@@ -244,6 +244,24 @@ export async function authorize(
 	throw new Error('authorize needs a workspace, project, scenario or upload id');
 }
 
+/**
+ * The same check as authorize for a project, for a route that reads the
+ * project together with its own data in one query: `read` gets the project
+ * id (a valid id only) and returns the project with that data, or undefined;
+ * nothing it read leaves here unless the caller may see the project.
+ */
+export async function authorizeProjectRead<T extends { project: ProjectRow }>(
+	event: AccessEvent,
+	target: { projectId: string; workspaceId?: string },
+	minimum: WorkspaceRole,
+	read: (projectId: string) => Promise<T | undefined>
+): Promise<{ access: ProjectAccess; read: T }> {
+	if (principalOf(event).kind === 'anonymous') refuseAnonymous(event);
+	const found = isUuid(target.projectId) ? await read(target.projectId) : undefined;
+	const access = await projectAccess(event, found?.project, { workspaceId: target.workspaceId, projectId: target.projectId }, minimum, hidden.project);
+	return { access, read: found! };
+}
+
 /** Whether the caller's effective role reaches `minimum` (for showing or hiding controls). */
 export function canAct(access: WorkspaceAccess, minimum: WorkspaceRole): boolean {
 	return roleAtLeast(access.membership.role, minimum);

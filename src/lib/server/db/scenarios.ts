@@ -165,17 +165,13 @@ export async function listScenariosInProject(
 	return rows.map(toSummary);
 }
 
-/**
- * The project's live scenarios in list order, each with its current
- * revision's stored metrics for one engine version (null when not stored),
- * in one query: what a project page shows.
- */
-export async function listLiveScenariosWithStoredMetrics(
-	projectId: string,
-	engineVersion: string,
-	knex: Knex = db()
-): Promise<(ScenarioSummary & { stored: { metrics: Record<string, string | null>; currency: string } | null })[]> {
-	const rows: (SummaryDbRow & { stored_metrics: Record<string, string | null> | null; stored_currency: string | null })[] = await summaries(knex)
+export type ScenarioWithStoredMetrics = ScenarioSummary & { stored: { metrics: Record<string, string | null>; currency: string } | null };
+
+type StoredMetricsDbRow = SummaryDbRow & { stored_metrics: Record<string, string | null> | null; stored_currency: string | null };
+
+/** The live scenarios of the project `projectId` names (an id, or a reference to an outer query's column), in list order, with their stored metrics. */
+export function liveScenariosWithStoredMetricsQuery(projectId: string | Knex.Ref<string, Record<string, string>>, engineVersion: string, knex: Knex = db()) {
+	return summaries(knex)
 		.leftJoin('scenario_results as stored', function () {
 			this.on('stored.scenario_id', 'scenarios.id').andOn('stored.revision', 'scenarios.revision').andOnVal('stored.engine_version', engineVersion);
 		})
@@ -183,7 +179,30 @@ export async function listLiveScenariosWithStoredMetrics(
 		.where('scenarios.project_id', projectId)
 		.whereNull('scenarios.archived_at')
 		.orderByRaw(scenarioListOrder);
-	return rows.map((row) => ({ ...toSummary(row), stored: row.stored_metrics ? { metrics: row.stored_metrics, currency: row.stored_currency ?? '' } : null }));
+}
+
+function toScenarioWithStoredMetrics(row: StoredMetricsDbRow): ScenarioWithStoredMetrics {
+	return { ...toSummary(row), stored: row.stored_metrics ? { metrics: row.stored_metrics, currency: row.stored_currency ?? '' } : null };
+}
+
+/**
+ * The project's live scenarios in list order, each with its current
+ * revision's stored metrics for one engine version (null when not stored),
+ * in one query.
+ */
+export async function listLiveScenariosWithStoredMetrics(projectId: string, engineVersion: string, knex: Knex = db()): Promise<ScenarioWithStoredMetrics[]> {
+	const rows: StoredMetricsDbRow[] = await liveScenariosWithStoredMetricsQuery(projectId, engineVersion, knex);
+	return rows.map(toScenarioWithStoredMetrics);
+}
+
+/** A row of liveScenariosWithStoredMetricsQuery read back from json_agg (its timestamps arrive as text). */
+export function scenarioWithStoredMetricsFromJson(row: StoredMetricsDbRow): ScenarioWithStoredMetrics {
+	return toScenarioWithStoredMetrics({
+		...row,
+		archived_at: row.archived_at === null ? null : new Date(row.archived_at),
+		created_at: new Date(row.created_at),
+		updated_at: new Date(row.updated_at)
+	});
 }
 
 /** A scenario (with its document) and the project it belongs to, in one query: what the editor page needs after the access check. */

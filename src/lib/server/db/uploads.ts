@@ -115,9 +115,19 @@ const uploadOrder = [
 ];
 
 /** Newest first, without file contents or parsed data. */
+/** The uploads of the project `projectId` names (an id, or a reference to an outer query's column), newest first. */
+export function uploadsInProjectQuery(projectId: string | Knex.Ref<string, Record<string, string>>, knex: Knex = db()) {
+	return withUploader(knex).select(summaryColumns).where('uploads.project_id', projectId).orderBy(uploadOrder);
+}
+
 export async function listUploadsInProject(projectId: string, knex: Knex = db()): Promise<UploadSummary[]> {
-	const rows: SummaryDbRow[] = await withUploader(knex).select(summaryColumns).where('uploads.project_id', projectId).orderBy(uploadOrder);
+	const rows: SummaryDbRow[] = await uploadsInProjectQuery(projectId, knex);
 	return rows.map(toSummary);
+}
+
+/** A row of uploadsInProjectQuery read back from json_agg (its timestamp arrives as text). */
+export function uploadSummaryFromJson(row: SummaryDbRow): UploadSummary {
+	return toSummary({ ...row, created_at: new Date(row.created_at) });
 }
 
 /** Where an upload sits in the list: when it came, to the microsecond, and its id. */

@@ -16,8 +16,10 @@ function starterExample(technology: Technology): Record<string, unknown> | undef
 		.find((doc) => doc.technology === technology && (doc.resource as { kind?: unknown } | undefined)?.kind !== 'assessed-energy');
 }
 
-/** A whole project to start from, per technology: the example's site, currency and document (an empty workspace offers them). */
-export function exampleProject(technology: Technology): { name: string; siteName: string; siteDescription: string; currency: string; document: Record<string, unknown> } | undefined {
+type ExampleFacts = { name: string; siteName: string; siteDescription: string; currency: string };
+
+/** What a project started from a technology's example is called and priced in, without copying its document. */
+export function exampleProjectFacts(technology: Technology): ExampleFacts | undefined {
 	const example = starterExample(technology);
 	if (!example) return undefined;
 	const site = (example.site ?? {}) as { name?: string };
@@ -26,9 +28,15 @@ export function exampleProject(technology: Technology): { name: string; siteName
 		name: `${siteName || String(example.name)} (example)`,
 		siteName,
 		siteDescription: typeof example.description === 'string' ? example.description : '',
-		currency: typeof example.currency === 'string' ? example.currency : 'EUR',
-		document: { ...structuredClone(example), name: 'Base case' }
+		currency: typeof example.currency === 'string' ? example.currency : 'EUR'
 	};
+}
+
+/** A whole project to start from, per technology: the example's site, currency and document (an empty workspace offers them). */
+export function exampleProject(technology: Technology): (ExampleFacts & { document: Record<string, unknown> }) | undefined {
+	const facts = exampleProjectFacts(technology);
+	if (!facts) return undefined;
+	return { ...facts, document: { ...structuredClone(starterExample(technology)!), name: 'Base case' } };
 }
 
 export function starterDocument(

@@ -3,7 +3,8 @@ import { localeFromAcceptLanguage } from '$lib/locale/locales';
 import type { LayoutServerLoad } from './$types';
 
 export const load: LayoutServerLoad = async (event) => {
-	const { membership } = await authorize(event, event.params, 'viewer');
+	// The workspace only: each page below checks its own project, scenario or room (and reads it with its data).
+	const { membership } = await authorize(event, { workspaceId: event.params.workspaceId }, 'viewer');
 	return {
 		workspace: { id: membership.workspaceId, name: membership.workspaceName, role: membership.role },
 		// The workspace's own number and date style overrides the reader's browser languages.

@@ -2,18 +2,19 @@ import { fail, redirect } from '@sveltejs/kit';
 import { authorize } from '$lib/server/auth/access';
 import { PlanRefusal } from '$lib/server/billing/gates';
 import { startFromExample } from '$lib/server/workbench/example-project';
-import { exampleProject } from '$lib/server/workbench/starter-documents';
+import { exampleProjectFacts } from '$lib/server/workbench/starter-documents';
 import { technologies, type Technology } from '$lib/schemas/workbench';
 import { technologyLabels } from '$lib/technology';
 import type { Actions, PageServerLoad } from './$types';
 
+/** What an empty workspace offers to start from: one example per technology (the same for every view). */
+const examples = technologies.flatMap((technology) => {
+	const example = exampleProjectFacts(technology);
+	return example ? [{ technology, label: technologyLabels[technology], name: example.name, currency: example.currency }] : [];
+});
+
 export const load: PageServerLoad = async (event) => {
 	await authorize(event, event.params, 'viewer');
-	// What an empty workspace offers to start from: one example per technology.
-	const examples = technologies.flatMap((technology) => {
-		const example = exampleProject(technology);
-		return example ? [{ technology, label: technologyLabels[technology], name: example.name, currency: example.currency }] : [];
-	});
 	return { welcome: event.url.searchParams.has('welcome'), examples };
 };
 

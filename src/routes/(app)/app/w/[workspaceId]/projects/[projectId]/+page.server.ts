@@ -1,9 +1,8 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { roleAtLeast } from '$lib/server/auth/roles';
-import { authorize } from '$lib/server/auth/access';
-import { listLiveScenariosWithStoredMetrics } from '$lib/server/db/scenarios';
-import { listUploadsInProject } from '$lib/server/db/uploads';
+import { authorize, authorizeProjectRead } from '$lib/server/auth/access';
+import { readProjectPage } from '$lib/server/db/project-page';
 import { projectJson, scenarioSummaryJson, uploadSummaryJson } from '$lib/server/workbench/serialize';
 import { keyFiguresOf } from '$lib/server/workbench/stored-results';
 import { ENGINE_VERSION } from '$lib/server/engine/version';
@@ -24,9 +23,10 @@ import type { Actions, PageServerLoad } from './$types';
  * archived project is shown read only, with a restore button for owners.
  */
 export const load: PageServerLoad = async (event) => {
-	const { project, membership } = await authorize(event, event.params, 'viewer');
-	// The scenarios with their stored key figures in one query, the uploads beside it.
-	const [scenarios, uploads] = await Promise.all([listLiveScenariosWithStoredMetrics(project.id, ENGINE_VERSION), listUploadsInProject(project.id)]);
+	// The project, its scenarios with their stored key figures and its uploads in one query, checked before use.
+	const { access, read } = await authorizeProjectRead(event, event.params, 'viewer', (id) => readProjectPage(id, ENGINE_VERSION));
+	const { project, membership } = access;
+	const { scenarios, uploads } = read;
 	return {
 		project: asJson<ProjectJson>(projectJson(project)),
 		scenarios: asJson<ScenarioSummaryJson[]>(scenarios.map((s) => ({ ...scenarioSummaryJson(s), keyFigures: keyFiguresOf(s.stored) }))),

@@ -1,0 +1,40 @@
+/**
+ * What a project page shows, in one statement: the project, its live
+ * scenarios with their stored key figures, and its uploads. Each query is a
+ * round trip, and on a small machine the round trips, not PostgreSQL's work,
+ * are most of a page view's cost; the lists travel as JSON arrays.
+ */
+import type { Knex } from 'knex';
+import { db } from './knex';
+import { projectColumns, type ProjectRow } from './projects';
+import { liveScenariosWithStoredMetricsQuery, scenarioWithStoredMetricsFromJson, type ScenarioWithStoredMetrics } from './scenarios';
+import { uploadSummaryFromJson, uploadsInProjectQuery, type UploadSummary } from './uploads';
+
+export interface ProjectPageRead {
+	project: ProjectRow;
+	scenarios: ScenarioWithStoredMetrics[];
+	uploads: UploadSummary[];
+}
+
+export async function readProjectPage(projectId: string, engineVersion: string, knex: Knex = db()): Promise<ProjectPageRead | undefined> {
+	const projectRef = knex.ref('projects.id');
+	// json_agg keeps the order of a sorted subquery (it reads the subquery's rows in order).
+	const row = await knex('projects')
+		.select(projectColumns.map((c) => `projects.${c}`))
+		.select(
+			knex.raw(`coalesce((select json_agg(s) from (?) s), '[]'::json) as page_scenarios`, [liveScenariosWithStoredMetricsQuery(projectRef, engineVersion, knex)]),
+			knex.raw(`coalesce((select json_agg(u) from (?) u), '[]'::json) as page_uploads`, [uploadsInProjectQuery(projectRef, knex)])
+		)
+		.where('projects.id', projectId)
+		.first();
+	if (!row) return undefined;
+	const { page_scenarios: scenarios, page_uploads: uploads, ...project } = row as ProjectRow & {
+		page_scenarios: Parameters<typeof scenarioWithStoredMetricsFromJson>[0][];
+		page_uploads: Parameters<typeof uploadSummaryFromJson>[0][];
+	};
+	return {
+		project: project as ProjectRow,
+		scenarios: scenarios.map(scenarioWithStoredMetricsFromJson),
+		uploads: uploads.map(uploadSummaryFromJson)
+	};
+}
