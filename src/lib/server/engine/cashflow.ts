@@ -11,7 +11,7 @@
  * Amounts are nominal currency of each year unless named real. Time convention
  * as in ./timeline: t = 0 is COD, construction at t <= 0, operating year k at t = k.
  */
-import { dec, Decimal, ONE, sum, ZERO } from './decimal';
+import { dec, Decimal, numberKind, ONE, sum, withFloat64, ZERO } from './decimal';
 import type { Scenario } from '../../schemas/scenario';
 import type { EnergyEstimate } from './energy/yield';
 import { degradationFactors } from './energy/losses';
@@ -21,7 +21,7 @@ import { buildTimeline, discountFactorsOnTimeline, overConstructionPoints, power
 import { capexSchedule, decommissioningCost, opexSchedule, overhaulSchedules, totalOpex, type CapexSchedule, type OpexSchedule, type OverhaulSchedule } from './costs';
 import { deliveredEnergy, grantSchedule, revenueByYear, tariffInflationOf } from './revenue';
 import { corporateTax } from './tax';
-import { structureDebt, type DebtStructure } from './debt';
+import { structureDebt, type DebtStructure, type DebtTerms } from './debt';
 import type { FundingSolution } from './construction-funding';
 import { horizonExceedanceFactor } from './energy/uncertainty';
 import { costReserves, type CostReserves } from './reserves';
@@ -159,13 +159,19 @@ export type OperatingResult = {
 	npv: Decimal;
 };
 
-/** Revenue, opex, EBITDA, unlevered tax and project cash flows for a price path. */
-export function operate(prep: CasePreparation, pricePerMWh: readonly Decimal[]): OperatingResult {
+/** Revenue, opex, EBITDA and decommissioning for a price path: what a downside sizing case needs of operate. */
+function operatingMargin(prep: CasePreparation, pricePerMWh: readonly Decimal[]) {
 	const n = prep.timeline.operatingYears;
 	const revenue = revenueByYear(prep.energyMWh, pricePerMWh);
 	const opex = totalOpex(prep.opex, revenue);
 	const ebitda = revenue.map((r, k) => r.minus(opex[k]));
 	const decommissioning = Array.from({ length: n }, (_, k) => (k === n - 1 ? prep.decommissioning : ZERO));
+	return { revenue, opex, ebitda, decommissioning };
+}
+
+/** Revenue, opex, EBITDA, unlevered tax and project cash flows for a price path. */
+export function operate(prep: CasePreparation, pricePerMWh: readonly Decimal[]): OperatingResult {
+	const { revenue, opex, ebitda, decommissioning } = operatingMargin(prep, pricePerMWh);
 	const taxable = ebitda.map((e, k) => e.minus(prep.depreciation[k]).minus(decommissioning[k]));
 	const { finance } = prep.scenario;
 	const unleveredTax = corporateTax(taxable, finance.taxRate, finance.taxLossCarryForward, finance.taxLossCarryForwardCap).tax;
@@ -213,8 +219,19 @@ export type FinancingResult = {
 
 const MAX_TAX_ITERATIONS = 40;
 
+/**
+ * How close the debt-and-tax circle settles: the largest move of its iterate
+ * (interest, the reserve's share in money, the financing costs) below this
+ * share of the debt. Far below what any figure shows, so that where the circle
+ * starts (the float64 search, or the decimal pass's own start) does not move a
+ * reported figure; float64 reaches it, its rounding being some 1e-15.
+ */
+const SETTLED_SHARE_OF_DEBT = 1e-12;
+/** The least absolute move counted as settled (currency units), for very small loans. */
+const SETTLED_FLOOR = 1e-6;
+
 /** First-year debt service per unit borrowed, when it does not depend on CFADS (interest only, annuity, straight line). */
-function firstServicePerDebt(terms: Exclude<Scenario['finance']['debt'], { sizing: 'none' }>): Decimal | null {
+function firstServicePerDebt(terms: DebtTerms): Decimal | null {
 	const rate = dec(terms.interestRate);
 	if (terms.graceYears > 0) return rate;
 	if (terms.repayment === 'annuity') return rate.isZero() ? ONE.div(terms.tenorYears) : rate.div(ONE.minus(ONE.plus(rate).pow(-terms.tenorYears)));
@@ -254,6 +271,188 @@ function shieldedSculptingGuess(
 	return rows.map((row) => row.opening.times(rate));
 }
 
+/** An energy case of the circle: its EBITDA and decommissioning each operating year, and its sizing target. */
+type CircleCase = {
+	label: string;
+	exceedancePercent: number | null;
+	horizonYears: number | null;
+	targetDscr: number;
+	ebitda: readonly Decimal[];
+	decommissioning: readonly Decimal[];
+};
+
+/** What the debt-and-tax circle reads; none of it changes from round to round. */
+type CircleData = {
+	/** The sizing cases, P50 first. */
+	cases: CircleCase[];
+	/** The years as they turn out (cases[0] unless a draw's energy differs from the estimate the debt is sized on). */
+	actual: CircleCase;
+	/** Tax depreciation of capex net of grants, before the financing costs of construction. */
+	depreciation: Decimal[];
+	depreciableCost: Decimal;
+	/** Net contributions to the maintenance and decommissioning reserves (./reserves), taken off CFADS. */
+	reserveContribution: readonly Decimal[];
+	/** Construction spend net of grants at each construction point. */
+	fundingNeed: readonly Decimal[];
+};
+
+/**
+ * The circle's iterate: the interest of the loan's years, the debt service
+ * reserve's share of the loan, the financing costs of construction in the
+ * depreciable cost, and where the
+ * construction funding's solve starts.
+ */
+type CircleState = { interest: Decimal[]; reserveShare: Decimal; financingCosts: Decimal; fundingStart?: FundingSolution };
+
+/** The circle settled: the debt of its last pass, the iterate that pass ran on, and whether it settled. */
+type SettledCircle = { debt: DebtStructure; state: CircleState; converged: boolean; eachCase: boolean };
+
+/**
+ * The debt-and-tax circle over one number kind: the data are read in the
+ * number kind bound when this is called (see ./decimal: withFloat64), and its
+ * functions must run under the same binding.
+ */
+function debtCircle(prep: CasePreparation, data: CircleData) {
+	const { finance } = prep.scenario;
+	const terms = finance.debt as DebtTerms;
+	const n = prep.timeline.operatingYears;
+	const span = terms.tenorYears;
+	const dsraSpec = finance.reserves?.debtService;
+	const sweeps = finance.covenants?.cashSweep !== undefined && finance.covenants.cashSweep.share > 0;
+	// A reserve funded at COD holds months/12 of the first year's debt service; as a share of the loan that is
+	// exact for interest-only first years and annuities, and settles with the tax circle otherwise.
+	const reserveMonths = dsraSpec?.funding === 'from-funding' ? dec(dsraSpec.months).div(12) : ZERO;
+
+	/** Depreciation with the financing costs of construction capitalised into the depreciable cost (every method is linear in it). */
+	const depreciationWith = (costs: Decimal) => {
+		if (costs.isZero() || !data.depreciableCost.gt(0)) return data.depreciation;
+		const scale = ONE.plus(costs.div(data.depreciableCost));
+		return data.depreciation.map((d) => d.times(scale));
+	};
+	/** Tax with the given interest over the first interest.length years, for one case. */
+	const taxFor = (c: CircleCase, interest: readonly Decimal[], depreciation: readonly Decimal[]) => {
+		const taxableIncome = interest.map((i, k) => c.ebitda[k].minus(depreciation[k]).minus(c.decommissioning[k]).minus(i));
+		return { taxableIncome, ...corporateTax(taxableIncome, finance.taxRate, finance.taxLossCarryForward, finance.taxLossCarryForwardCap) };
+	};
+	const cfadsFor = (c: CircleCase, tax: readonly Decimal[]) =>
+		tax.map((t, k) => c.ebitda[k].minus(c.decommissioning[k]).minus(t).minus(data.reserveContribution[k]));
+	const casesWith = (interest: readonly Decimal[], depreciation: readonly Decimal[]) =>
+		data.cases.map((c) => ({ ...c, cfads: cfadsFor(c, taxFor(c, interest, depreciation).tax) }));
+	const overLife = (values: readonly Decimal[]) => Array.from({ length: n }, (_, k) => values[k] ?? ZERO);
+
+	/** Size, fund and schedule the debt on the CFADS the iterate gives; the funding solution is kept for the next pass. */
+	const structure = (state: CircleState, eachCase: boolean) => {
+		const structured = structureDebt({
+			terms,
+			timeline: prep.timeline,
+			spend: data.fundingNeed,
+			cases: casesWith(state.interest, depreciationWith(state.financingCosts)),
+			reserveShareOfDebt: state.reserveShare,
+			operatingYears: n,
+			fundingStart: state.fundingStart,
+			eachCase
+		});
+		state.fundingStart = structured.funding.solution;
+		return structured;
+	};
+	/** CFADS of the years as they turn out, with the given interest. */
+	const actualCfads = (interest: readonly Decimal[], depreciation: readonly Decimal[]) => cfadsFor(data.actual, taxFor(data.actual, overLife(interest), depreciation).tax);
+	/** The waterfall on a CFADS: with a cash sweep, the interest it charges is what tax sees next. */
+	const flow = (debt: DebtStructure, cfads: readonly Decimal[]) =>
+		runWaterfall({
+			cfads,
+			loanRows: debt.rows,
+			interestRate: terms.interestRate,
+			debtServiceReserve: dsraSpec,
+			dsraAtCod: dsraSpec ? debt.funding.reserveAtCod : undefined,
+			covenants: finance.covenants
+		});
+	const shareFrom = (debt: DebtStructure) =>
+		debt.balanceAtCod.gt(0) ? reserveMonths.times(Decimal.max(debt.debtService[0], ZERO)).div(debt.balanceAtCod) : ZERO;
+	/** Gearing-sized annuity or straight-line debt without a sweep does not depend on CFADS (and a reserve funded at COD is then an exact share of it): the first pass is the answer. */
+	const independentOfCfads = terms.sizing === 'gearing' && terms.repayment !== 'sculpted' && !sweeps;
+
+	/** No interest (or, for a sculpted loan, the tax-shielded guess) and the reserve's share for a loan whose first service is proportional to it. */
+	const defaultStart = (): CircleState => {
+		let interest: Decimal[] = Array.from({ length: span }, () => ZERO);
+		if (terms.sizing === 'target-dscr' && terms.repayment === 'sculpted' && finance.taxRate > 0) {
+			// Start from the case that allows the least debt without interest: it usually sets every year.
+			const start = casesWith(interest, data.depreciation);
+			const least = start.reduce((a, b) => (b.cfads[0] !== undefined && allowed(b).lt(allowed(a)) ? b : a));
+			interest = shieldedSculptingGuess(least.cfads, terms, finance.taxRate, least.targetDscr);
+		}
+		return { interest, reserveShare: reserveMonths.times(firstServicePerDebt(terms) ?? ZERO), financingCosts: ZERO };
+	};
+
+	/**
+	 * Fixed-point iteration with Anderson acceleration (finance/anderson) from
+	 * the start until the iterate moves by less than SETTLED_SHARE_OF_DEBT of
+	 * the debt. eachCaseFirst sizes each case on its own in the first pass
+	 * already (for a start expected to be settled: the report then needs no
+	 * further pass).
+	 */
+	const settle = (start: CircleState, eachCaseFirst = false): SettledCircle => {
+		let state: CircleState = { ...start, interest: [...start.interest] };
+		let eachCase = eachCaseFirst;
+		let debt = structure(state, eachCase);
+		if (independentOfCfads) return { debt, state, converged: true, eachCase };
+		const mixer = new AndersonMixer(2);
+		// The reserve's share is iterated in money (x the first debt amount), on the scale of the other unknowns.
+		const shareScale = Decimal.max(debt.balanceAtCod, ONE);
+		for (let round = 0; round < MAX_TAX_ITERATIONS; round++) {
+			const costs = state.financingCosts;
+			const nextShare = shareFrom(debt);
+			const nextCosts = debt.funding.financingCosts;
+			// Only a cash sweep makes the interest paid differ from the loan's rows (it repays early).
+			const implied = (sweeps ? flow(debt, actualCfads(state.interest, depreciationWith(costs))).interest : debt.rows.map((r) => r.interest)).slice(0, span);
+			let move = Decimal.max(nextShare.minus(state.reserveShare).times(debt.balanceAtCod).abs(), nextCosts.minus(costs).abs());
+			implied.forEach((v, k) => (move = Decimal.max(move, v.minus(state.interest[k]).abs())));
+			if (move.lt(Decimal.max(SETTLED_FLOOR, debt.balanceAtCod.times(SETTLED_SHARE_OF_DEBT)))) return { debt, state, converged: true, eachCase };
+			const mixed = mixer.next(
+				[...state.interest, state.reserveShare.times(shareScale), costs],
+				[...implied, nextShare.times(shareScale), nextCosts]
+			);
+			state = {
+				interest: mixed.slice(0, span),
+				reserveShare: Decimal.max(mixed[span].div(shareScale), ZERO),
+				financingCosts: Decimal.max(mixed[span + 1], ZERO),
+				fundingStart: state.fundingStart
+			};
+			eachCase = false;
+			debt = structure(state, eachCase);
+		}
+		return { debt, state, converged: false, eachCase };
+	};
+
+	return { taxFor, cfadsFor, actualCfads, flow, overLife, depreciationWith, structure, defaultStart, settle, independentOfCfads, sweeps };
+}
+
+/** The circle's data in the number kind bound now (float64 inside withFloat64). */
+function rebound(data: CircleData): CircleData {
+	const each = (values: readonly Decimal[]) => values.map((v) => new Decimal(v.toNumber()));
+	const rebind = (c: CircleCase): CircleCase => ({ ...c, ebitda: each(c.ebitda), decommissioning: each(c.decommissioning) });
+	const cases = data.cases.map(rebind);
+	return {
+		cases,
+		actual: data.actual === data.cases[0] ? cases[0] : rebind(data.actual),
+		depreciation: each(data.depreciation),
+		depreciableCost: new Decimal(data.depreciableCost.toNumber()),
+		reserveContribution: each(data.reserveContribution),
+		fundingNeed: each(data.fundingNeed)
+	};
+}
+
+/** A circle iterate found in float64, as decimals. */
+function decimalState(state: CircleState): CircleState {
+	const d = (v: Decimal) => new Decimal(v.toNumber());
+	return {
+		interest: state.interest.map(d),
+		reserveShare: d(state.reserveShare),
+		financingCosts: d(state.financingCosts),
+		fundingStart: state.fundingStart
+	};
+}
+
 /**
  * Debt, levered tax, CFADS and equity cash flows.
  *
@@ -269,12 +468,15 @@ function shieldedSculptingGuess(
  *
  * Interest lowers tax, which raises CFADS, which (for DSCR sizing or sculpting)
  * changes the debt: the circle is closed by fixed-point iteration with
- * Anderson acceleration (finance/anderson), until the interest
- * moves by less than 1e-9 of the debt amount (it contracts by roughly
- * tax rate x interest rate per round). Only the loan's years take part: tax
- * losses carry forward, never back, so later years cannot change the debt.
- * Downside sizing cases (P90, P99 energy) run the same tax with the same
- * interest on their own EBITDA. Source: common practice.
+ * Anderson acceleration (finance/anderson), until the iterate moves by less
+ * than 1e-12 of the debt amount (it contracts by roughly tax rate x interest
+ * rate per round). The search runs in float64 first (some twenty times
+ * faster); the decimal pass starts where it settled and, finding it settled
+ * there too, takes one round; otherwise it iterates on in decimals. Only the
+ * loan's years take part: tax losses carry forward, never back, so later
+ * years cannot change the debt. Downside sizing cases (P90, P99 energy) run
+ * the same tax with the same interest on their own EBITDA. Source: common
+ * practice.
  *
  * sizedOn is the operation the debt is sized on, op the one the years bring:
  * the same but for a probabilistic draw, whose debt is sized at financial
@@ -285,14 +487,16 @@ export function financeCase(prep: CasePreparation, op: OperatingResult, sizedOn:
 	const n = prep.timeline.operatingYears;
 	const warnings: string[] = [];
 	const terms = finance.debt;
-	type Case = { label: string; exceedancePercent: number | null; horizonYears: number | null; targetDscr: number; ebitda: readonly Decimal[]; decommissioning: readonly Decimal[] };
-	const cases: Case[] = [{ label: 'P50', exceedancePercent: null, horizonYears: null, targetDscr: terms.sizing === 'target-dscr' ? terms.targetDscr : 0, ebitda: sizedOn.ebitda, decommissioning: sizedOn.decommissioning }];
+	const cases: CircleCase[] = [{ label: 'P50', exceedancePercent: null, horizonYears: null, targetDscr: terms.sizing === 'target-dscr' ? terms.targetDscr : 0, ebitda: sizedOn.ebitda, decommissioning: sizedOn.decommissioning }];
 	// The years as they turn out: the sized case unless the debt was sized on another estimate (a probabilistic draw).
-	const actual: Case = sizedOn === op ? cases[0] : { ...cases[0], ebitda: op.ebitda, decommissioning: op.decommissioning };
-	if (terms.sizing === 'target-dscr') {
+	const actual: CircleCase = sizedOn === op ? cases[0] : { ...cases[0], ebitda: op.ebitda, decommissioning: op.decommissioning };
+	if (terms.sizing === 'target-dscr' && terms.downsideCases.length > 0) {
+		// EBITDA is affine in the energy delivered (revenue, revenue-share and per-MWh opex scale with it, the rest
+		// does not): a case with f x the energy has EBITDA_k - (1 - f) x (revenue_k (1 - revenue share) - per-MWh opex_k).
+		const energyMargin = sizedOn.revenue.map((r, k) => r.times(ONE.minus(prep.opex.revenueShare)).minus(prep.opex.energyDriven[k]));
 		for (const downside of terms.downsideCases) {
-			const energy = scaledEnergy(prep.energy, horizonExceedanceFactor(downside.exceedancePercent, downside.horizonYears, prep.energy.uncertaintySplit));
-			const downsideOp = operate(withEnergy(prep, energy), op.pricePerMWh);
+			const shortfall = ONE.minus(horizonExceedanceFactor(downside.exceedancePercent, downside.horizonYears, prep.energy.uncertaintySplit));
+			const downsideOp = { ebitda: sizedOn.ebitda.map((e, k) => e.minus(shortfall.times(energyMargin[k]))), decommissioning: sizedOn.decommissioning };
 			const horizon = downside.horizonYears === 1 ? '' : ` (${downside.horizonYears}-year)`;
 			cases.push({
 				label: `P${downside.exceedancePercent}${horizon}`,
@@ -304,29 +508,22 @@ export function financeCase(prep: CasePreparation, op: OperatingResult, sizedOn:
 			});
 		}
 	}
-	const { depreciableCost } = prep;
-	let depreciation = prep.depreciation;
 	const reserves = costReserves({ overhauls: prep.overhauls, decommissioning: op.decommissioning, spec: finance.reserves });
-	/** Tax with the given interest over the first interest.length years, for one case. */
-	const taxFor = (c: Case, interest: readonly Decimal[]) => {
-		const taxableIncome = interest.map((i, k) => c.ebitda[k].minus(depreciation[k]).minus(c.decommissioning[k]).minus(i));
-		return { taxableIncome, ...corporateTax(taxableIncome, finance.taxRate, finance.taxLossCarryForward, finance.taxLossCarryForwardCap) };
-	};
-	const cfadsFor = (c: Case, tax: readonly Decimal[]) =>
-		tax.map((t, k) => c.ebitda[k].minus(c.decommissioning[k]).minus(t).minus(reserves.netContribution[k]));
-	const casesWith = (interest: readonly Decimal[]) => cases.map((c) => ({ ...c, cfads: cfadsFor(c, taxFor(c, interest).tax) }));
+	const data: CircleData = { cases, actual, depreciation: prep.depreciation, depreciableCost: prep.depreciableCost, reserveContribution: reserves.netContribution, fundingNeed: prep.fundingNeed };
 
 	if (terms.sizing === 'none') {
 		const zeros = op.ebitda.map(() => ZERO);
-		const taxed = taxFor(actual, zeros);
-		const cfads = cfadsFor(actual, taxed.tax);
+		const { finance: f } = prep.scenario;
+		const taxableIncome = op.ebitda.map((e, k) => e.minus(prep.depreciation[k]).minus(op.decommissioning[k]));
+		const taxed = { taxableIncome, ...corporateTax(taxableIncome, f.taxRate, f.taxLossCarryForward, f.taxLossCarryForwardCap) };
+		const cfads = taxed.tax.map((t, k) => op.ebitda[k].minus(op.decommissioning[k]).minus(t).minus(reserves.netContribution[k]));
 		return {
 			debt: null,
 			interest: zeros,
 			principal: zeros,
 			debtService: zeros,
 			closingBalance: zeros,
-			depreciation,
+			depreciation: prep.depreciation,
 			...taxed,
 			cfads,
 			downsideCfads: [],
@@ -337,86 +534,30 @@ export function financeCase(prep: CasePreparation, op: OperatingResult, sizedOn:
 		};
 	}
 
-	const span = terms.tenorYears;
-	const dsraSpec = finance.reserves?.debtService;
-	let interest: Decimal[] = Array.from({ length: span }, () => ZERO);
-	if (terms.sizing === 'target-dscr' && terms.repayment === 'sculpted' && finance.taxRate > 0) {
-		// Start from the case that allows the least debt without interest: it usually sets every year.
-		const start = casesWith(interest);
-		const least = start.reduce((a, b) => (b.cfads[0] !== undefined && allowed(b).lt(allowed(a)) ? b : a));
-		interest = shieldedSculptingGuess(least.cfads, terms, finance.taxRate, least.targetDscr);
-	}
-	// A reserve funded at COD holds months/12 of the first year's debt service; as a share of the loan that is
-	// exact for interest-only first years and annuities, and settles with the tax circle otherwise.
-	const reserveMonths = dsraSpec?.funding === 'from-funding' ? dec(dsraSpec.months).div(12) : ZERO;
-	let reserveShare = reserveMonths.times(firstServicePerDebt(terms) ?? ZERO);
-	let fundingStart: FundingSolution | undefined;
-	const structure = (eachCase = false) => {
-		const structured = structureDebt({ terms, timeline: prep.timeline, spend: prep.fundingNeed, cases: casesWith(interest), reserveShareOfDebt: reserveShare, operatingYears: n, fundingStart, eachCase });
-		fundingStart = structured.funding.solution;
-		return structured;
-	};
-	const withFinancingCosts = (costs: Decimal) =>
-		depreciableCost.gt(0) ? prep.depreciation.map((d) => d.times(ONE.plus(costs.div(depreciableCost)))) : prep.depreciation;
-	/** The waterfall on the CFADS the current interest gives: the interest it charges is what tax sees next. */
-	const overLife = (values: readonly Decimal[]) => Array.from({ length: n }, (_, k) => values[k] ?? ZERO);
-	const flow = (debt: DebtStructure) =>
-		runWaterfall({
-			cfads: cfadsFor(actual, taxFor(actual, overLife(interest)).tax),
-			loanRows: debt.rows,
-			interestRate: terms.interestRate,
-			debtServiceReserve: dsraSpec,
-			dsraAtCod: dsraSpec ? debt.funding.reserveAtCod : undefined,
-			covenants: finance.covenants
+	const circle = debtCircle(prep, data);
+	// A loan sculpted on several cases is sized on their combination; the report also sizes each case alone.
+	const eachCaseReport = terms.sizing === 'target-dscr' && terms.repayment === 'sculpted' && cases.length > 1;
+	let start: CircleState | null = null;
+	if (numberKind() === 'decimal' && !circle.independentOfCfads) {
+		// The search in float64; the decimal pass below then normally confirms it in one round.
+		const found = withFloat64(() => {
+			const fast = debtCircle(prep, rebound(data));
+			return fast.settle(fast.defaultStart());
 		});
-	const sweeps = finance.covenants?.cashSweep !== undefined && finance.covenants.cashSweep.share > 0;
-	const shareFrom = (debt: DebtStructure) =>
-		debt.balanceAtCod.gt(0) ? reserveMonths.times(Decimal.max(debt.debtService[0], ZERO)).div(debt.balanceAtCod) : ZERO;
-	let debt = structure();
-	let financingCosts = debt.funding.financingCosts;
-	depreciation = withFinancingCosts(financingCosts);
-	// Gearing-sized annuity or straight-line debt without a sweep does not depend on CFADS (and a reserve funded
-	// at COD is then an exact share of it): the first pass is the answer.
-	const independentOfCfads = terms.sizing === 'gearing' && terms.repayment !== 'sculpted' && !sweeps;
-	let converged = independentOfCfads;
-	const mixer = new AndersonMixer(2);
-	// The iterate: the interest of the loan's years, the reserve's share of the loan (in money, x the first debt
-	// amount) and the financing costs in the depreciation; each round maps it through tax, sizing and funding.
-	const shareScale = Decimal.max(debt.balanceAtCod, ONE);
-	for (let round = 0; !independentOfCfads && round < MAX_TAX_ITERATIONS; round++) {
-		const nextShare = shareFrom(debt);
-		const nextCosts = debt.funding.financingCosts;
-		// Only a cash sweep makes the interest paid differ from the loan's rows (it repays early).
-		const implied = (sweeps ? flow(debt).interest : debt.rows.map((r) => r.interest)).slice(0, span);
-		let move = Decimal.max(nextShare.minus(reserveShare).times(debt.balanceAtCod).abs(), nextCosts.minus(financingCosts).abs());
-		implied.forEach((v, k) => (move = Decimal.max(move, v.minus(interest[k]).abs())));
-		if (move.lt(Decimal.max(1e-6, debt.balanceAtCod.times(1e-9)))) {
-			converged = true;
-			break;
-		}
-		const mixed = mixer.next(
-			[...interest, reserveShare.times(shareScale), financingCosts],
-			[...implied, nextShare.times(shareScale), nextCosts]
-		);
-		interest = mixed.slice(0, span);
-		reserveShare = Decimal.max(mixed[span].div(shareScale), ZERO);
-		financingCosts = Decimal.max(mixed[span + 1], ZERO);
-		depreciation = withFinancingCosts(financingCosts);
-		debt = structure();
+		if (found.converged) start = decimalState(found.state);
 	}
-	depreciation = withFinancingCosts(debt.funding.financingCosts);
+	const settled = start ? circle.settle(start, eachCaseReport) : circle.settle(circle.defaultStart());
+	let { debt } = settled;
 	// The settled debt once more, with each case sized on its own for the report.
-	if (terms.sizing === 'target-dscr' && terms.repayment === 'sculpted' && cases.length > 1) {
-		debt = structure(true);
-		depreciation = withFinancingCosts(debt.funding.financingCosts);
-	}
+	if (eachCaseReport && !settled.eachCase) debt = circle.structure(settled.state, true);
+	const depreciation = circle.depreciationWith(debt.funding.financingCosts);
 	// Tax on the waterfall's own interest, then the waterfall on that CFADS: without a sweep the interest is the
 	// loan's and the ledger closes exactly; with one, the two interest vectors agree to the tolerance above.
-	interest = overLife(sweeps ? flow(debt).interest : debt.rows.map((r) => r.interest));
-	const taxed = taxFor(actual, interest);
-	const cfads = cfadsFor(actual, taxed.tax);
-	const waterfall = flow(debt);
-	if (!converged) warnings.push('The debt and tax calculation did not settle; debt figures may be slightly off.');
+	const interest = circle.overLife(circle.sweeps ? circle.flow(debt, circle.actualCfads(settled.state.interest, depreciation)).interest : debt.rows.map((r) => r.interest));
+	const taxed = circle.taxFor(actual, interest, depreciation);
+	const cfads = circle.cfadsFor(actual, taxed.tax);
+	const waterfall = circle.flow(debt, cfads);
+	if (!settled.converged) warnings.push('The debt and tax calculation did not settle; debt figures may be slightly off.');
 	warnings.push(...debt.warnings, ...waterfall.warnings);
 	return {
 		debt,
@@ -427,7 +568,7 @@ export function financeCase(prep: CasePreparation, op: OperatingResult, sizedOn:
 		depreciation,
 		...taxed,
 		cfads,
-		downsideCfads: cases.slice(1).map((c) => ({ label: c.label, cfads: cfadsFor(c, taxFor(c, interest).tax) })),
+		downsideCfads: cases.slice(1).map((c) => ({ label: c.label, cfads: circle.cfadsFor(c, circle.taxFor(c, interest, depreciation).tax) })),
 		costReserves: reserves,
 		waterfall,
 		equity: { construction: debt.funding.equity.map((e) => e.neg()), operation: waterfall.distribution },

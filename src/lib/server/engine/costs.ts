@@ -67,6 +67,8 @@ export type OpexSchedule = {
 	lines: { name: string; nominal: Decimal[] }[];
 	/** Sum of those lines per operating year. */
 	revenueIndependent: Decimal[];
+	/** The part of revenueIndependent in proportion to the energy delivered (the per-MWh lines), per operating year. */
+	energyDriven: Decimal[];
 	/** Lines charged as a share of revenue (leases). */
 	revenueShareLines: { name: string; fraction: Decimal }[];
 	revenueShare: Decimal;
@@ -118,6 +120,7 @@ function lineRealAmounts(line: Exclude<OpexLine, { basis: 'percent-of-revenue' }
 export function opexSchedule(opex: Scenario['opex'], ctx: OpexContext): OpexSchedule {
 	const years = ctx.priceIndex.length;
 	const revenueIndependent: Decimal[] = Array.from({ length: years }, () => ZERO);
+	const energyDriven: Decimal[] = Array.from({ length: years }, () => ZERO);
 	const lines: OpexSchedule['lines'] = [];
 	const revenueShareLines: OpexSchedule['revenueShareLines'] = [];
 	let revenueShare = ZERO;
@@ -129,9 +132,10 @@ export function opexSchedule(opex: Scenario['opex'], ctx: OpexContext): OpexSche
 		}
 		const nominal = nominalAmounts(line, ctx);
 		nominal.forEach((v, k) => (revenueIndependent[k] = revenueIndependent[k].plus(v)));
+		if (line.basis === 'per-MWh') nominal.forEach((v, k) => (energyDriven[k] = energyDriven[k].plus(v)));
 		lines.push({ name: line.name, nominal });
 	}
-	return { lines, revenueIndependent, revenueShareLines, revenueShare };
+	return { lines, revenueIndependent, energyDriven, revenueShareLines, revenueShare };
 }
 
 function nominalAmounts(line: Exclude<OpexLine, { basis: 'percent-of-revenue' }>, ctx: OpexContext): Decimal[] {

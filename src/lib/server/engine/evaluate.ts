@@ -14,9 +14,11 @@ import type { Scenario } from '../../schemas/scenario';
 import { estimateEnergy, type EnergyEstimate, type Exceedance } from './energy/yield';
 import { financeCase, operate, prepareCase, scaledEnergy, withEnergy, type CasePreparation, type FinancingResult, type OperatingResult } from './cashflow';
 import { nominalPricePath } from './revenue';
-import { coverRatios, discountedLcoe, type CoverRatios, fixedChargeRateLcoe, internalRate, loanLifeCoverRatio, paybackYears, timedFlows } from './metrics';
-import { multipleIrrWarning, paybackReversalWarning } from './metric-warnings';
+import { coverRatios, discountedLcoe, type CoverRatios, fixedChargeRateLcoe, loanLifeCoverRatio, paybackYears, timedFlows } from './metrics';
+import { irrTimedWithRates } from './finance/irr';
+import { paybackReversalWarning, severalIrrWarning } from './metric-warnings';
 import { solveBreakevenTariff } from './breakeven';
+import { decimalString } from './decimal-string';
 import { METRIC_KEYS, METRICS, type MetricKey } from '../../metrics/catalogue';
 
 export { METRIC_KEYS, type MetricKey } from '../../metrics/catalogue';
@@ -82,9 +84,9 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 	const times = prep.timeline.constructionTimes;
 	const irrOf = (metric: MetricKey, series: typeof operating.projectPreTax) => {
 		if (!want(metric)) return null;
-		const result = internalRate(series, times);
+		const { result, changes, rates } = irrTimedWithRates(timedFlows(series, times));
 		if (result.rate === null) note(metric, result.reason);
-		else warnIf(() => multipleIrrWarning(METRICS[metric].label, timedFlows(series, times), result.rate));
+		else warnIf(() => severalIrrWarning(METRICS[metric].label, changes, rates, result.rate));
 		return result.rate;
 	};
 
@@ -291,13 +293,7 @@ export type EngineResult = {
 	warnings: string[];
 };
 
-/** Decimal as a plain string in normal notation, rounded to 10 decimal places, without trailing zeros. */
-export function decimalString(d: Decimal): DecimalString {
-	if (d.isZero()) return '0';
-	// Rounded to 10 places, then written out in full: toFixed() with no argument never uses exponent notation.
-	const rounded = d.toDecimalPlaces(10);
-	return rounded.isZero() ? '0' : rounded.toFixed();
-}
+export { decimalString };
 const maybe = (d: Decimal | null | undefined) => (d === null || d === undefined ? null : decimalString(d));
 
 const SPEND_WORDS = {

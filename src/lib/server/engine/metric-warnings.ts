@@ -57,7 +57,17 @@ const NUMBER_WORDS = ['no rate', 'one rate', 'two rates', 'three rates', 'four r
 export function multipleIrrWarning(label: string, flows: readonly TimedAmount[], reported: Decimal): string | null {
 	const changes = signChanges(inTimeOrder(flows));
 	if (changes <= 1) return null;
-	const rates = npvZeroRates(flows);
+	return severalIrrWarning(label, changes, irrRatesTimed(flows), reported);
+}
+
+/**
+ * multipleIrrWarning from what the IRR solve already found (finance/irr
+ * irrTimedWithRates): the flows' sign changes and every rate above -100 % at
+ * which their NPV is zero.
+ */
+export function severalIrrWarning(label: string, changes: number, allRates: readonly number[], reported: Decimal): string | null {
+	if (changes <= 1) return null;
+	const rates = allRates.filter((rate) => rate > IRR_SEARCH_RANGE.low && rate < IRR_SEARCH_RANGE.high);
 	if (rates.length === 1) return null;
 	const range = `between ${IRR_SEARCH_RANGE.low * 100} % and ${IRR_SEARCH_RANGE.high * 100} %`;
 	const head = `${label}: the cash flows change sign ${changes} times, so more than one rate can make their NPV zero (Descartes' rule of signs)`;

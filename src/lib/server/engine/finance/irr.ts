@@ -78,11 +78,16 @@ export function irr(values: readonly DecimalInput[], guess?: number): IrrResult 
 		throw new RangeError(`guess must be a finite rate greater than -1, got ${guess}`);
 	}
 	if (values.length === 0) return failure('no cash flows, so there is no IRR');
+	return solved(values.map(dec), guess).result;
+}
 
-	const amounts = values.map(dec);
+/** The flows' polynomial and its float roots: what irr and the several-IRR check share. */
+type Solved = { result: IrrResult; changes: number; roots: FloatRoot[] };
+
+function solved(amounts: readonly Decimal[], guess?: number): Solved {
 	let first = 0;
 	while (first < amounts.length && amounts[first].isZero()) first++;
-	if (first === amounts.length) return failure('all cash flows are zero, so there is no IRR');
+	if (first === amounts.length) return { result: failure('all cash flows are zero, so there is no IRR'), changes: 0, roots: [] };
 	let last = amounts.length - 1;
 	while (amounts[last].isZero()) last--;
 	// Leading zeros multiply p by x^k and trailing zeros lower its degree: neither moves a root x > 0.
@@ -90,15 +95,17 @@ export function irr(values: readonly DecimalInput[], guess?: number): IrrResult 
 
 	const changes = signChanges(coefficients);
 	if (changes === 0) {
-		return failure('cash flows never change sign (only inflows or only outflows), so no rate makes the NPV zero');
+		return { result: failure('cash flows never change sign (only inflows or only outflows), so no rate makes the NPV zero'), changes, roots: [] };
 	}
 
 	const { floats, scale } = scaledFloats(coefficients);
 	const roots = changes === 1 ? [singleRoot(floats)] : allRoots(floats);
 	if (roots.length === 0) {
-		return failure(
-			`cash flows change sign ${changes} times but the NPV is not zero at any rate above -100 %, so there is no real IRR`
-		);
+		return {
+			result: failure(`cash flows change sign ${changes} times but the NPV is not zero at any rate above -100 %, so there is no real IRR`),
+			changes,
+			roots
+		};
 	}
 
 	const target = guess ?? 0;
@@ -106,7 +113,7 @@ export function irr(values: readonly DecimalInput[], guess?: number): IrrResult 
 	for (const root of roots) {
 		if (Math.abs(root.rate - target) < Math.abs(chosen.rate - target)) chosen = root;
 	}
-	return { rate: polishedRate(coefficients, floats, scale, chosen), reason: null };
+	return { result: { rate: polishedRate(coefficients, floats, scale, chosen), reason: null }, changes, roots };
 }
 
 /**
@@ -133,12 +140,28 @@ export function irr(values: readonly DecimalInput[], guess?: number): IrrResult 
  * @throws RangeError when a t is not on a whole 1/24th or the periods span more than 100 000.
  */
 export function irrTimed(flows: readonly TimedAmount[]): IrrResult {
-	if (flows.length === 0) return failure('no cash flows, so there is no IRR');
+	return irrTimedWithRates(flows).result;
+}
+
+/**
+ * irrTimed, with what the several-IRR check needs from the same pass over
+ * the flows: their sign changes (zeros skipped, amounts at the same t added)
+ * and every rate a year above -100 % at which their NPV is zero, ascending
+ * (irrRatesTimed's answer; given only for more than one sign change, else
+ * empty).
+ */
+export function irrTimedWithRates(flows: readonly TimedAmount[]): { result: IrrResult; changes: number; rates: number[] } {
+	if (flows.length === 0) return { result: failure('no cash flows, so there is no IRR'), changes: 0, rates: [] };
 	const { series, perYear } = onPeriods(flows);
-	const result = irr(series);
-	if (result.rate === null || perYear === 1) return result;
+	const { result, changes, roots } = solved(series);
+	const rates = changes > 1 ? annualRates(roots, perYear) : [];
+	if (result.rate === null || perYear === 1) return { result, changes, rates };
 	// A rate per 1/m of a year, compounded to a year: (1 + rho)^m - 1.
-	return { rate: result.rate.plus(1).pow(perYear).minus(1), reason: null };
+	return { result: { rate: result.rate.plus(1).pow(perYear).minus(1), reason: null }, changes, rates };
+}
+
+function annualRates(roots: readonly FloatRoot[], perYear: number): number[] {
+	return roots.map((root) => Math.pow(1 + root.rate, perYear) - 1).sort((a, b) => a - b);
 }
 
 /** Timed flows on whole periods of 1/m of a year (m as few as the times allow), added where they meet. */
@@ -177,8 +200,7 @@ export function irrRatesTimed(flows: readonly TimedAmount[]): number[] {
 	const changes = coefficients.length === 0 ? 0 : signChanges(coefficients);
 	if (changes === 0) return [];
 	const { floats } = scaledFloats(coefficients);
-	const roots = changes === 1 ? [singleRoot(floats)] : allRoots(floats);
-	return roots.map((root) => Math.pow(1 + root.rate, perYear) - 1).sort((a, b) => a - b);
+	return annualRates(changes === 1 ? [singleRoot(floats)] : allRoots(floats), perYear);
 }
 
 
@@ -202,7 +224,7 @@ export function signChanges(coefficients: readonly Decimal[]): number {
 
 /** Coefficients as float64, scaled by a power of 2 (exact) so the largest is near 1. */
 function scaledFloats(coefficients: readonly Decimal[]): { floats: number[]; scale: number } {
-	const unscaled = coefficients.map((c) => c.toNumber());
+	const unscaled = coefficients.map((c) => (c.isZero() ? 0 : c.toNumber()));
 	let largest = 0;
 	for (const c of unscaled) largest = Math.max(largest, Math.abs(c));
 	const scale = 2 ** Math.floor(Math.log2(largest));
@@ -355,8 +377,28 @@ function polishedRate(
 	return root.side === 'discount' ? ONE.div(z).minus(ONE) : z.minus(ONE);
 }
 
+/**
+ * sum_k a_k z^k by Horner's rule over the non-zero coefficients: a run of g
+ * zeros (periods without a flow, as between the years of flows on monthly or
+ * quarterly periods) is one multiplication by z^(g+1) instead of g + 1.
+ */
 function decimalHorner(a: readonly Decimal[], z: Decimal): Decimal {
-	let value = a[a.length - 1];
-	for (let k = a.length - 2; k >= 0; k--) value = value.times(z).plus(a[k]);
+	const powers = new Map<number, Decimal>([[1, z]]);
+	const power = (g: number) => {
+		let p = powers.get(g);
+		if (p === undefined) {
+			p = z.pow(g);
+			powers.set(g, p);
+		}
+		return p;
+	};
+	let k = a.length - 1;
+	let value = a[k];
+	while (k > 0) {
+		let next = k - 1;
+		while (next > 0 && a[next].isZero()) next--;
+		value = value.times(power(k - next)).plus(a[next]);
+		k = next;
+	}
 	return value;
 }
