@@ -16,17 +16,34 @@ export interface ProjectPageRead {
 	uploads: UploadSummary[];
 }
 
+/** The statement, built once per database handle and engine version: building it costs more than running it. */
+const statements = new WeakMap<Knex, Map<string, { sql: string; bindings: readonly Knex.Value[] }>>();
+const PROJECT_ID_SLOT = '00000000-0000-0000-0000-000000000000';
+
+function statement(knex: Knex, engineVersion: string) {
+	let built = statements.get(knex);
+	if (!built) statements.set(knex, (built = new Map()));
+	let compiled = built.get(engineVersion);
+	if (!compiled) {
+		const projectRef = knex.ref('projects.id');
+		// json_agg keeps the order of a sorted subquery (it reads the subquery's rows in order).
+		compiled = knex('projects')
+			.select(projectColumns.map((c) => `projects.${c}`))
+			.select(
+				knex.raw(`coalesce((select json_agg(s) from (?) s), '[]'::json) as page_scenarios`, [liveScenariosWithStoredMetricsQuery(projectRef, engineVersion, knex)]),
+				knex.raw(`coalesce((select json_agg(u) from (?) u), '[]'::json) as page_uploads`, [uploadsInProjectQuery(projectRef, knex)])
+			)
+			.where('projects.id', PROJECT_ID_SLOT)
+			.toSQL();
+		built.set(engineVersion, compiled);
+	}
+	return compiled;
+}
+
 export async function readProjectPage(projectId: string, engineVersion: string, knex: Knex = db()): Promise<ProjectPageRead | undefined> {
-	const projectRef = knex.ref('projects.id');
-	// json_agg keeps the order of a sorted subquery (it reads the subquery's rows in order).
-	const row = await knex('projects')
-		.select(projectColumns.map((c) => `projects.${c}`))
-		.select(
-			knex.raw(`coalesce((select json_agg(s) from (?) s), '[]'::json) as page_scenarios`, [liveScenariosWithStoredMetricsQuery(projectRef, engineVersion, knex)]),
-			knex.raw(`coalesce((select json_agg(u) from (?) u), '[]'::json) as page_uploads`, [uploadsInProjectQuery(projectRef, knex)])
-		)
-		.where('projects.id', projectId)
-		.first();
+	const { sql, bindings } = statement(knex, engineVersion);
+	const result = await knex.raw(sql, bindings.map((value) => (value === PROJECT_ID_SLOT ? projectId : value)));
+	const row = result.rows[0];
 	if (!row) return undefined;
 	const { page_scenarios: scenarios, page_uploads: uploads, ...project } = row as ProjectRow & {
 		page_scenarios: Parameters<typeof scenarioWithStoredMetricsFromJson>[0][];

@@ -1,10 +1,14 @@
-/** The JSON shapes the workbench API answers with (dates become ISO strings in JSON). */
+/** The JSON shapes the workbench API answers with, dates as ISO strings: what the browser receives, so pages can hand them on as they are. */
 import type { ProjectRow } from '../db/projects';
 import type { ScenarioRecord, ScenarioSummary } from '../db/scenarios';
 import type { UploadRecord, UploadSummary } from '../db/uploads';
 import { upgradeScenarioDocument } from '../../schemas/scenario-upgrades';
+import type { ProjectJson, ScenarioJson, ScenarioSummaryJson, UploadSummaryJson } from '../../workbench/api-types';
 
-export function projectJson(row: ProjectRow) {
+const iso = (date: Date) => date.toISOString();
+const isoOrNull = (date: Date | null) => (date === null ? null : date.toISOString());
+
+export function projectJson(row: ProjectRow): ProjectJson {
 	return {
 		id: row.id,
 		workspaceId: row.workspace_id,
@@ -13,13 +17,13 @@ export function projectJson(row: ProjectRow) {
 		siteName: row.site_name,
 		siteDescription: row.site_description,
 		currency: row.currency,
-		createdAt: row.created_at,
-		updatedAt: row.updated_at,
-		archivedAt: row.archived_at
+		createdAt: iso(row.created_at),
+		updatedAt: iso(row.updated_at),
+		archivedAt: isoOrNull(row.archived_at)
 	};
 }
 
-export function scenarioSummaryJson(s: ScenarioSummary) {
+export function scenarioSummaryJson(s: ScenarioSummary): ScenarioSummaryJson {
 	return {
 		id: s.id,
 		projectId: s.projectId,
@@ -28,9 +32,9 @@ export function scenarioSummaryJson(s: ScenarioSummary) {
 		schemaVersion: s.schemaVersion,
 		revision: s.revision,
 		isBaseCase: s.isBaseCase,
-		archivedAt: s.archivedAt,
-		createdAt: s.createdAt,
-		updatedAt: s.updatedAt,
+		archivedAt: isoOrNull(s.archivedAt),
+		createdAt: iso(s.createdAt),
+		updatedAt: iso(s.updatedAt),
 		createdBy: s.createdBy,
 		updatedBy: s.updatedBy
 	};
@@ -48,11 +52,11 @@ function documentJson(document: ScenarioRecord['document']) {
 	return { document: upgraded.document as ScenarioRecord['document'], upgradedFrom: upgraded.upgradedFrom, upgradeNotes: upgraded.notes };
 }
 
-export function scenarioJson(s: ScenarioRecord) {
+export function scenarioJson(s: ScenarioRecord): ScenarioJson {
 	return { ...scenarioSummaryJson(s), ...documentJson(s.document), placeholderPaths: s.placeholderPaths };
 }
 
-export function uploadSummaryJson(u: UploadSummary) {
+export function uploadSummaryJson(u: UploadSummary): UploadSummaryJson {
 	return {
 		id: u.id,
 		projectId: u.projectId,
@@ -62,7 +66,7 @@ export function uploadSummaryJson(u: UploadSummary) {
 		byteSize: u.byteSize,
 		sha256: u.sha256,
 		uploadedBy: u.uploadedBy,
-		createdAt: u.createdAt
+		createdAt: iso(u.createdAt)
 	};
 }
 

@@ -14,7 +14,6 @@ import { archiveProjectAs, deleteArchivedScenarioAs, updateProjectAs } from '$li
 import { amountsChoiceOfForm, changeProjectCurrencyAs, currencyChangeDone, currencyQuestion, planCurrencyChange } from '$lib/server/workbench/project-currency';
 import type { AmountsChoice } from '$lib/server/workbench/currency-conversion';
 import { ApiProblem } from '$lib/server/workbench/api-route';
-import { asJson, type ProjectJson, type ScenarioSummaryJson, type UploadSummaryJson } from '$lib/workbench/api-types';
 import type { Actions, PageServerLoad } from './$types';
 
 /**
@@ -28,9 +27,9 @@ export const load: PageServerLoad = async (event) => {
 	const { project, membership } = access;
 	const { scenarios, uploads } = read;
 	return {
-		project: asJson<ProjectJson>(projectJson(project)),
-		scenarios: asJson<ScenarioSummaryJson[]>(scenarios.map((s) => ({ ...scenarioSummaryJson(s), keyFigures: keyFiguresOf(s.stored) }))),
-		uploads: asJson<UploadSummaryJson[]>(uploads.map(uploadSummaryJson)),
+		project: projectJson(project),
+		scenarios: scenarios.map((s) => ({ ...scenarioSummaryJson(s), keyFigures: keyFiguresOf(s.stored) })),
+		uploads: uploads.map(uploadSummaryJson),
 		role: membership.role,
 		canEdit: roleAtLeast(membership.role, 'analyst') && !isArchivedProject(project),
 		canRestore: isArchivedProject(project) && roleAtLeast(membership.role, 'owner'),

@@ -5,7 +5,6 @@ import { resultOfSavedScenario } from '$lib/server/workbench/stored-results';
 import { validateDocument } from '$lib/server/workbench/api-route';
 import { assumptionSections } from '$lib/server/pdf/assumptions';
 import { projectJson, scenarioJson } from '$lib/server/workbench/serialize';
-import { asJson, type ProjectJson, type ScenarioJson } from '$lib/workbench/api-types';
 import type { PageServerLoad } from './$types';
 
 /**
@@ -18,8 +17,8 @@ export const load: PageServerLoad = async (event) => {
 	const scenario = scenarioReadInView(event, scenarioId) ?? (await loadScenario(scenarioId));
 	const canEdit = roleAtLeast(membership.role, 'analyst');
 	return {
-		project: asJson<ProjectJson>(projectJson(project)),
-		scenario: asJson<ScenarioJson>(scenarioJson(scenario)),
+		project: projectJson(project),
+		scenario: scenarioJson(scenario),
 		role: membership.role,
 		canEdit,
 		assumptions: canEdit ? null : await viewerAssumptions(scenario, project)
