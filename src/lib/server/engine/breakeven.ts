@@ -3,7 +3,7 @@
  * operating year and indexed like a fully indexed tariff (to the tariff
  * inflation), at which the project's post-tax NPV at the discount rate is zero.
  */
-import { dec, Decimal, numberKind, ONE, withFloat64, ZERO } from './decimal';
+import { dec, Decimal, numberKind, ONE, roughNumber, withFloat64, ZERO } from './decimal';
 import { solveRoot } from './finance/roots';
 import type { CasePreparation } from './cashflow';
 import { corporateTax } from './tax';
@@ -44,13 +44,13 @@ function flatTariffParts(prep: CasePreparation): FlatTariffParts {
 
 /** The parts in the number kind bound now (float64 inside withFloat64). */
 function reboundParts(parts: FlatTariffParts): FlatTariffParts {
-	const each = (values: readonly Decimal[]) => values.map((v) => new Decimal(v.toNumber()));
+	const each = (values: readonly Decimal[]) => values.map((v) => new Decimal(roughNumber(v)));
 	return {
 		netRevenuePerUnitPrice: each(parts.netRevenuePerUnitPrice),
 		cashCosts: each(parts.cashCosts),
 		deductions: each(parts.deductions),
 		discountFactors: each(parts.discountFactors),
-		constructionValue: new Decimal(parts.constructionValue.toNumber())
+		constructionValue: new Decimal(roughNumber(parts.constructionValue))
 	};
 }
 

@@ -11,7 +11,7 @@
  * Amounts are nominal currency of each year unless named real. Time convention
  * as in ./timeline: t = 0 is COD, construction at t <= 0, operating year k at t = k.
  */
-import { dec, Decimal, numberKind, ONE, sum, withFloat64, ZERO } from './decimal';
+import { dec, Decimal, numberKind, ONE, roughNumber, sum, withFloat64, ZERO } from './decimal';
 import type { Scenario } from '../../schemas/scenario';
 import type { EnergyEstimate } from './energy/yield';
 import { degradationFactors } from './energy/losses';
@@ -126,7 +126,7 @@ export function prepareCase(scenario: Scenario, energy: EnergyEstimate): CasePre
 		nominalDiscountRate,
 		priceIndex,
 		tariffInflation,
-		tariffPriceIndex: powersOnTimeline(ONE.plus(tariffInflation), timeline).operation,
+		tariffPriceIndex: tariffInflation.eq(inflation) ? priceIndex.operation : powersOnTimeline(ONE.plus(tariffInflation), timeline).operation,
 		priceDeflator: powersOnTimeline(ONE.div(ONE.plus(inflation)), timeline),
 		realDiscountFactors: discountFactorsOnTimeline(realDiscountRate, timeline),
 		nominalDiscountFactors: discountFactorsOnTimeline(nominalDiscountRate, timeline),
@@ -429,14 +429,14 @@ function debtCircle(prep: CasePreparation, data: CircleData) {
 
 /** The circle's data in the number kind bound now (float64 inside withFloat64). */
 function rebound(data: CircleData): CircleData {
-	const each = (values: readonly Decimal[]) => values.map((v) => new Decimal(v.toNumber()));
+	const each = (values: readonly Decimal[]) => values.map((v) => new Decimal(roughNumber(v)));
 	const rebind = (c: CircleCase): CircleCase => ({ ...c, ebitda: each(c.ebitda), decommissioning: each(c.decommissioning) });
 	const cases = data.cases.map(rebind);
 	return {
 		cases,
 		actual: data.actual === data.cases[0] ? cases[0] : rebind(data.actual),
 		depreciation: each(data.depreciation),
-		depreciableCost: new Decimal(data.depreciableCost.toNumber()),
+		depreciableCost: new Decimal(roughNumber(data.depreciableCost)),
 		reserveContribution: each(data.reserveContribution),
 		fundingNeed: each(data.fundingNeed)
 	};

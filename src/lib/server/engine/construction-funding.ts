@@ -31,7 +31,7 @@
  * Project Finance, 2nd ed. 2014, ch. 10 on construction-phase financing
  * costs and the drawdown order of equity and debt).
  */
-import { dec, Decimal, ONE, ZERO } from './decimal';
+import { dec, Decimal, ONE, roughNumber, ZERO } from './decimal';
 import { powersAt } from './fractional-powers';
 
 export type FundingOrder = 'equity-first' | 'pro-rata';
@@ -244,15 +244,15 @@ export function fundConstruction(inputs: ConstructionFundingInputs): Constructio
 	const f: FloatInputs = {
 		times: inputs.times,
 		financialClose: inputs.financialClose,
-		spend: inputs.spend.map((x) => x.toNumber()),
-		growth: growth.map((x) => x.toNumber()),
-		reserveAtCod: inputs.reserveAtCod.toNumber(),
-		reserveShareOfDebt: inputs.reserveShareOfDebt?.toNumber() ?? 0,
-		commitmentFee: inputs.commitmentFee.toNumber(),
-		upfrontFee: inputs.upfrontFee.toNumber(),
+		spend: inputs.spend.map(roughNumber),
+		growth: growth.map(roughNumber),
+		reserveAtCod: roughNumber(inputs.reserveAtCod),
+		reserveShareOfDebt: inputs.reserveShareOfDebt ? roughNumber(inputs.reserveShareOfDebt) : 0,
+		commitmentFee: roughNumber(inputs.commitmentFee),
+		upfrontFee: roughNumber(inputs.upfrontFee),
 		capitaliseInterest: inputs.capitaliseInterest,
 		order: inputs.order,
-		debtFor: (need) => inputs.debtFor(new Decimal(need)).toNumber()
+		debtFor: (need) => roughNumber(inputs.debtFor(new Decimal(need)))
 	};
 	let plainUses = f.reserveAtCod;
 	for (const x of f.spend) plainUses += x;
@@ -281,7 +281,7 @@ export function fundConstruction(inputs: ConstructionFundingInputs): Constructio
 			break;
 		}
 		if (step === POLISH_STEPS) break;
-		const [dp, dd] = newtonStep(f, parameterD.toNumber(), facilityD.toNumber(), [r[0].toNumber(), r[1].toNumber()], scale);
+		const [dp, dd] = newtonStep(f, roughNumber(parameterD), roughNumber(facilityD), [roughNumber(r[0]), roughNumber(r[1])], scale);
 		parameterD = Decimal.min(Decimal.max(parameterD.plus(dp), ZERO), proRata ? ONE : new Decimal(scale * 10));
 		facilityD = Decimal.max(facilityD.plus(dd), ZERO);
 		sim = simulate(inputs, growth, facilityD, parameterD);

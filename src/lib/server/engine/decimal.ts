@@ -66,3 +66,29 @@ export function sum(values: readonly Decimal[]): Decimal {
 	for (const v of values) total = total.plus(v);
 	return total;
 }
+
+const EXACT_POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => 10 ** k);
+const powerOfTen = (k: number) => (k < EXACT_POWERS_OF_TEN.length ? EXACT_POWERS_OF_TEN[k] : 10 ** k);
+
+/**
+ * A decimal as float64, read from its digits (the first 17 to 23) to within a few
+ * units in the last place. decimal.js's toNumber is exact but goes through a
+ * string, which costs as much as a multiplication; this is for float64
+ * searches whose answer the decimal pass then settles. Float64 values pass
+ * through unchanged.
+ */
+export function roughNumber(x: Decimal): number {
+	const words = (x as { d?: unknown }).d;
+	if (!Array.isArray(words) || words.length === 0) return x.toNumber();
+	let mantissa = words[0] as number;
+	let digits = mantissa >= 1e6 ? 7 : String(mantissa).length;
+	const leading = digits;
+	for (let i = 1; i < words.length && digits < 17; i++) {
+		mantissa = mantissa * 1e7 + (words[i] as number);
+		digits += 7;
+	}
+	// The last digit read stands for 10^(e - digits + 1); the first for 10^e.
+	const exponent = x.e - digits + 1;
+	const value = exponent >= 0 ? mantissa * powerOfTen(exponent) : mantissa / powerOfTen(-exponent);
+	return leading > 0 && x.isNegative() ? -value : value;
+}

@@ -6,7 +6,7 @@
  * the float64 root, which doubles the correct digits each step) and kept, so
  * a power is one integer power of it (repeated squaring).
  */
-import { Decimal, numberKind } from './decimal';
+import { Decimal, numberKind, ONE } from './decimal';
 
 const DIVISORS_OF_24 = [1, 2, 3, 4, 6, 8, 12, 24];
 const ROOT_CACHE_SIZE = 256;
@@ -42,9 +42,39 @@ export function rootOf(g: Decimal, m: number): Decimal {
 	return x;
 }
 
-/** g^t for each t (whole 1/m of a year), through one cached root. */
+/**
+ * g^t for each t (whole 1/m of a year), through one cached root: the powers
+ * of the root (or of its inverse, for t < 0) walked outward from t = 0, each
+ * step one multiplication by a cached power for the gap (construction points
+ * are evenly spaced, so there are one or two gaps).
+ */
 export function powersAt(g: Decimal, times: readonly number[]): Decimal[] {
 	const m = periodsPerYearOf(times);
 	const root = rootOf(g, m);
-	return times.map((t) => root.pow(Math.round(t * m)));
+	const exponents = times.map((t) => Math.round(t * m));
+	const result: Decimal[] = new Array(times.length);
+	for (const sign of [1, -1]) {
+		const base = sign === 1 ? root : ONE.div(root);
+		const gaps = new Map<number, Decimal>();
+		const order = exponents.map((k, i) => ({ k: k * sign, i })).filter((e) => e.k > 0).sort((a, b) => a.k - b.k);
+		let reached = 0;
+		let value = ONE;
+		for (const { k, i } of order) {
+			const gap = k - reached;
+			if (gap > 0) {
+				let step = gaps.get(gap);
+				if (step === undefined) {
+					step = base.pow(gap);
+					gaps.set(gap, step);
+				}
+				value = value.times(step);
+				reached = k;
+			}
+			result[i] = value;
+		}
+	}
+	exponents.forEach((k, i) => {
+		if (k === 0) result[i] = ONE;
+	});
+	return result;
 }

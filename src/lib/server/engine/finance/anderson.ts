@@ -19,7 +19,7 @@
  * acceleration for fixed-point iterations", SIAM J. Numer. Anal. 49 (2011)
  * 1715-1735 (the form above, their "Type II").
  */
-import { Decimal } from '../decimal';
+import { Decimal, roughNumber } from '../decimal';
 
 type Iterate = { x: Decimal[]; f: Decimal[]; norm: number };
 
@@ -31,7 +31,7 @@ export class AndersonMixer {
 	/** The next iterate from the current one x and its image F(x). */
 	next(x: readonly Decimal[], image: readonly Decimal[]): Decimal[] {
 		const f = image.map((v, i) => v.minus(x[i]));
-		const norm = Math.hypot(...f.map((v) => v.toNumber()));
+		const norm = Math.hypot(...f.map(roughNumber));
 		const last = this.history[this.history.length - 1];
 		if (last && !(norm < last.norm)) this.history = [];
 		const earlier = this.history.slice(-this.depth);
@@ -41,8 +41,8 @@ export class AndersonMixer {
 		const dF = earlier.map((e) => f.map((v, i) => v.minus(e.f[i])));
 		const dX = earlier.map((e) => x.map((v, i) => v.minus(e.x[i])));
 		const gamma = leastSquares(
-			dF.map((col) => col.map((v) => v.toNumber())),
-			f.map((v) => v.toNumber())
+			dF.map((col) => col.map(roughNumber)),
+			f.map(roughNumber)
 		);
 		if (gamma === null) return [...image];
 		return image.map((v, i) => {

@@ -24,7 +24,7 @@
  * are found too (more than two roots inside one cell, i.e. within about 1.5 %
  * of each other, would not be).
  */
-import { dec, Decimal, ONE, type DecimalInput } from '../decimal';
+import { dec, Decimal, ONE, roughNumber, type DecimalInput } from '../decimal';
 import { solveRoot } from './roots';
 import { periodsPerYearOf } from '../fractional-powers';
 
@@ -224,7 +224,7 @@ export function signChanges(coefficients: readonly Decimal[]): number {
 
 /** Coefficients as float64, scaled by a power of 2 (exact) so the largest is near 1. */
 function scaledFloats(coefficients: readonly Decimal[]): { floats: number[]; scale: number } {
-	const unscaled = coefficients.map((c) => (c.isZero() ? 0 : c.toNumber()));
+	const unscaled = coefficients.map(roughNumber);
 	let largest = 0;
 	for (const c of unscaled) largest = Math.max(largest, Math.abs(c));
 	const scale = 2 ** Math.floor(Math.log2(largest));
