@@ -31,7 +31,7 @@
  * Project Finance, 2nd ed. 2014, ch. 10 on construction-phase financing
  * costs and the drawdown order of equity and debt).
  */
-import { dec, Decimal, ONE, roughNumber, ZERO } from './decimal';
+import { dec, Decimal, numberKind, ONE, roughNumber, ZERO } from './decimal';
 import { powersAt } from './fractional-powers';
 
 export type FundingOrder = 'equity-first' | 'pro-rata';
@@ -92,9 +92,22 @@ export type ConstructionFunding = {
 
 type Simulation = Omit<ConstructionFunding, 'gearing' | 'settled' | 'solution'>;
 
-/** (1 + r)^dt for each interval between points (on whole 1/24ths of a year). */
+const GROWTH_CACHE_SIZE = 64;
+const growthCache = new Map<string, Decimal[]>();
+
+/**
+ * (1 + r)^dt for each interval between points (on whole 1/24ths of a year),
+ * kept for the next call with the same rate and points (the rounds of the
+ * debt-and-tax circle fund the same build again and again).
+ */
 function intervalGrowth(rate: Decimal, times: readonly number[], financialClose: number): Decimal[] {
-	return powersAt(ONE.plus(rate), times.map((t, p) => t - (p === 0 ? financialClose : times[p - 1])));
+	const key = `${numberKind()}|${rate.toString()}|${financialClose}|${times.join(',')}`;
+	const known = growthCache.get(key);
+	if (known) return known;
+	const growth = powersAt(ONE.plus(rate), times.map((t, p) => t - (p === 0 ? financialClose : times[p - 1])));
+	if (growthCache.size >= GROWTH_CACHE_SIZE) growthCache.delete(growthCache.keys().next().value!);
+	growthCache.set(key, growth);
+	return growth;
 }
 
 function simulate(inputs: ConstructionFundingInputs, growth: readonly Decimal[], facility: Decimal, parameter: Decimal): Simulation {

@@ -140,7 +140,7 @@ export function opexSchedule(opex: Scenario['opex'], ctx: OpexContext): OpexSche
 
 function nominalAmounts(line: Exclude<OpexLine, { basis: 'percent-of-revenue' }>, ctx: OpexContext): Decimal[] {
 	const index = escalatedIndex(ctx.priceIndex, line.escalation);
-	return lineRealAmounts(line, ctx).map((real, k) => real.times(index[k]));
+	return lineRealAmounts(line, ctx).map((real, k) => (real.isZero() ? ZERO : real.times(index[k])));
 }
 
 export type OverhaulSchedule = { name: string; intervalYears: number; nominal: Decimal[] };

@@ -14,7 +14,7 @@ import type { Scenario } from '../../schemas/scenario';
 import { estimateEnergy, type EnergyEstimate, type Exceedance } from './energy/yield';
 import { financeCase, operate, prepareCase, scaledEnergy, withEnergy, type CasePreparation, type FinancingResult, type OperatingResult } from './cashflow';
 import { nominalPricePath } from './revenue';
-import { coverRatios, discountedLcoe, type CoverRatios, fixedChargeRateLcoe, loanLifeCoverRatio, paybackYears, timedFlows } from './metrics';
+import { coverOfRatios, coverRatios, discountedLcoe, type CoverRatios, fixedChargeRateLcoe, loanLifeCoverRatio, paybackYears, timedFlows } from './metrics';
 import { irrTimedWithRates } from './finance/irr';
 import { paybackReversalWarning, severalIrrWarning } from './metric-warnings';
 import { solveBreakevenTariff } from './breakeven';
@@ -102,7 +102,8 @@ function compute(scenario: Scenario, options: EvaluateOptions, wanted: ReadonlyS
 	let shortfalls: CoverShortfalls = { negativeCfadsYears: [], dscrBelowOneYears: [] };
 	const debt = financing?.debt ?? null;
 	if (financing) {
-		cover = coverRatios(financing.cfads, financing.debtService);
+		// The waterfall has divided CFADS by debt service already, year by year.
+		cover = financing.waterfall ? coverOfRatios(financing.waterfall.dscr) : coverRatios(financing.cfads, financing.debtService);
 		const terms = scenario.finance.debt;
 		if (debt && terms.sizing !== 'none') llcr = loanLifeCoverRatio(financing.cfads, debt.balanceAtCod, terms.interestRate, terms.tenorYears);
 		if (cover.min === null) note('minDscr', 'there is no debt service');
@@ -422,7 +423,7 @@ function financingSummary(d: DetailedEvaluation): NonNullable<EngineResult['fina
 	const debtSpec = d.prep.scenario.finance.debt;
 	const profiles = [{ label: 'P50', cfads: d.financing.cfads }, ...d.financing.downsideCfads];
 	const sizingCases = debt.capacities.map((c) => {
-		const cover = coverRatios(profiles.find((p) => p.label === c.label)?.cfads ?? [], d.financing.debtService);
+		const cover = c.label === 'P50' ? coverOfRatios(d.dscr) : coverRatios(profiles.find((p) => p.label === c.label)?.cfads ?? [], d.financing.debtService);
 		return {
 			label: c.label,
 			targetDscr: c.targetDscr,

@@ -138,7 +138,11 @@ export function paybackYears(series: TimeSeries): Decimal | null {
 export type CoverRatios = { perYear: (Decimal | null)[]; min: Decimal | null; average: Decimal | null };
 
 export function coverRatios(cfads: readonly Decimal[], debtService: readonly Decimal[]): CoverRatios {
-	const perYear = debtService.map((ds, k) => (ds.gt(0) ? cfads[k].div(ds) : null));
+	return coverOfRatios(debtService.map((ds, k) => (ds.gt(0) ? cfads[k].div(ds) : null)));
+}
+
+/** The minimum and average of DSCRs already worked out (null in years without debt service), as coverRatios gives them. */
+export function coverOfRatios(perYear: (Decimal | null)[]): CoverRatios {
 	const present = perYear.filter((d): d is Decimal => d !== null);
 	if (present.length === 0) return { perYear, min: null, average: null };
 	let total = ZERO;

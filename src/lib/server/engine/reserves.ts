@@ -37,6 +37,9 @@ export type CostReserves = {
 };
 
 const zeros = (years: number) => Array.from({ length: years }, () => ZERO);
+/** a + b and a - b, skipping zeros (most years of an account move nothing): the same values without decimal work. */
+const more = (a: Decimal, b: Decimal) => (b.isZero() ? a : a.isZero() ? b : a.plus(b));
+const less = (a: Decimal, b: Decimal) => (b.isZero() ? a : a.minus(b));
 
 /**
  * Funding of one series of costs ahead of each cost.
@@ -77,15 +80,15 @@ export function fundAhead(costs: readonly Decimal[], fundingYears: number): Rese
 		release[m] = release[m].plus(cost);
 	});
 	let running = ZERO;
-	const balance = contribution.map((c, k) => (running = running.plus(c).minus(release[k])));
+	const balance = contribution.map((c, k) => (running = less(more(running, c), release[k])));
 	return { contribution, release, balance };
 }
 
 function addMovements(a: ReserveMovements, b: ReserveMovements): ReserveMovements {
 	return {
-		contribution: a.contribution.map((v, k) => v.plus(b.contribution[k])),
-		release: a.release.map((v, k) => v.plus(b.release[k])),
-		balance: a.balance.map((v, k) => v.plus(b.balance[k]))
+		contribution: a.contribution.map((v, k) => more(v, b.contribution[k])),
+		release: a.release.map((v, k) => more(v, b.release[k])),
+		balance: a.balance.map((v, k) => more(v, b.balance[k]))
 	};
 }
 
@@ -138,7 +141,7 @@ export function costReserves(input: {
 	const maintenance = maintenanceReserve(input.overhauls, input.spec?.maintenance, years);
 	const decommissioning = decommissioningReserve(input.decommissioning, input.spec?.decommissioning);
 	const netContribution = maintenance.contribution.map((c, k) =>
-		c.minus(maintenance.release[k]).plus(decommissioning.contribution[k]).minus(decommissioning.release[k])
+		less(more(less(c, maintenance.release[k]), decommissioning.contribution[k]), decommissioning.release[k])
 	);
 	return { maintenance, decommissioning, netContribution };
 }

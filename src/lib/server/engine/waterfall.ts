@@ -143,11 +143,20 @@ export function runWaterfall(inputs: WaterfallInputs): WaterfallResult {
 		if (row.principal.isNegative()) return Decimal.max(row.principal, interest.neg());
 		return Decimal.min(row.principal, Decimal.max(opening, ZERO));
 	};
+	// Next year's interest on a balance, kept: without a sweep that balance opens next year and its interest is the same.
+	let known: { balance: Decimal; interest: Decimal } | null = null;
+	const interestOn = (balance: Decimal): Decimal => {
+		if (known?.balance !== balance) known = { balance, interest: balance.times(rate) };
+		return known.interest;
+	};
 	const debtServiceNextYear = (k: number, balance: Decimal): Decimal => {
 		if (k + 1 >= n || balance.lte(0)) return ZERO;
-		const interest = balance.times(rate);
+		const interest = interestOn(balance);
 		return Decimal.max(interest.plus(scheduledPrincipal(k + 1, balance, interest)), ZERO);
 	};
+	/** a + b and a - b, skipping the many zeros of the accounts (the same values, without decimal work). */
+	const more = (a: Decimal, b: Decimal) => (b.isZero() ? a : a.isZero() ? b : a.plus(b));
+	const less = (a: Decimal, b: Decimal) => (b.isZero() ? a : a.minus(b));
 
 	const out: WaterfallResult = {
 		openingBalance: column(n),
@@ -180,7 +189,7 @@ export function runWaterfall(inputs: WaterfallInputs): WaterfallResult {
 	for (let k = 0; k < n; k++) {
 		const cf = cfads[k];
 		const opening = balance;
-		const interest = opening.times(rate);
+		const interest = interestOn(opening);
 		const principal = scheduledPrincipal(k, opening, interest);
 		const debtService = interest.plus(principal);
 		const afterScheduled = opening.minus(principal);
@@ -203,20 +212,20 @@ export function runWaterfall(inputs: WaterfallInputs): WaterfallResult {
 		// Cover the debt service: DSRA first, then cash held in lock-up.
 		const dsraOpening = reserve;
 		const shortfall = debtService.gt(0) ? Decimal.max(debtService.minus(Decimal.max(cf, ZERO)), ZERO) : ZERO;
-		const draw = Decimal.min(reserve, shortfall);
-		reserve = reserve.minus(draw);
-		let cash = cf.minus(debtService).plus(draw);
-		const applied = cash.isNegative() ? Decimal.min(held, cash.neg()) : ZERO;
-		held = held.minus(applied);
-		cash = cash.plus(applied);
+		const draw = reserve.isZero() || shortfall.isZero() ? ZERO : Decimal.min(reserve, shortfall);
+		reserve = less(reserve, draw);
+		let cash = more(cf.minus(debtService), draw);
+		const applied = cash.isNegative() && !held.isZero() ? Decimal.min(held, cash.neg()) : ZERO;
+		held = less(held, applied);
+		cash = more(cash, applied);
 		const unpaid = cash.isNegative() ? Decimal.min(Decimal.max(debtService, ZERO), cash.neg()) : ZERO;
 
 		// Top up towards the target, or release down to it.
-		const target = reserveMonths.times(debtServiceNextYear(k, afterScheduled));
+		const target = reserveSpec ? reserveMonths.times(debtServiceNextYear(k, afterScheduled)) : ZERO;
 		const contribution = cash.gt(0) ? Decimal.min(Decimal.max(target.minus(reserve), ZERO), cash) : ZERO;
 		let release = Decimal.max(reserve.minus(target), ZERO);
-		reserve = reserve.plus(contribution).minus(release);
-		cash = cash.minus(contribution).plus(release);
+		reserve = less(more(reserve, contribution), release);
+		cash = more(less(cash, contribution), release);
 
 		// Covenants on this year's DSCR.
 		const dscr = debtService.gt(0) ? cf.div(debtService) : null;
@@ -227,23 +236,23 @@ export function runWaterfall(inputs: WaterfallInputs): WaterfallResult {
 		const free = Decimal.max(cash, ZERO);
 		const sweepBase = sweepSpec && (sweepSpec.when === 'always' || lockedUp) ? free : ZERO;
 		const sweep = sweepSpec ? Decimal.min(sweepBase.times(sweepSpec.share), Decimal.max(afterScheduled, ZERO)) : ZERO;
-		cash = cash.minus(sweep);
-		const closing = afterScheduled.minus(sweep);
+		cash = less(cash, sweep);
+		const closing = less(afterScheduled, sweep);
 		const finalMaturity = (opening.gt(0) && closing.lte(0)) || k === n - 1;
 		const trapped = lockedUp && !finalMaturity ? Decimal.max(cash, ZERO) : ZERO;
-		cash = cash.minus(trapped);
-		held = held.plus(trapped);
+		cash = less(cash, trapped);
+		held = more(held, trapped);
 		let released = ZERO;
 		if (finalMaturity || !lockedUp) {
 			released = held;
 			held = ZERO;
 		}
 		if (finalMaturity && reserve.gt(0)) {
-			release = release.plus(reserve);
-			cash = cash.plus(reserve);
+			release = more(release, reserve);
+			cash = more(cash, reserve);
 			reserve = ZERO;
 		}
-		cash = cash.plus(released);
+		cash = more(cash, released);
 		balance = closing;
 
 		out.openingBalance[k] = opening;

@@ -177,8 +177,11 @@ export function sculptedLoan(
 	}
 
 	const debtService = new Array<Decimal>(tenorYears).fill(ZERO);
+	// A target of 1 divides nothing (a loan sculpted to a combined or scaled profile).
+	const unit = target.eq(1);
 	for (let year = graceYears + 1; year <= tenorYears; year++) {
-		debtService[year - 1] = Decimal.max(dec(cfads[year - 1]), ZERO).div(target);
+		const cover = Decimal.max(dec(cfads[year - 1]), ZERO);
+		debtService[year - 1] = unit ? cover : cover.div(target);
 	}
 
 	// Present value at the end of grace by Horner's rule in v = 1 / (1 + r).
