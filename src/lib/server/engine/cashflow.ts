@@ -329,13 +329,24 @@ function debtCircle(prep: CasePreparation, data: CircleData) {
 		const scale = ONE.plus(costs.div(data.depreciableCost));
 		return data.depreciation.map((d) => d.times(scale));
 	};
+	/** a - b, skipping a zero b (decommissioning, interest and reserve movements are zero in most years): the same value. */
+	const less = (a: Decimal, b: Decimal) => (b.isZero() ? a : a.minus(b));
 	/** Tax with the given interest over the first interest.length years, for one case. */
 	const taxFor = (c: CircleCase, interest: readonly Decimal[], depreciation: readonly Decimal[]) => {
-		const taxableIncome = interest.map((i, k) => c.ebitda[k].minus(depreciation[k]).minus(c.decommissioning[k]).minus(i));
+		const taxableIncome = interest.map((i, k) => less(less(c.ebitda[k].minus(depreciation[k]), c.decommissioning[k]), i));
 		return { taxableIncome, ...corporateTax(taxableIncome, finance.taxRate, finance.taxLossCarryForward, finance.taxLossCarryForwardCap) };
 	};
-	const cfadsFor = (c: CircleCase, tax: readonly Decimal[]) =>
-		tax.map((t, k) => c.ebitda[k].minus(c.decommissioning[k]).minus(t).minus(data.reserveContribution[k]));
+	/** EBITDA less decommissioning, each case's cash before tax (worked out once). */
+	const cashBeforeTax = new Map<CircleCase, Decimal[]>();
+	const cfadsFor = (c: CircleCase, tax: readonly Decimal[]) => {
+		let cash = cashBeforeTax.get(c);
+		if (!cash) {
+			cash = c.ebitda.map((e, k) => less(e, c.decommissioning[k]));
+			cashBeforeTax.set(c, cash);
+		}
+		const before = cash;
+		return tax.map((t, k) => less(less(before[k], t), data.reserveContribution[k]));
+	};
 	const casesWith = (interest: readonly Decimal[], depreciation: readonly Decimal[]) =>
 		data.cases.map((c) => ({ ...c, cfads: cfadsFor(c, taxFor(c, interest, depreciation).tax) }));
 	const overLife = (values: readonly Decimal[]) => Array.from({ length: n }, (_, k) => values[k] ?? ZERO);

@@ -100,7 +100,7 @@ function padRows(rows: LoanRow[], years: number): LoanRow[] {
  * (interest only) included.
  * Source: common practice in project-finance debt sizing.
  */
-export function caseCapacity(terms: DscrTerms, sizingCase: SizingCase, warnings: string[]): CaseCapacity & { sculptedRows?: LoanRow[] } {
+export function caseCapacity(terms: DscrTerms, sizingCase: SizingCase, warnings: string[]): CaseCapacity & { sculpted?: { rows: LoanRow[] } } {
 	const { label, targetDscr, cfads } = sizingCase;
 	const tenorCfads = cfads.slice(0, terms.tenorYears);
 	const nonPositive = tenorCfads.flatMap((c, k) => (c.lte(0) ? [k + 1] : []));
@@ -115,7 +115,7 @@ export function caseCapacity(terms: DscrTerms, sizingCase: SizingCase, warnings:
 			if (graceCap === null || cap.lt(graceCap)) graceCap = cap;
 		}
 		if (graceCap !== null && graceCap.lt(sculpted.principal)) return { label, targetDscr, balance: graceCap, limitedBy: 'grace' };
-		return { label, targetDscr, balance: sculpted.principal, limitedBy: 'repayment', sculptedRows: sculpted.rows };
+		return { label, targetDscr, balance: sculpted.principal, limitedBy: 'repayment', sculpted };
 	}
 	if (nonPositive.length > 0) {
 		warnings.push(`Debt cannot be sized to a DSCR${under}: CFADS is not positive in ${operatingYearsList(nonPositive)}.`);
@@ -205,8 +205,8 @@ function repaymentRows(terms: DebtTerms, balance: Decimal, cfads: readonly Decim
  */
 export function structureDebt({ terms, timeline, spend, cases, reserveShareOfDebt = ZERO, operatingYears, fundingStart, eachCase = true }: DebtInputs): DebtStructure {
 	const warnings: string[] = [];
-	let capacities: (CaseCapacity & { sculptedRows?: LoanRow[] })[] = [];
-	let governing: (CaseCapacity & { sculptedRows?: LoanRow[] }) | null = null;
+	let capacities: (CaseCapacity & { sculpted?: { rows: LoanRow[] } })[] = [];
+	let governing: (CaseCapacity & { sculpted?: { rows: LoanRow[] } }) | null = null;
 	let dscrLimit: Decimal | null = null;
 	let profile: readonly Decimal[] = cases[0]?.cfads ?? [];
 	let bindingCases: string[] = [];
@@ -245,7 +245,8 @@ export function structureDebt({ terms, timeline, spend, cases, reserveShareOfDeb
 	const balanceAtCod = funding.balanceAtCod;
 	const capped = dscrLimit !== null && funding.totalFundingNeed.times(share).lt(dscrLimit);
 	const sizedBy: DebtStructure['sizedBy'] = terms.sizing === 'gearing' ? 'gearing' : capped ? 'gearing-cap' : 'target-dscr';
-	const exact = sizedBy === 'target-dscr' && governing?.sculptedRows && governing.sculptedRows.length > 0 ? governing.sculptedRows : null;
+	const sculptedRows = sizedBy === 'target-dscr' ? governing?.sculpted?.rows : undefined;
+	const exact = sculptedRows && sculptedRows.length > 0 ? sculptedRows : null;
 	const rows = padRows(exact ?? repaymentRows(terms, balanceAtCod, profile, warnings), operatingYears);
 	return {
 		sizedBy,

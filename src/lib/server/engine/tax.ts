@@ -60,6 +60,9 @@ export function corporateTax(
 		if (income.lte(0)) {
 			tax.push(ZERO);
 			pool = pool.minus(income);
+		} else if (pool.isZero()) {
+			// Nothing to offset (the same numbers as below, without the decimal work).
+			tax.push(income.times(r));
 		} else {
 			const offsettable = cap ? income.times(cap) : income;
 			const offset = Decimal.min(pool, offsettable);

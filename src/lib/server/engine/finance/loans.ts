@@ -193,10 +193,15 @@ export function sculptedLoan(
 		principal = ZERO;
 		debtService.fill(ZERO);
 	}
-	const rows = schedule(principal, r, tenorYears, graceYears, (year, _opening, interest) =>
-		debtService[year - 1].minus(interest)
-	);
-	return { principal, rows };
+	// The rows are worked out when first read: sizing often needs only the principal.
+	let rows: LoanRow[] | undefined;
+	const scheduled = () => schedule(principal, r, tenorYears, graceYears, (year, _opening, interest) => debtService[year - 1].minus(interest));
+	return {
+		principal,
+		get rows() {
+			return (rows ??= scheduled());
+		}
+	};
 }
 
 /**
