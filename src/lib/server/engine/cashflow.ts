@@ -229,6 +229,12 @@ const MAX_TAX_ITERATIONS = 40;
 const SETTLED_SHARE_OF_DEBT = 1e-12;
 /** The least absolute move counted as settled (currency units), for very small loans. */
 const SETTLED_FLOOR = 1e-6;
+/**
+ * A circle that never gets below SETTLED_SHARE_OF_DEBT (a kink it keeps
+ * stepping across) but moves by less than this share of the debt is reported
+ * as settled, at its closest round: the tolerance engines before 3 settled to.
+ */
+const NEARLY_SETTLED_SHARE_OF_DEBT = 1e-9;
 
 /** First-year debt service per unit borrowed, when it does not depend on CFADS (interest only, annuity, straight line). */
 function firstServicePerDebt(terms: DebtTerms): Decimal | null {
@@ -304,8 +310,8 @@ type CircleData = {
  */
 type CircleState = { interest: Decimal[]; reserveShare: Decimal; financingCosts: Decimal; fundingStart?: FundingSolution };
 
-/** The circle settled: the debt of its last pass, the iterate that pass ran on, and whether it settled. */
-type SettledCircle = { debt: DebtStructure; state: CircleState; converged: boolean; eachCase: boolean };
+/** The circle settled: the debt of its last pass, the iterate that pass ran on, whether it settled, and its last move as a share of the debt. */
+type SettledCircle = { debt: DebtStructure; state: CircleState; converged: boolean; eachCase: boolean; move: number };
 
 /**
  * The debt-and-tax circle over one number kind: the data are read in the
@@ -406,7 +412,8 @@ function debtCircle(prep: CasePreparation, data: CircleData) {
 		let state: CircleState = { ...start, interest: [...start.interest] };
 		let eachCase = eachCaseFirst;
 		let debt = structure(state, eachCase);
-		if (independentOfCfads) return { debt, state, converged: true, eachCase };
+		if (independentOfCfads) return { debt, state, converged: true, eachCase, move: 0 };
+		let closest: SettledCircle | null = null;
 		const mixer = new AndersonMixer(2);
 		// The reserve's share is iterated in money (x the first debt amount), on the scale of the other unknowns.
 		const shareScale = Decimal.max(debt.balanceAtCod, ONE);
@@ -418,7 +425,9 @@ function debtCircle(prep: CasePreparation, data: CircleData) {
 			const implied = (sweeps ? flow(debt, actualCfads(state.interest, depreciationWith(costs))).interest : debt.rows.map((r) => r.interest)).slice(0, span);
 			let move = Decimal.max(nextShare.minus(state.reserveShare).times(debt.balanceAtCod).abs(), nextCosts.minus(costs).abs());
 			implied.forEach((v, k) => (move = Decimal.max(move, v.minus(state.interest[k]).abs())));
-			if (move.lt(Decimal.max(SETTLED_FLOOR, debt.balanceAtCod.times(SETTLED_SHARE_OF_DEBT)))) return { debt, state, converged: true, eachCase };
+			const share = roughNumber(move) / Math.max(roughNumber(debt.balanceAtCod), 1);
+			if (move.lt(Decimal.max(SETTLED_FLOOR, debt.balanceAtCod.times(SETTLED_SHARE_OF_DEBT)))) return { debt, state, converged: true, eachCase, move: share };
+			if (closest === null || share < closest.move) closest = { debt, state, converged: share < NEARLY_SETTLED_SHARE_OF_DEBT, eachCase, move: share };
 			const mixed = mixer.next(
 				[...state.interest, state.reserveShare.times(shareScale), costs],
 				[...implied, nextShare.times(shareScale), nextCosts]
@@ -432,7 +441,7 @@ function debtCircle(prep: CasePreparation, data: CircleData) {
 			eachCase = false;
 			debt = structure(state, eachCase);
 		}
-		return { debt, state, converged: false, eachCase };
+		return closest ?? { debt, state, converged: false, eachCase, move: Infinity };
 	};
 
 	return { taxFor, cfadsFor, actualCfads, flow, overLife, depreciationWith, structure, defaultStart, settle, independentOfCfads, sweeps };
@@ -555,7 +564,8 @@ export function financeCase(prep: CasePreparation, op: OperatingResult, sizedOn:
 			const fast = debtCircle(prep, rebound(data));
 			return fast.settle(fast.defaultStart());
 		});
-		if (found.converged) start = decimalState(found.state);
+		// A search that did not quite settle still starts the decimal pass far closer than the usual start.
+		if (found.converged || found.move < 1e-6) start = decimalState(found.state);
 	}
 	const settled = start ? circle.settle(start, eachCaseReport) : circle.settle(circle.defaultStart());
 	let { debt } = settled;

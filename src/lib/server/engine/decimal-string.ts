@@ -36,32 +36,33 @@ export function decimalString(x: Decimal): DecimalString {
 		const rounded = x.toDecimalPlaces(PLACES);
 		return rounded.isZero() ? '0' : rounded.toFixed();
 	}
-	let digits = String(words[0]);
-	for (let i = 1; i < words.length; i++) digits += String(words[i]).padStart(WORD_DIGITS, '0');
-	let end = digits.length;
-	while (end > 1 && digits[end - 1] === '0') end--;
-	digits = digits.slice(0, end);
-
 	// The first digit stands for 10^e; the digits kept are those for 10^-10 and above.
 	let e = x.e;
 	const kept = e + 1 + PLACES;
 	if (kept < 0) return '0';
+	// The kept digits and the first one dropped; past that only whether any digit is non-zero matters.
+	let digits = String(words[0]);
+	let next = 1;
+	while (next < words.length && digits.length <= kept) digits += String(words[next++]).padStart(WORD_DIGITS, '0');
+	let head = digits;
 	if (digits.length > kept) {
+		let tail = false;
+		for (let i = kept + 1; i < digits.length && !tail; i++) tail = digits.charCodeAt(i) !== 48;
+		for (let i = next; i < words.length && !tail; i++) tail = words[i] !== 0;
+		head = digits.slice(0, kept);
 		const dropped = digits.charCodeAt(kept) - 48;
-		const restNonZero = digits.length > kept + 1;
 		const lastKept = kept > 0 ? digits.charCodeAt(kept - 1) - 48 : 0;
-		let head = digits.slice(0, kept);
-		if (dropped > 5 || (dropped === 5 && (restNonZero || lastKept % 2 === 1))) {
+		if (dropped > 5 || (dropped === 5 && (tail || lastKept % 2 === 1))) {
 			const up = incremented(head === '' ? '0' : head);
 			// A carry out of the first digit (999.9 -> 1000) or up from nothing (0.00000000006 -> 0.0000000001) adds a place in front.
 			if (up.length > head.length) e += up.length - Math.max(head.length, 1) + (head === '' ? 1 : 0);
 			head = up;
 		}
-		let headEnd = head.length;
-		while (headEnd > 0 && head[headEnd - 1] === '0') headEnd--;
-		if (headEnd === 0) return '0';
-		digits = head.slice(0, headEnd);
 	}
+	let end = head.length;
+	while (end > 0 && head.charCodeAt(end - 1) === 48) end--;
+	if (end === 0) return '0';
+	digits = head.slice(0, end);
 
 	const sign = x.isNegative() ? '-' : '';
 	if (e < 0) return `${sign}0.${'0'.repeat(-e - 1)}${digits}`;

@@ -46,7 +46,13 @@ export function waveFluxFunction(
 ): (hsM: Decimal, teS: Decimal) => Decimal {
 	const g = dec(gravityMPerS2);
 	const coefficient = dec(densityKgPerM3).times(g).times(g).div(PI.times(64000));
-	const deep = (hs: Decimal, te: Decimal) => coefficient.times(hs).times(hs).times(te);
+	// coefficient x Hs^2 kept per height (a table repeats a dozen), the same products in the same order.
+	const perHeight = new Map<Decimal, Decimal>();
+	const deep = (hs: Decimal, te: Decimal) => {
+		let squared = perHeight.get(hs);
+		if (squared === undefined) perHeight.set(hs, (squared = coefficient.times(hs).times(hs)));
+		return squared.times(te);
+	};
 	if (waterDepthM === undefined) return deep;
 	const gravity = g.toNumber();
 	const factors = new Map<string, Decimal>();
@@ -150,10 +156,21 @@ export function powerMatrixFunction(
 	const m = matrix.powerKW.map((row) => row.map((v) => new Decimal(v)));
 	const hsAxis = axisOf(matrix.hsM.map(dec));
 	const teAxis = axisOf(teAxisS.map(dec));
+	const nearestMode = matrix.lookup === 'nearest';
+	// Positions kept per coordinate (a table repeats a dozen heights and periods).
+	const located = (axis: Axis) => {
+		const known = new Map<Decimal, AxisPosition>();
+		return (x: Decimal) => {
+			let position = known.get(x);
+			if (position === undefined) known.set(x, (position = locate(axis, x, nearestMode)));
+			return position;
+		};
+	};
+	const rowOf = located(hsAxis);
+	const colOf = located(teAxis);
 	return (hsM, teS) => {
-		const nearestMode = matrix.lookup === 'nearest';
-		const row = locate(hsAxis, hsM, nearestMode);
-		const col = locate(teAxis, teS, nearestMode);
+		const row = rowOf(hsM);
+		const col = colOf(teS);
 		if (!row || !col) return null;
 		if (nearestMode) return m[row.nearest][col.nearest];
 		const a = row.weightUpper;

@@ -92,11 +92,19 @@ function seaStateBins(scenario: Scenario, warnings: string[]): SeaStateBin[] {
 		return [];
 	}
 	checkOccurrenceTotal(r.occurrenceBasis, r.states.map((s) => s.occurrence), scenario.hoursPerYear, 'sea-state table', warnings);
-	return r.states.map((s, i) => ({
-		hsM: dec(s.hsM),
-		teS: r.periodType === 'peak-period' ? energyPeriodFromPeakPeriod(s.periodS, r.teOverTp) : dec(s.periodS),
-		probability: probabilities[i]
-	}));
+	// A table repeats a dozen heights and periods: each is made a decimal once (and shared, so the flux and the
+	// matrix lookup can keep what they work out per value).
+	const once = <K>(make: (key: K) => Decimal) => {
+		const made = new Map<K, Decimal>();
+		return (key: K) => {
+			let value = made.get(key);
+			if (value === undefined) made.set(key, (value = make(key)));
+			return value;
+		};
+	};
+	const height = once((hs: number) => dec(hs));
+	const period = once((p: number) => (r.periodType === 'peak-period' ? energyPeriodFromPeakPeriod(p, r.teOverTp) : dec(p)));
+	return r.states.map((s, i) => ({ hsM: height(s.hsM), teS: period(s.periodS), probability: probabilities[i] }));
 }
 
 function checkOccurrenceTotal(basis: 'hours' | 'probability', values: number[], hoursPerYear: number, what: string, warnings: string[]) {
