@@ -100,7 +100,13 @@ function padRows(rows: LoanRow[], years: number): LoanRow[] {
  * (interest only) included.
  * Source: common practice in project-finance debt sizing.
  */
-export function caseCapacity(terms: DscrTerms, sizingCase: SizingCase, warnings: string[]): CaseCapacity & { sculpted?: { rows: LoanRow[] } } {
+export function caseCapacity(
+	terms: DscrTerms,
+	sizingCase: SizingCase,
+	warnings: string[],
+	/** CFADS_k / target already worked out (see combinedCase), to divide only once. */
+	allowance?: readonly Decimal[]
+): CaseCapacity & { sculpted?: { rows: LoanRow[] } } {
 	const { label, targetDscr, cfads } = sizingCase;
 	const tenorCfads = cfads.slice(0, terms.tenorYears);
 	const nonPositive = tenorCfads.flatMap((c, k) => (c.lte(0) ? [k + 1] : []));
@@ -108,7 +114,8 @@ export function caseCapacity(terms: DscrTerms, sizingCase: SizingCase, warnings:
 	const rate = dec(terms.interestRate);
 	if (terms.repayment === 'sculpted') {
 		if (nonPositive.length > 0) warnings.push(`CFADS${under} is not positive in ${operatingYearsList(nonPositive)}: no debt is repaid then.`);
-		const sculpted = sculptedLoan(cfads, targetDscr, rate, terms.tenorYears, terms.graceYears);
+		// max(CFADS, 0) / target = max(CFADS / target, 0): the same debt service from the allowance at cover 1.
+		const sculpted = allowance ? sculptedLoan(allowance, 1, rate, terms.tenorYears, terms.graceYears) : sculptedLoan(cfads, targetDscr, rate, terms.tenorYears, terms.graceYears);
 		let graceCap: Decimal | null = null;
 		if (rate.gt(0)) for (let k = 0; k < terms.graceYears; k++) {
 			const cap = Decimal.max(tenorCfads[k], ZERO).div(rate.times(targetDscr));
@@ -144,14 +151,14 @@ export function caseCapacity(terms: DscrTerms, sizingCase: SizingCase, warnings:
  * covers exactly its target. Source: common practice (sculpting to the
  * lesser of the P50 and P90 debt service each period).
  */
-function combinedCase(cases: readonly SizingCase[], tenorYears: number): { sizingCase: SizingCase; binding: string[] } {
+function combinedCase(cases: readonly SizingCase[], tenorYears: number, allowances?: readonly (readonly Decimal[])[]): { sizingCase: SizingCase; binding: string[] } {
 	const years = cases[0].cfads.length;
 	const binding: string[] = [];
 	const cfads = Array.from({ length: years }, (_, k) => {
 		let least: Decimal | null = null;
 		let label = cases[0].label;
-		for (const c of cases) {
-			const allowed = c.cfads[k].div(c.targetDscr);
+		for (const [i, c] of cases.entries()) {
+			const allowed = allowances ? allowances[i][k] : c.cfads[k].div(c.targetDscr);
 			if (least === null || allowed.lt(least)) {
 				least = allowed;
 				label = c.label;
@@ -212,11 +219,13 @@ export function structureDebt({ terms, timeline, spend, cases, reserveShareOfDeb
 	let bindingCases: string[] = [];
 	if (terms.sizing === 'target-dscr') {
 		const combine = terms.repayment === 'sculpted' && cases.length > 1;
-		if (eachCase || !combine) capacities = cases.map((c) => caseCapacity(terms, c, warnings));
+		// Sized on their combination and each alone: CFADS / target divided once for both.
+		const allowances = combine && eachCase ? cases.map((c) => c.cfads.map((x) => x.div(c.targetDscr))) : undefined;
+		if (eachCase || !combine) capacities = cases.map((c, i) => caseCapacity(terms, c, warnings, allowances?.[i]));
 		for (const c of capacities) if (governing === null || c.balance.lt(governing.balance)) governing = c;
 		if (combine) {
 			// Sculpted on several cases: each year's service is the least any case's cover allows that year.
-			const combined = combinedCase(cases, terms.tenorYears);
+			const combined = combinedCase(cases, terms.tenorYears, allowances);
 			bindingCases = combined.binding;
 			governing = { ...caseCapacity(terms, combined.sizingCase, eachCase ? [] : warnings), label: mostFrequent(combined.binding.slice(terms.graceYears)) ?? cases[0].label };
 			profile = combined.sizingCase.cfads;
