@@ -79,8 +79,10 @@ describe('the debt-and-tax circle on the lender example', () => {
 		const targets = new Map(debt.capacities.map((c) => [c.label, c.targetDscr]));
 		const cfadsOf = new Map([['P50', d.financing.cfads], ...d.financing.downsideCfads.map((c) => [c.label, c.cfads] as const)]);
 		expect(debt.bindingCases.slice(1).every((label) => label === 'P50')).toBe(true);
+		const terms = parsed.scenario.finance.debt;
+		const graceYears = terms.sizing === 'none' ? 0 : terms.graceYears;
 		debt.bindingCases.forEach((label, k) => {
-			if (k < parsed.scenario.finance.debt.graceYears) return;
+			if (k < graceYears) return;
 			const cover = cfadsOf.get(label)![k].div(d.financing.debtService[k]);
 			expect(cover.minus(targets.get(label)!).abs().toNumber(), `year ${k + 1}`).toBeLessThan(1e-9);
 		});

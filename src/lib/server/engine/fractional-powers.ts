@@ -52,6 +52,8 @@ export function powersAt(g: Decimal, times: readonly number[]): Decimal[] {
 	const m = periodsPerYearOf(times);
 	const root = rootOf(g, m);
 	const exponents = times.map((t) => Math.round(t * m));
+	// Float64 powers cost no more than the multiplications.
+	if (numberKind() === 'float64') return exponents.map((k) => root.pow(k));
 	const result: Decimal[] = new Array(times.length);
 	for (const sign of [1, -1]) {
 		const base = sign === 1 ? root : ONE.div(root);
