@@ -18,10 +18,8 @@ function starterExample(technology: Technology): Record<string, unknown> | undef
 
 type ExampleFacts = { name: string; siteName: string; siteDescription: string; currency: string };
 
-/** What a project started from a technology's example is called and priced in, without copying its document. */
-export function exampleProjectFacts(technology: Technology): ExampleFacts | undefined {
-	const example = starterExample(technology);
-	if (!example) return undefined;
+/** What a project started from an example is called and priced in. */
+function factsOf(example: Record<string, unknown>): ExampleFacts {
 	const site = (example.site ?? {}) as { name?: string };
 	const siteName = site.name ?? '';
 	return {
@@ -32,11 +30,16 @@ export function exampleProjectFacts(technology: Technology): ExampleFacts | unde
 	};
 }
 
+/** What a project started from a technology's example is called and priced in, without copying its document. */
+export function exampleProjectFacts(technology: Technology): ExampleFacts | undefined {
+	const example = starterExample(technology);
+	return example ? factsOf(example) : undefined;
+}
+
 /** A whole project to start from, per technology: the example's site, currency and document (an empty workspace offers them). */
 export function exampleProject(technology: Technology): (ExampleFacts & { document: Record<string, unknown> }) | undefined {
-	const facts = exampleProjectFacts(technology);
-	if (!facts) return undefined;
-	return { ...facts, document: { ...structuredClone(starterExample(technology)!), name: 'Base case' } };
+	const example = starterExample(technology);
+	return example ? { ...factsOf(example), document: { ...structuredClone(example), name: 'Base case' } } : undefined;
 }
 
 export function starterDocument(
