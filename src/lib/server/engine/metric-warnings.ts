@@ -4,7 +4,7 @@
  * the result's warnings, or null when there is nothing to say.
  */
 import { Decimal, ZERO } from './decimal';
-import { irrRatesTimed, signChanges, type TimedAmount } from './finance/irr';
+import { irrRatesTimed, irrTimedWithRates, type TimedAmount } from './finance/irr';
 import type { TimeSeries } from './timeline';
 
 /**
@@ -15,13 +15,6 @@ import type { TimeSeries } from './timeline';
  * warning on every such project would teach readers to skip warnings.
  */
 export const IRR_SEARCH_RANGE = { low: -0.1, high: 1 } as const;
-
-/** Amounts in time order, those at the same t added together. */
-function inTimeOrder(flows: readonly TimedAmount[]): Decimal[] {
-	const byTime = new Map<number, Decimal>();
-	for (const { t, amount } of flows) byTime.set(t, (byTime.get(t) ?? ZERO).plus(amount));
-	return [...byTime.entries()].sort(([a], [b]) => a - b).map(([, amount]) => amount);
-}
 
 /**
  * Every rate r in (low, high) at which the flows' NPV is zero, ascending: the
@@ -55,9 +48,8 @@ const NUMBER_WORDS = ['no rate', 'one rate', 'two rates', 'three rates', 'four r
  * several IRRs exist is common practice (corporate-finance textbooks).
  */
 export function multipleIrrWarning(label: string, flows: readonly TimedAmount[], reported: Decimal): string | null {
-	const changes = signChanges(inTimeOrder(flows));
-	if (changes <= 1) return null;
-	return severalIrrWarning(label, changes, irrRatesTimed(flows), reported);
+	const { changes, rates } = irrTimedWithRates(flows);
+	return severalIrrWarning(label, changes, rates, reported);
 }
 
 /**

@@ -4,7 +4,6 @@
  */
 import { dec, Decimal, ONE, ZERO, type DecimalInput } from './decimal';
 import { capitalRecoveryFactor } from './finance/annuity';
-import { irrTimed, type IrrResult } from './finance/irr';
 import type { TimeSeries } from './timeline';
 import type { CasePreparation } from './cashflow';
 
@@ -101,10 +100,6 @@ export function timedFlows(series: TimeSeries, constructionTimes: readonly numbe
 		...series.construction.map((amount, j) => ({ t: constructionTimes[j], amount })),
 		...series.operation.map((amount, k) => ({ t: k + 1, amount }))
 	];
-}
-
-export function internalRate(series: TimeSeries, constructionTimes: readonly number[]): IrrResult {
-	return irrTimed(timedFlows(series, constructionTimes));
 }
 
 /**

@@ -147,14 +147,13 @@ export function irrTimed(flows: readonly TimedAmount[]): IrrResult {
  * irrTimed, with what the several-IRR check needs from the same pass over
  * the flows: their sign changes (zeros skipped, amounts at the same t added)
  * and every rate a year above -100 % at which their NPV is zero, ascending
- * (irrRatesTimed's answer; given only for more than one sign change, else
- * empty).
+ * (irrRatesTimed's answer).
  */
 export function irrTimedWithRates(flows: readonly TimedAmount[]): { result: IrrResult; changes: number; rates: number[] } {
 	if (flows.length === 0) return { result: failure('no cash flows, so there is no IRR'), changes: 0, rates: [] };
 	const { series, perYear } = onPeriods(flows);
 	const { result, changes, roots } = solved(series);
-	const rates = changes > 1 ? annualRates(roots, perYear) : [];
+	const rates = annualRates(roots, perYear);
 	if (result.rate === null || perYear === 1) return { result, changes, rates };
 	// A rate per 1/m of a year, compounded to a year: (1 + rho)^m - 1.
 	return { result: { rate: result.rate.plus(1).pow(perYear).minus(1), reason: null }, changes, rates };
@@ -190,17 +189,7 @@ function onPeriods(flows: readonly TimedAmount[]): { series: Decimal[]; perYear:
  * Example: irrRatesTimed(-100 at t = 0, 230 at 1, -132 at 2)  // => [0.1, 0.2] (to float accuracy)
  */
 export function irrRatesTimed(flows: readonly TimedAmount[]): number[] {
-	if (flows.length === 0) return [];
-	const { series, perYear } = onPeriods(flows);
-	let first = 0;
-	while (first < series.length && series[first].isZero()) first++;
-	let last = series.length - 1;
-	while (last >= first && series[last].isZero()) last--;
-	const coefficients = series.slice(first, last + 1);
-	const changes = coefficients.length === 0 ? 0 : signChanges(coefficients);
-	if (changes === 0) return [];
-	const { floats } = scaledFloats(coefficients);
-	return annualRates(changes === 1 ? [singleRoot(floats)] : allRoots(floats), perYear);
+	return irrTimedWithRates(flows).rates;
 }
 
 
