@@ -313,6 +313,30 @@ type CircleState = { interest: Decimal[]; reserveShare: Decimal; financingCosts:
 /** The circle settled: the debt of its last pass, the iterate that pass ran on, whether it settled, and its last move as a share of the debt. */
 type SettledCircle = { debt: DebtStructure; state: CircleState; converged: boolean; eachCase: boolean; move: number };
 
+/** a - b, skipping a zero b (decommissioning, interest and reserve movements are zero in most years): the same value. */
+const less = (a: Decimal, b: Decimal) => (b.isZero() ? a : a.minus(b));
+
+/** Levered tax and CFADS of an energy case, for given interest and depreciation. */
+function caseCash(finance: Scenario['finance'], reserveContribution: readonly Decimal[]) {
+	/** Tax with the given interest over the first interest.length years, for one case. */
+	const taxFor = (c: Pick<CircleCase, 'ebitda' | 'decommissioning'>, interest: readonly Decimal[], depreciation: readonly Decimal[]) => {
+		const taxableIncome = interest.map((i, k) => less(less(c.ebitda[k].minus(depreciation[k]), c.decommissioning[k]), i));
+		return { taxableIncome, ...corporateTax(taxableIncome, finance.taxRate, finance.taxLossCarryForward, finance.taxLossCarryForwardCap) };
+	};
+	/** EBITDA less decommissioning, each case's cash before tax (worked out once). */
+	const cashBeforeTax = new Map<object, Decimal[]>();
+	const cfadsFor = (c: Pick<CircleCase, 'ebitda' | 'decommissioning'>, tax: readonly Decimal[]) => {
+		let cash = cashBeforeTax.get(c);
+		if (!cash) {
+			cash = c.ebitda.map((e, k) => less(e, c.decommissioning[k]));
+			cashBeforeTax.set(c, cash);
+		}
+		const before = cash;
+		return tax.map((t, k) => less(less(before[k], t), reserveContribution[k]));
+	};
+	return { taxFor, cfadsFor };
+}
+
 /**
  * The debt-and-tax circle over one number kind: the data are read in the
  * number kind bound when this is called (see ./decimal: withFloat64), and its
@@ -335,24 +359,7 @@ function debtCircle(prep: CasePreparation, data: CircleData) {
 		const scale = ONE.plus(costs.div(data.depreciableCost));
 		return data.depreciation.map((d) => d.times(scale));
 	};
-	/** a - b, skipping a zero b (decommissioning, interest and reserve movements are zero in most years): the same value. */
-	const less = (a: Decimal, b: Decimal) => (b.isZero() ? a : a.minus(b));
-	/** Tax with the given interest over the first interest.length years, for one case. */
-	const taxFor = (c: CircleCase, interest: readonly Decimal[], depreciation: readonly Decimal[]) => {
-		const taxableIncome = interest.map((i, k) => less(less(c.ebitda[k].minus(depreciation[k]), c.decommissioning[k]), i));
-		return { taxableIncome, ...corporateTax(taxableIncome, finance.taxRate, finance.taxLossCarryForward, finance.taxLossCarryForwardCap) };
-	};
-	/** EBITDA less decommissioning, each case's cash before tax (worked out once). */
-	const cashBeforeTax = new Map<CircleCase, Decimal[]>();
-	const cfadsFor = (c: CircleCase, tax: readonly Decimal[]) => {
-		let cash = cashBeforeTax.get(c);
-		if (!cash) {
-			cash = c.ebitda.map((e, k) => less(e, c.decommissioning[k]));
-			cashBeforeTax.set(c, cash);
-		}
-		const before = cash;
-		return tax.map((t, k) => less(less(before[k], t), data.reserveContribution[k]));
-	};
+	const { taxFor, cfadsFor } = caseCash(finance, data.reserveContribution);
 	const casesWith = (interest: readonly Decimal[], depreciation: readonly Decimal[]) =>
 		data.cases.map((c) => ({ ...c, cfads: cfadsFor(c, taxFor(c, interest, depreciation).tax) }));
 	const overLife = (values: readonly Decimal[]) => Array.from({ length: n }, (_, k) => values[k] ?? ZERO);
@@ -533,10 +540,9 @@ export function financeCase(prep: CasePreparation, op: OperatingResult, sizedOn:
 
 	if (terms.sizing === 'none') {
 		const zeros = op.ebitda.map(() => ZERO);
-		const { finance: f } = prep.scenario;
-		const taxableIncome = op.ebitda.map((e, k) => e.minus(prep.depreciation[k]).minus(op.decommissioning[k]));
-		const taxed = { taxableIncome, ...corporateTax(taxableIncome, f.taxRate, f.taxLossCarryForward, f.taxLossCarryForwardCap) };
-		const cfads = taxed.tax.map((t, k) => op.ebitda[k].minus(op.decommissioning[k]).minus(t).minus(reserves.netContribution[k]));
+		const { taxFor, cfadsFor } = caseCash(finance, reserves.netContribution);
+		const taxed = taxFor(actual, zeros, prep.depreciation);
+		const cfads = cfadsFor(actual, taxed.tax);
 		return {
 			debt: null,
 			interest: zeros,
