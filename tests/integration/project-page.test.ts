@@ -1,14 +1,16 @@
 /**
- * The project page's one-statement read gives exactly what the separate list
- * reads give (the same rows, order, dates and people), in one query.
+ * The project page's one-statement read gives exactly what the API's paged
+ * list reads give (the same rows, order, dates and people), with the stored
+ * key figures of each current revision, in one query.
  */
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestDatabase, type TestDatabase } from '../helpers/db';
 import { setAppEnv } from '../helpers/app-env';
 import { createProject, getProjectById } from '../../src/lib/server/db/projects';
-import { archiveScenario, createScenario, listLiveScenariosWithStoredMetrics, markBaseCase } from '../../src/lib/server/db/scenarios';
-import { listUploadsInProject } from '../../src/lib/server/db/uploads';
+import { archiveScenario, createScenario, listScenariosPage, markBaseCase } from '../../src/lib/server/db/scenarios';
+import { listUploadsPage } from '../../src/lib/server/db/uploads';
+import { getStoredResult } from '../../src/lib/server/db/scenario-results';
 import { readProjectPage } from '../../src/lib/server/db/project-page';
 import { receiveUpload } from '../../src/lib/server/workbench/receive-upload';
 import { resultOfSavedScenario } from '../../src/lib/server/workbench/stored-results';
@@ -56,13 +58,17 @@ describe('readProjectPage', () => {
 		expect(queries).toBe(1);
 
 		expect(page?.project).toEqual(await getProjectById(projectId, database.knex));
-		expect(page?.scenarios).toEqual(await listLiveScenariosWithStoredMetrics(projectId, ENGINE_VERSION, database.knex));
-		expect(page?.uploads).toEqual(await listUploadsInProject(projectId, database.knex));
+		const everything = { limit: 100, after: null };
+		expect(page?.scenarios.map(({ stored: _, ...summary }) => summary)).toEqual((await listScenariosPage(projectId, everything, database.knex)).items);
+		expect(page?.uploads).toEqual((await listUploadsPage(projectId, everything, database.knex)).items);
 		// What the comparison above stands on: the base case first, then by name; one stored result; newest upload first.
 		expect(page?.scenarios.map((s) => s.name)).toHaveLength(4);
 		expect(page?.scenarios[0].name).toBe('Middle case');
 		expect(page?.scenarios[0].isBaseCase).toBe(true);
 		expect(page?.scenarios.filter((s) => s.stored !== null).map((s) => s.name)).toEqual(['Zephyr case']);
+		const zephyr = page!.scenarios.find((s) => s.name === 'Zephyr case')!;
+		const stored = await getStoredResult(zephyr.id, zephyr.revision, ENGINE_VERSION, database.knex);
+		expect(zephyr.stored).toEqual({ metrics: stored!.result.metrics, currency: stored!.result.currency });
 		expect(page?.scenarios[0].createdAt).toBeInstanceOf(Date);
 		expect(page?.scenarios[0].createdBy?.name).toBe('Pia Reader');
 		expect(page?.uploads.map((u) => u.fileName)).toEqual(['third.csv', 'second.csv', 'first.csv']);

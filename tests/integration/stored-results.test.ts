@@ -7,7 +7,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestDatabase, type TestDatabase } from '../helpers/db';
 import { setAppEnv } from '../helpers/app-env';
 import { createProject } from '../../src/lib/server/db/projects';
-import { archiveScenario, createScenario, listLiveScenariosWithStoredMetrics, saveScenario } from '../../src/lib/server/db/scenarios';
+import { archiveScenario, createScenario, saveScenario } from '../../src/lib/server/db/scenarios';
+import { readProjectPage } from '../../src/lib/server/db/project-page';
 import { getStoredResult } from '../../src/lib/server/db/scenario-results';
 import { evaluateScenario } from '../../src/lib/server/engine/evaluate';
 import { ENGINE_VERSION } from '../../src/lib/server/engine/version';
@@ -83,7 +84,7 @@ describe('resultOfSavedScenario', () => {
 	});
 });
 
-describe('listLiveScenariosWithStoredMetrics', () => {
+describe('the project page read', () => {
 	it('gives each live scenario its current revision’s stored metrics in one query, null where none is stored for this engine', async () => {
 		const [{ id: workspaceId }] = await database.knex('workspaces').insert({ name: 'List Test', slug: 'list-test' }).returning('id');
 		const listProject = (await createProject({ workspaceId, name: 'Listed array', technology: 'tidal-stream' }, database.knex)).id;
@@ -97,7 +98,7 @@ describe('listLiveScenariosWithStoredMetrics', () => {
 		let queries = 0;
 		const count = () => (queries += 1);
 		database.knex.on('query', count);
-		const listed = await listLiveScenariosWithStoredMetrics(listProject, ENGINE_VERSION, database.knex);
+		const listed = (await readProjectPage(listProject, ENGINE_VERSION, database.knex))!.scenarios;
 		database.knex.off('query', count);
 		expect(queries).toBe(1);
 		expect(listed.map((s) => s.name)).toEqual(['A stored', 'B bare']);

@@ -3,7 +3,8 @@ import { readFileSync } from 'node:fs';
 import { createHash } from 'node:crypto';
 import { createTestDatabase, type TestDatabase } from '../helpers/db';
 import { createProject } from '../../src/lib/server/db/projects';
-import { countUploadsInProject, getUploadById, getUploadContent, getUploadPlace, listUploadsInProject } from '../../src/lib/server/db/uploads';
+import { countUploadsInProject, getUploadById, getUploadContent, getUploadPlace } from '../../src/lib/server/db/uploads';
+import { readProjectPage } from '../../src/lib/server/db/project-page';
 import { receiveUpload } from '../../src/lib/server/workbench/receive-upload';
 import type { UploadKind } from '../../src/lib/schemas/workbench';
 
@@ -91,7 +92,7 @@ describe('receiveUpload', () => {
 	});
 
 	it('lists uploads newest first without their contents', async () => {
-		const list = await listUploadsInProject(projectId, database.knex);
+		const list = (await readProjectPage(projectId, 'any engine', database.knex))!.uploads;
 		expect(list.length).toBe(await countUploadsInProject(projectId, database.knex));
 		expect(list[0]).not.toHaveProperty('content');
 		expect(list[0]).not.toHaveProperty('parsed');

@@ -169,7 +169,11 @@ export type ScenarioWithStoredMetrics = ScenarioSummary & { stored: { metrics: R
 
 type StoredMetricsDbRow = SummaryDbRow & { stored_metrics: Record<string, string | null> | null; stored_currency: string | null };
 
-/** The live scenarios of the project `projectId` names (an id, or a reference to an outer query's column), in list order, with their stored metrics. */
+/**
+ * The live scenarios of the project `projectId` names (an id, or a reference
+ * to an outer query's column), in list order, each with its current
+ * revision's stored metrics for one engine version (null when not stored).
+ */
 export function liveScenariosWithStoredMetricsQuery(projectId: string | Knex.Ref<string, Record<string, string>>, engineVersion: string, knex: Knex = db()) {
 	return summaries(knex)
 		.leftJoin('scenario_results as stored', function () {
@@ -183,16 +187,6 @@ export function liveScenariosWithStoredMetricsQuery(projectId: string | Knex.Ref
 
 function toScenarioWithStoredMetrics(row: StoredMetricsDbRow): ScenarioWithStoredMetrics {
 	return { ...toSummary(row), stored: row.stored_metrics ? { metrics: row.stored_metrics, currency: row.stored_currency ?? '' } : null };
-}
-
-/**
- * The project's live scenarios in list order, each with its current
- * revision's stored metrics for one engine version (null when not stored),
- * in one query.
- */
-export async function listLiveScenariosWithStoredMetrics(projectId: string, engineVersion: string, knex: Knex = db()): Promise<ScenarioWithStoredMetrics[]> {
-	const rows: StoredMetricsDbRow[] = await liveScenariosWithStoredMetricsQuery(projectId, engineVersion, knex);
-	return rows.map(toScenarioWithStoredMetrics);
 }
 
 /** A row of liveScenariosWithStoredMetricsQuery read back from json_agg (its timestamps arrive as text). */

@@ -114,15 +114,9 @@ const uploadOrder = [
 	{ column: 'uploads.id', order: 'desc' }
 ];
 
-/** The uploads of the project `projectId` names (an id, or a reference to an outer query's column), newest first. */
+/** The uploads of the project `projectId` names (an id, or a reference to an outer query's column), newest first, without file contents or parsed data. */
 export function uploadsInProjectQuery(projectId: string | Knex.Ref<string, Record<string, string>>, knex: Knex = db()) {
 	return withUploader(knex).select(summaryColumns).where('uploads.project_id', projectId).orderBy(uploadOrder);
-}
-
-/** Newest first, without file contents or parsed data. */
-export async function listUploadsInProject(projectId: string, knex: Knex = db()): Promise<UploadSummary[]> {
-	const rows: SummaryDbRow[] = await uploadsInProjectQuery(projectId, knex);
-	return rows.map(toSummary);
 }
 
 /** A row of uploadsInProjectQuery read back from json_agg (its timestamp arrives as text). */
