@@ -5,10 +5,12 @@ import { SESSION_COOKIE, deleteSessionCookie, setSessionCookie, sessionForReques
 import { authenticateApiToken, bearerToken, recordRefusedToken, recordTokenRequest, takeTokenRequest } from '$lib/server/auth/api-tokens';
 import { anonymous } from '$lib/server/auth/principal';
 import { apiError } from '$lib/server/api';
-import { SettingsError, billingSettings, checkSettings, cookiesAreSecure, webSettings } from '$lib/server/settings';
+import { SettingsError, billingSettings, checkSettings, cookiesAreSecure, databaseSettings, webSettings } from '$lib/server/settings';
 import { crossSiteRefusal } from '$lib/server/cross-site';
 import { closeComputePool, computePool } from '$lib/server/compute/pool';
-import { closeDb } from '$lib/server/db/knex';
+import { getRequestEvent } from '$app/server';
+import { closeDb, db } from '$lib/server/db/knex';
+import { requestFinished, startCachedReads, stopCachedReads } from '$lib/server/db/cached-reads';
 import { DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from '$lib/server/db/errors';
 import { devInboxEnabled } from '$lib/server/mail/dev-inbox';
 import { afterResponse } from '$lib/server/after-response';
@@ -28,9 +30,29 @@ export const init: ServerInit = () => {
 	// The compute threads load the engine off the request thread; start them now rather than on the first evaluation.
 	void computePool().catch((e: unknown) => console.error('[compute] the worker pool did not start:', e));
 	// adapter-node stops taking requests on SIGTERM/SIGINT, then says so: close what keeps the process alive.
+	// Pages read again are served from kept reads, which PostgreSQL's change feed keeps honest (db/cached-reads.ts).
+	startCachedReads(db(), databaseSettings().url, currentRequestKey);
 	process.once('sveltekit:shutdown', () => {
-		void Promise.allSettled([closeComputePool(), closeDb()]);
+		void Promise.allSettled([closeComputePool(), stopCachedReads().then(closeDb)]);
 	});
+};
+
+/** The request a database statement runs in (its locals), or undefined for work outside any request. */
+function currentRequestKey(): object | undefined {
+	try {
+		return getRequestEvent().locals;
+	} catch {
+		return undefined;
+	}
+}
+
+/** A request that wrote has committed when it ends: kept reads are forgotten then (see db/cached-reads.ts). */
+const settleOwnWrites: Handle = async ({ event, resolve }) => {
+	try {
+		return await resolve(event);
+	} finally {
+		requestFinished(event.locals);
+	}
 };
 
 function isRoomsPath(path: string) {
@@ -153,7 +175,7 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(scopeLocale, securityHeaders, apiFailuresAsJson, authenticate, refuseCrossSite, guardAreas);
+export const handle = sequence(scopeLocale, settleOwnWrites, securityHeaders, apiFailuresAsJson, authenticate, refuseCrossSite, guardAreas);
 
 /**
  * Log the real failure on the server; show the user a safe message with an id

@@ -17,6 +17,7 @@ import { listWorkspacesForUser, type WorkspaceMembership } from '../db/membershi
 import { getProjectById, getProjectOfScenario, getProjectOfUpload, getRoomAndProject, type ProjectRow } from '../db/projects';
 import type { RoomRow } from '../db/rooms';
 import { getScenarioWithProject, type ScenarioRecord } from '../db/scenarios';
+import { projectReads } from '../db/cached-reads';
 import { roleAtLeast, type WorkspaceRole } from './roles';
 import type { ApiTokenPrincipal, GuestPrincipal, MemberPrincipal, Principal } from './principal';
 import type { SessionUser } from './session';
@@ -158,7 +159,7 @@ function isRead(event: AccessEvent): boolean {
 function projectOfScenarioInView(event: AccessEvent, scenarioId: string): Promise<ProjectRow | undefined> {
 	return projectOf(event, `scenario:${scenarioId}`, async () => {
 		if (!isRead(event)) return getProjectOfScenario(scenarioId);
-		const found = await getScenarioWithProject(scenarioId);
+		const found = await projectReads.read(`scenario-with-project:${scenarioId}`, () => getScenarioWithProject(scenarioId), (read) => read.project.id);
 		if (!found) return undefined;
 		const seen = scenariosOfView.get(event.locals) ?? new Map<string, ScenarioRecord>();
 		seen.set(scenarioId, found.scenario);

@@ -6,6 +6,7 @@
  */
 import type { Knex } from 'knex';
 import { db } from './knex';
+import { projectReads } from './cached-reads';
 import { projectColumns, type ProjectRow } from './projects';
 import { liveScenariosWithStoredMetricsQuery, scenarioWithStoredMetricsFromJson, type ScenarioWithStoredMetrics } from './scenarios';
 import { uploadSummaryFromJson, uploadsInProjectQuery, type UploadSummary } from './uploads';
@@ -54,4 +55,9 @@ export async function readProjectPage(projectId: string, engineVersion: string, 
 		scenarios: scenarios.map(scenarioWithStoredMetricsFromJson),
 		uploads: uploads.map(uploadSummaryFromJson)
 	};
+}
+
+/** readProjectPage through the process's kept reads (db/cached-reads.ts): a project page seen again costs no query until the project changes. */
+export function readProjectPageKept(projectId: string, engineVersion: string): Promise<ProjectPageRead | undefined> {
+	return projectReads.read(`project-page:${engineVersion}:${projectId}`, () => readProjectPage(projectId, engineVersion), (read) => read.project.id);
 }

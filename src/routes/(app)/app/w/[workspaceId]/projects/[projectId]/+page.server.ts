@@ -2,7 +2,7 @@ import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { roleAtLeast } from '$lib/server/auth/roles';
 import { authorize, authorizeProjectRead } from '$lib/server/auth/access';
-import { readProjectPage } from '$lib/server/db/project-page';
+import { readProjectPageKept } from '$lib/server/db/project-page';
 import { projectJson, scenarioSummaryJson, uploadSummaryJson } from '$lib/server/workbench/serialize';
 import { keyFiguresOf } from '$lib/server/workbench/stored-results';
 import { ENGINE_VERSION } from '$lib/server/engine/version';
@@ -23,7 +23,7 @@ import type { Actions, PageServerLoad } from './$types';
  */
 export const load: PageServerLoad = async (event) => {
 	// The project, its scenarios with their stored key figures and its uploads in one query, checked before use.
-	const { access, read } = await authorizeProjectRead(event, event.params, 'viewer', (id) => readProjectPage(id, ENGINE_VERSION));
+	const { access, read } = await authorizeProjectRead(event, event.params, 'viewer', (id) => readProjectPageKept(id, ENGINE_VERSION));
 	const { project, membership } = access;
 	const { scenarios, uploads } = read;
 	return {
