@@ -63,10 +63,37 @@ function buildAndStartBare() {
 	writeFileSync(join(dir, 'vite.config.js'), "import { sveltekit } from '@sveltejs/kit/vite';\nexport default { plugins: [sveltekit()] };\n");
 	writeFileSync(join(dir, 'src/app.html'), '<!doctype html><html><head>%sveltekit.head%</head><body>%sveltekit.body%</body></html>\n');
 	writeFileSync(join(dir, 'src/routes/+page.svelte'), '<h1>Bare</h1>\n<p>A page with nothing behind it.</p>\n');
+	writeEmptyPageOfTheAppsShape(dir);
 	const built = spawnSync('npx', ['vite', 'build'], { cwd: dir, stdio: 'ignore' });
 	if (built.status !== 0 || !existsSync(join(dir, 'build/index.js'))) throw new Error('the bare app did not build');
 	const child = spawn(process.execPath, ['build'], { cwd: dir, env: { ...process.env, PORT: String(barePort), HOST: '127.0.0.1' }, stdio: 'ignore', detached: true });
 	children.push(child);
+}
+
+/**
+ * Beside the bare page, in the same app: a page with the workbench pages'
+ * shape and nothing in it (three layouts above it, four server loads of a
+ * few fields each), to show what the framework's own work for that shape
+ * costs before the app does anything.
+ */
+function writeEmptyPageOfTheAppsShape(dir: string) {
+	const levels: [string, string, string][] = [
+		['src/routes/(shape)', "export const load = ({ request }) => ({ locale: request.headers.get('accept-language') ?? 'en' });", '<script>let { children } = $props();</script><div>{@render children()}</div>'],
+		[
+			'src/routes/(shape)/shape',
+			"export const load = () => ({ user: { name: 'Bench', email: 'bench@example.invalid' }, workspaces: [{ id: 'w', name: 'W', role: 'owner' }] });",
+			'<script>let { data, children } = $props();</script><nav>{data.user.name}{#each data.workspaces as w}<a href="/shape/{w.id}">{w.name}</a>{/each}</nav>{@render children()}'
+		],
+		['src/routes/(shape)/shape/w', "export const load = () => ({ workspace: { id: 'w', name: 'W', role: 'owner' }, locale: 'en' });", '<script>let { children } = $props();</script>{@render children()}']
+	];
+	for (const [path, load, layout] of levels) {
+		mkdirSync(join(dir, path), { recursive: true });
+		writeFileSync(join(dir, path, '+layout.server.js'), `${load}\n`);
+		writeFileSync(join(dir, path, '+layout.svelte'), `${layout}\n`);
+	}
+	mkdirSync(join(dir, 'src/routes/(shape)/shape/w/page'), { recursive: true });
+	writeFileSync(join(dir, 'src/routes/(shape)/shape/w/page/+page.server.js'), 'export const load = () => ({ items: [{ n: 1 }, { n: 2 }] });\n');
+	writeFileSync(join(dir, 'src/routes/(shape)/shape/w/page/+page.svelte'), '<script>let { data } = $props();</script><h1>Shape</h1>{#each data.items as item}<p>{item.n}</p>{/each}\n');
 }
 
 async function json<T>(path: string, cookie: string): Promise<T> {
@@ -114,6 +141,7 @@ async function main() {
 
 	const reference = await run({ url: bare, connections });
 	line('bare SvelteKit page', reference);
+	line('empty page of the app pages\' shape', await run({ url: `${bare}/shape/w/page`, connections }), reference);
 	const ratios: Record<string, number> = {};
 	for (const [name, path] of pages) {
 		const result = await run({ url: `${app}${path}`, connections, headers });
