@@ -7,7 +7,9 @@
  *   npm run bench:http -- --seconds 5  shorter runs
  *
  * Starts its own cluster, mail sink and app (port 3200, cluster 54341) with
- * the demo seed, and the bare app on port 3201. Prints requests per second,
+ * the demo seed, and the bare app on port 3201 (beside its bare page, an
+ * empty page of the workbench pages' route shape: what the framework alone
+ * costs for it). Prints requests per second,
  * latency percentiles and the ratio of each workbench page to the bare page,
  * then the health route's latency while draft evaluations and tornado
  * requests load the server. Goals (issue: hardening and headroom): projects
