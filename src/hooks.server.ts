@@ -29,9 +29,9 @@ export const init: ServerInit = () => {
 	}
 	// The compute threads load the engine off the request thread; start them now rather than on the first evaluation.
 	void computePool().catch((e: unknown) => console.error('[compute] the worker pool did not start:', e));
-	// adapter-node stops taking requests on SIGTERM/SIGINT, then says so: close what keeps the process alive.
 	// Pages read again are served from kept reads, which PostgreSQL's change feed keeps honest (db/cached-reads.ts).
 	startCachedReads(db(), databaseSettings().url, currentRequestKey);
+	// adapter-node stops taking requests on SIGTERM/SIGINT, then says so: close what keeps the process alive.
 	process.once('sveltekit:shutdown', () => {
 		void Promise.allSettled([closeComputePool(), stopCachedReads().then(closeDb)]);
 	});
