@@ -32,10 +32,6 @@ export const projectReads = new ProjectReadCache(CAPACITY, () => feed?.live === 
 /** The tables whose rows the kept reads show (the migration's triggers announce the same ones). */
 const WATCHED_WRITE = /^\s*(?:insert\s+into|update|delete\s+from)\s+"?(?:projects|scenarios|scenario_results|uploads|users)"?[\s(]/i;
 
-export function writesWatchedTable(sql: string): boolean {
-	return WATCHED_WRITE.test(sql);
-}
-
 /**
  * @param knex the app's query pool, watched for its own writes
  * @param currentRequest a key for the request a statement runs in (its `locals`), or undefined outside requests
@@ -43,7 +39,7 @@ export function writesWatchedTable(sql: string): boolean {
 export function startCachedReads(knex: Knex, connectionString: string, currentRequest: () => object | undefined): void {
 	if (feed) return;
 	const watch = (query: { sql?: unknown }) => {
-		if (typeof query.sql !== 'string' || !writesWatchedTable(query.sql)) return;
+		if (typeof query.sql !== 'string' || !WATCHED_WRITE.test(query.sql)) return;
 		projectReads.forgetAll();
 		const request = currentRequest();
 		if (request && !finishedRequests.has(request)) writingRequests.add(request);

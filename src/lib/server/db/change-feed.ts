@@ -8,7 +8,7 @@
  */
 import pg from 'pg';
 
-export const CHANGE_CHANNEL = 'tidewright_changes';
+const CHANGE_CHANNEL = 'tidewright_changes';
 
 export type Change = { kind: 'project'; projectId: string } | { kind: 'all' };
 
@@ -28,7 +28,7 @@ export interface ChangeFeed {
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /** A notification's payload; anything not understood counts as a change to everything. */
-export function parseChange(payload: string | undefined): Change {
+function parseChange(payload: string | undefined): Change {
 	const projectId = payload?.startsWith('project:') ? payload.slice('project:'.length) : '';
 	return UUID.test(projectId) ? { kind: 'project', projectId: projectId.toLowerCase() } : { kind: 'all' };
 }
