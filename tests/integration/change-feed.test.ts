@@ -7,7 +7,7 @@
 import { readFileSync } from 'node:fs';
 import { randomUUID } from 'node:crypto';
 import knexFactory, { type Knex } from 'knex';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { createTestDatabase, type TestDatabase } from '../helpers/db';
 import { setAppEnv } from '../helpers/app-env';
 import { knexConfig } from '../../knexfile';
@@ -41,14 +41,6 @@ afterAll(async () => {
 	await database.drop();
 });
 
-async function until(what: string, condition: () => boolean | Promise<boolean>, timeoutMs = 5_000) {
-	const deadline = Date.now() + timeoutMs;
-	while (!(await condition())) {
-		if (Date.now() > deadline) throw new Error(`waited ${timeoutMs} ms for ${what}`);
-		await new Promise((r) => setTimeout(r, 10));
-	}
-}
-
 /** A feed that records what it hears; `settle` waits for a marker sent after the writes, so every change before it has arrived. */
 function recordingFeed() {
 	const heard: Change[] = [];
@@ -65,7 +57,7 @@ function recordingFeed() {
 			const marker = randomUUID();
 			await elsewhere.raw(`select pg_notify('tidewright_changes', ?)`, [`project:${marker}`]);
 			const isMarker = (c: Change) => c.kind === 'project' && c.projectId === marker;
-			await until('the marker', () => heard.some(isMarker));
+			await expect.poll(() => heard.some(isMarker), { message: 'the marker', timeout: 5_000 }).toBe(true);
 			const got = heard.splice(0);
 			return got.slice(0, got.findIndex(isMarker));
 		}
@@ -78,7 +70,7 @@ describe('the change feed', () => {
 	beforeAll(async () => {
 		recorder = recordingFeed();
 		feed = recorder.feed;
-		await until('the feed to listen', () => feed.live);
+		await vi.waitFor(() => expect(feed.live, 'the feed to listen').toBe(true), { timeout: 5_000 });
 	});
 	afterAll(() => feed.stop());
 
@@ -125,9 +117,9 @@ describe('the change feed', () => {
 	it('says it was lost when its connection drops, listens again, and hears again', async () => {
 		const lossesBefore = recorder.losses;
 		await elsewhere.raw(`select pg_terminate_backend(pid) from pg_stat_activity where application_name = 'tidewright-change-feed' and datname = current_database()`);
-		await until('the loss', () => recorder.losses > lossesBefore);
+		await expect.poll(() => recorder.losses > lossesBefore, { message: 'the loss', timeout: 5_000 }).toBe(true);
 		// Lost once on the drop, once more on listening again (what changed in between is unknown).
-		await until('listening again', () => feed.live && recorder.losses >= lossesBefore + 2);
+		await expect.poll(() => feed.live && recorder.losses >= lossesBefore + 2, { message: 'listening again', timeout: 5_000 }).toBe(true);
 		const project = await createProject({ workspaceId, name: 'Heard again', technology: 'tidal-stream' }, elsewhere);
 		expect(await recorder.settle()).toContainEqual({ kind: 'project', projectId: project.id });
 	});
@@ -146,10 +138,13 @@ describe('kept reads', () => {
 		startCachedReads(db(), database.url, () => currentRequest);
 		db().on('query', countQuery);
 		// Live once a read is kept.
-		await until('reads to be kept', async () => {
-			await readProjectPageKept(projectId, ENGINE_VERSION);
-			return projectReads.size > 0;
-		});
+		await vi.waitFor(
+			async () => {
+				await readProjectPageKept(projectId, ENGINE_VERSION);
+				expect(projectReads.size, 'reads to be kept').toBeGreaterThan(0);
+			},
+			{ timeout: 5_000 }
+		);
 	});
 	afterAll(async () => {
 		db().off('query', countQuery);
@@ -169,7 +164,7 @@ describe('kept reads', () => {
 
 	it("show another process's change once it is committed", async () => {
 		await elsewhere('projects').where({ id: projectId }).update({ name: 'Kept, renamed elsewhere' });
-		await until('the change to show', async () => (await pageName()) === 'Kept, renamed elsewhere');
+		await expect.poll(pageName, { message: 'the change to show', timeout: 5_000 }).toBe('Kept, renamed elsewhere');
 	});
 
 	it("read the database while a request of this process that wrote is under way, and show its write as soon as it ends", async () => {
@@ -191,11 +186,16 @@ describe('kept reads', () => {
 		requestFinished(request);
 		expect(await pageName()).toBe('Kept, renamed here');
 		// Kept again (once the feed's own word of the write is in, which forgets the project once more).
-		await until('the page to be kept again', async () => {
-			const before = queries;
-			const name = await pageName();
-			return name === 'Kept, renamed here' && queries === before;
-		});
+		await expect
+			.poll(
+				async () => {
+					const before = queries;
+					const name = await pageName();
+					return name === 'Kept, renamed here' && queries === before;
+				},
+				{ message: 'the page to be kept again', timeout: 5_000 }
+			)
+			.toBe(true);
 	});
 
 	it('keep nothing once stopped', async () => {
