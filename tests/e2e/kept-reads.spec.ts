@@ -4,27 +4,13 @@
  * process once it is committed, and the analyst's own change shows at once,
  * on the page the form returns to and after a reload.
  */
-import pg from 'pg';
 import { expect, test } from '@playwright/test';
-import { clusterSettingsFromEnv, databaseUrl } from '../../docker-local/postgres';
-import { e2eClusterDir, e2ePgPort } from '../../playwright.config';
 import { signInPage, workspaceIdOf } from './helpers/session';
 import { DEMO_WORKSPACE, newProject, uniqueName } from './helpers/workbench';
-
-/** A statement from outside the app, as a worker or a script would make it. */
-async function elsewhere<T extends pg.QueryResultRow>(sql: string, values: unknown[] = []): Promise<T[]> {
-	const settings = clusterSettingsFromEnv({ ...process.env, PGPORT_LOCAL: String(e2ePgPort), PG_DATA_DIR: e2eClusterDir });
-	const client = new pg.Client({ connectionString: databaseUrl(settings) });
-	await client.connect();
-	try {
-		return (await client.query<T>(sql, values)).rows;
-	} finally {
-		await client.end();
-	}
-}
+import { queryTestDatabase } from './helpers/test-database';
 
 test('the app listens on the change feed', async () => {
-	const listening = await elsewhere(`select 1 from pg_stat_activity where application_name = 'tidewright-change-feed' and query = 'LISTEN tidewright_changes'`);
+	const listening = await queryTestDatabase(`select 1 from pg_stat_activity where application_name = 'tidewright-change-feed' and query = 'LISTEN tidewright_changes'`);
 	expect(listening.length).toBeGreaterThanOrEqual(1);
 });
 
@@ -39,7 +25,7 @@ test("a project page seen before shows another process's rename, and the analyst
 	await expect(page.getByRole('heading', { level: 1 })).toHaveText(project.name);
 
 	const renamedElsewhere = `${project.name} (renamed by a script)`;
-	await elsewhere('update projects set name = $1 where id = $2', [renamedElsewhere, project.id]);
+	await queryTestDatabase('update projects set name = $1 where id = $2', [renamedElsewhere, project.id]);
 	await expect
 		.poll(
 			async () => {

@@ -5,17 +5,8 @@
  * that. A journey that signs up a new person first forgets this machine's
  * count, straight in the test database, as a new network would start at nought.
  */
-import pg from 'pg';
-import { clusterSettingsFromEnv, databaseUrl } from '../../../docker-local/postgres';
-import { e2eClusterDir, e2ePgPort } from '../../../playwright.config';
+import { queryTestDatabase } from './test-database';
 
 export async function forgetSignUpsFromThisMachine(): Promise<void> {
-	const settings = clusterSettingsFromEnv({ ...process.env, PGPORT_LOCAL: String(e2ePgPort), PG_DATA_DIR: e2eClusterDir });
-	const client = new pg.Client({ connectionString: databaseUrl(settings) });
-	await client.connect();
-	try {
-		await client.query(`delete from rate_limits where key like 'signup-ip:%'`);
-	} finally {
-		await client.end();
-	}
+	await queryTestDatabase(`delete from rate_limits where key like 'signup-ip:%'`);
 }
