@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import { StandinClock, addBillingIntervals } from './clock';
 
 const utc = (iso: string) => Date.parse(iso) / 1000;
@@ -33,5 +33,32 @@ describe('StandinClock', () => {
 		expect(() => clock.advanceTo(real)).toThrow(/cannot go back/);
 		clock.reset();
 		expect(Math.abs(clock.now() - Math.floor(Date.now() / 1000))).toBeLessThanOrEqual(1);
+	});
+
+	describe('holdAt', () => {
+		afterEach(() => vi.useRealTimers());
+
+		it('stands still while a step runs, though real time crosses seconds, then runs on with real time', () => {
+			vi.useFakeTimers({ now: Date.parse('2027-03-01T10:00:00.900Z') });
+			const clock = new StandinClock();
+			const start = clock.now();
+			const seen = clock.holdAt(start, () => {
+				vi.setSystemTime(Date.parse('2027-03-01T10:00:02.100Z'));
+				return [clock.now(), clock.now()];
+			});
+			expect(seen).toEqual([start, start]);
+			expect(clock.now()).toBe(start + 2);
+		});
+
+		it('lets go of the held time when the step throws', () => {
+			const clock = new StandinClock();
+			const held = clock.now() + 3_600;
+			expect(() =>
+				clock.holdAt(held, () => {
+					throw new Error('step failed');
+				})
+			).toThrow('step failed');
+			expect(clock.now()).toBeLessThan(held);
+		});
 	});
 });

@@ -9,9 +9,25 @@ import type { BillingInterval } from './objects';
 export class StandinClock {
 	/** Seconds added to real time by every advance since the last reset. */
 	private offsetSeconds = 0;
+	/** Set while a step runs at one instant (see holdAt). */
+	private heldAt: number | null = null;
 
 	now(): number {
-		return Math.floor(Date.now() / 1000) + this.offsetSeconds;
+		return this.heldAt ?? Math.floor(Date.now() / 1000) + this.offsetSeconds;
+	}
+
+	/**
+	 * Runs `change` with the clock standing at `time`: everything one step
+	 * makes carries the same instant, even when real time crosses a second
+	 * meanwhile. Real time runs on afterwards.
+	 */
+	holdAt<T>(time: number, change: () => T): T {
+		this.heldAt = time;
+		try {
+			return change();
+		} finally {
+			this.heldAt = null;
+		}
 	}
 
 	/** Moves the clock to `target` (Unix seconds); refuses to go back. */

@@ -40,18 +40,21 @@ export async function advanceClock(state: StandinState, target: number, runStep:
 		if (steps >= MAX_STEPS) throw new Error(`more than ${MAX_STEPS} renewals in one clock advance`);
 		const due = nextDueTime(state, target);
 		if (due === null) break;
+		// The step happens at its due time (or now, if that has passed), held there while it runs.
+		const now = Math.max(due, state.clock.now());
 		if (due > state.clock.now()) state.clock.advanceTo(due);
-		const now = state.clock.now();
-		await runStep((emit) => {
-			const dueRecords = [...state.subscriptions.values()]
-				.filter((record) => {
-					const at = renewsAt(record);
-					return at !== null && at <= now;
-				})
-				.sort((a, b) => onlyItem(a.subscription).current_period_end - onlyItem(b.subscription).current_period_end);
-			for (const record of dueRecords) renewSubscription(state, emit, record);
-			expireSessions(state, emit, now);
-		});
+		await runStep((emit) =>
+			state.clock.holdAt(now, () => {
+				const dueRecords = [...state.subscriptions.values()]
+					.filter((record) => {
+						const at = renewsAt(record);
+						return at !== null && at <= now;
+					})
+					.sort((a, b) => onlyItem(a.subscription).current_period_end - onlyItem(b.subscription).current_period_end);
+				for (const record of dueRecords) renewSubscription(state, emit, record);
+				expireSessions(state, emit, now);
+			})
+		);
 	}
 	if (target > state.clock.now()) state.clock.advanceTo(target);
 }
