@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestDatabase, type TestDatabase } from '../helpers/db';
 import { setAppEnv } from '../helpers/app-env';
 import { startTestMailSink, type TestMailSink } from '../helpers/mail-sink';
+import { addressKey } from '../../src/lib/server/auth/rate-limit';
 import { SIGN_IN_REFUSED, signIn, signUpInvited, type RequestContext } from '../../src/lib/server/auth/accounts';
 
 const PASSWORD = 'harbour-light-seven-42';
@@ -250,6 +251,35 @@ describe('sign-in rate limit under a burst from one address', () => {
 		expect(refused.length + blocked.length).toBe(20);
 		const failures = await database.knex('audit_events').where({ actor_email: email, event: 'sign-in-failed' });
 		expect(failures.length).toBeLessThanOrEqual(5);
+	});
+
+	// Without this, a refused guess in a burst held an account point until its refund, and a
+	// parallel guess that read it was slowed down on the account for a failure that never was.
+	it('does not count against the account while the address limit is still deciding', async () => {
+		const { email } = await newAccount();
+		const context = contextFrom('10.0.0.11');
+		await failTimes(email, 5, context);
+		const account = addressKey(email);
+		const accountPoints = async () => {
+			const row = await database.knex('rate_limits').where({ key: `signin-account-failures:${account}` }).first('points');
+			return Number(row?.points);
+		};
+		expect(await accountPoints()).toBe(5);
+
+		// Hold the pair counter's row so the attempt's address check waits on it.
+		const holder = await database.knex.transaction();
+		let attempt: ReturnType<typeof signIn> | undefined;
+		try {
+			await holder('rate_limits').where({ key: `signin-pair:${account}:${context.ip}` }).forUpdate().first();
+			attempt = signIn({ email, password: 'one-more-guess-xyz' }, context);
+			await sleep(300);
+			expect(await accountPoints()).toBe(5);
+		} finally {
+			await holder.commit();
+		}
+		const refused = await attempt;
+		expect(refused && !refused.ok && refused.message).toMatch(BLOCKED);
+		expect(await accountPoints()).toBe(5);
 	});
 });
 

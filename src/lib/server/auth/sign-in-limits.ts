@@ -72,19 +72,24 @@ export async function reserveSignInAttempt(email: string, ip: string, knownDevic
 		return taken.allowed ? null : { retryAfterSeconds: taken.retryAfterSeconds, limit: 'device' };
 	}
 
-	const takes = [
+	const addressTakes = [
 		{ limiter: l.pair, key: `${account}:${ip}` },
-		{ limiter: l.ip, key: ip },
-		{ limiter: l.accountFailures, key: account }
+		{ limiter: l.ip, key: ip }
 	];
-	const taken = await takeAll(takes);
-	if (!taken.allowed) return { retryAfterSeconds: taken.retryAfterSeconds, limit: 'address' };
+	const address = await takeAll(addressTakes);
+	if (!address.allowed) return { retryAfterSeconds: address.retryAfterSeconds, limit: 'address' };
+	// Counted only after the address limits let the attempt through: an attempt they
+	// refuse would otherwise hold an account point until its refund, and a parallel
+	// attempt reading that point would be slowed down for a failure that never was.
+	const failures = await take(l.accountFailures, account);
+	if (!failures.allowed) throw new Error('The account failure counter refused, which it never should.');
 
-	const delay = accountDelaySeconds(taken.used[2] - 1);
+	const delay = accountDelaySeconds(failures.used - 1);
 	if (delay === 0) return null;
 	const gate = await take(l.accountGate, account, { customDuration: delay });
 	if (gate.allowed) return null;
 	// Turned away without a password check: this attempt counts nowhere.
+	const takes = [...addressTakes, { limiter: l.accountFailures, key: account }];
 	await Promise.all(takes.map(({ limiter, key }) => limiter.reward(key, 1)));
 	return { retryAfterSeconds: gate.retryAfterSeconds, limit: 'account' };
 }
