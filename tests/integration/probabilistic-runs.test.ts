@@ -251,9 +251,14 @@ describe('probabilistic runs through worker processes', () => {
 		const chunks = await chunksOf(run.id);
 		expectChunksCover(chunks, 1000, 100);
 		expect(chunks.some((c) => c.worker.endsWith(`:${rescuer.pid}`))).toBe(true);
-		// The chunk the killed worker held was given up on and done again.
-		const retried = await database.knex.withSchema(QUEUE_SCHEMA).from('job').select('state', 'retry_count').where({ name: CHUNK_QUEUE, id: held!.id }).first();
-		expect(retried).toMatchObject({ state: 'completed' });
+		// The chunk the killed worker held was given up on and done again. When the killed worker had
+		// recorded it before dying, the run can end before the retry does, so wait for the retry too.
+		const retried = await waitFor(
+			'the held chunk to be done again',
+			() => database.knex.withSchema(QUEUE_SCHEMA).from('job').select('state', 'retry_count').where({ name: CHUNK_QUEUE, id: held!.id }).first(),
+			(job) => job?.state === 'completed',
+			20_000
+		);
 		expect(retried.retry_count).toBeGreaterThanOrEqual(1);
 		expect(held!.id).toBe(chunkJobId(run.id, held!.data.chunkIndex));
 		// Its draws count once (expectChunksCover): by the rescuer, or, when the kill came between
