@@ -50,10 +50,10 @@ export async function take(limiter: RateLimiterPostgres, key: string, options: {
 /** Takes one point from each limiter at once; when any refuses, the others get theirs back and the longest wait is answered. */
 export async function takeAll(
 	takes: { limiter: RateLimiterPostgres; key: string }[]
-): Promise<{ allowed: true; used: number[] } | { allowed: false; retryAfterSeconds: number }> {
+): Promise<{ allowed: true } | { allowed: false; retryAfterSeconds: number }> {
 	const outcomes = await Promise.all(takes.map(({ limiter, key }) => take(limiter, key)));
 	const waits = outcomes.flatMap((o) => (o.allowed ? [] : [o.retryAfterSeconds]));
-	if (waits.length === 0) return { allowed: true, used: outcomes.map((o) => (o.allowed ? o.used : 0)) };
+	if (waits.length === 0) return { allowed: true };
 	await Promise.all(takes.map(({ limiter, key }, i) => (outcomes[i].allowed ? limiter.reward(key, 1) : null)));
 	return { allowed: false, retryAfterSeconds: Math.max(...waits) };
 }

@@ -81,10 +81,9 @@ export async function reserveSignInAttempt(email: string, ip: string, knownDevic
 	// Counted only after the address limits let the attempt through: an attempt they
 	// refuse would otherwise hold an account point until its refund, and a parallel
 	// attempt reading that point would be slowed down for a failure that never was.
-	const failures = await take(l.accountFailures, account);
-	if (!failures.allowed) throw new Error('The account failure counter refused, which it never should.');
+	const failures = await l.accountFailures.consume(account, 1);
 
-	const delay = accountDelaySeconds(failures.used - 1);
+	const delay = accountDelaySeconds(failures.consumedPoints - 1);
 	if (delay === 0) return null;
 	const gate = await take(l.accountGate, account, { customDuration: delay });
 	if (gate.allowed) return null;
